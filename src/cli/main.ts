@@ -1,0 +1,61 @@
+/**
+ * The command line: a thin shell over the library. Each command lives in its own module under
+ * src/cli/ and registers itself on the program; this file only wires them and turns typed errors
+ * into one line on stderr and an exit code (2 for the user's input, 1 for our bugs).
+ */
+import { Command, CommanderError } from 'commander';
+import { SurmiseError } from '../errors.ts';
+import { type CliIO, processIO } from './io.ts';
+import { commandRegistrations } from './commands.ts';
+import { VERSION } from '../version.ts';
+
+export function buildProgram(io: CliIO): Command {
+  const program = new Command();
+  program
+    .name('surmise')
+    .description(
+      'Find which invariants in a table predict a target, fit closed-form relations and inequalities,\n' +
+        'and report the tightest constants with the rows that attain them. Results are statistical\n' +
+        'evidence on the given table, never a proof.',
+    )
+    .version(VERSION, '-V, --version')
+    .exitOverride()
+    .configureOutput({ writeOut: (s) => io.stdout(s), writeErr: (s) => io.stderr(s) })
+    .showHelpAfterError('(run with --help for usage)');
+  for (const register of commandRegistrations) register(program, io);
+  for (const c of program.commands) {
+    c.exitOverride();
+    c.configureOutput({ writeOut: (s) => io.stdout(s), writeErr: (s) => io.stderr(s) });
+    for (const sub of c.commands) {
+      sub.exitOverride();
+      sub.configureOutput({ writeOut: (s) => io.stdout(s), writeErr: (s) => io.stderr(s) });
+    }
+  }
+  return program;
+}
+
+/** Run the CLI on `args` (without node and script), returning the exit code. Never throws. */
+export async function runCli(args: string[], io: CliIO): Promise<number> {
+  const program = buildProgram(io);
+  try {
+    await program.parseAsync(args, { from: 'user' });
+    return 0;
+  } catch (e) {
+    if (e instanceof CommanderError) {
+      if (e.code === 'commander.helpDisplayed' || e.code === 'commander.version' || e.code === 'commander.help') return 0;
+      // commander has already printed its message; usage errors are the user's input
+      return 2;
+    }
+    if (e instanceof SurmiseError) {
+      io.stderr(`surmise: ${e.message} [${e.code}]\n`);
+      return e.exitCode;
+    }
+    const err = e as Error;
+    io.stderr(`surmise: internal error: ${err?.message ?? String(e)}\n${err?.stack ?? ''}\n`);
+    return 1;
+  }
+}
+
+export async function main(argv: string[]): Promise<number> {
+  return runCli(argv.slice(2), processIO());
+}
