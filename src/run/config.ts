@@ -1,0 +1,202 @@
+/**
+ * The run configuration: a YAML file (parsed with `yaml`, validated with `zod`). Keys are ours and
+ * documented in the README. Every refusal names the file, line and column and the key path, with a
+ * "did you mean" for misspelt keys. Paths in the file are relative to the file's folder.
+ */
+import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
+import { z } from 'zod';
+import { SurmiseError, didYouMean } from '../errors.ts';
+
+const positiveInt = z.number().int().min(1);
+const nonNegativeInt = z.number().int().min(0);
+const exprString = z.string().min(1);
+
+const NetworkSchema = z.strictObject({
+  hidden: z.array(positiveInt).min(1).default([64, 64, 64]),
+  activation: z.enum(['relu', 'gelu']).default('relu'),
+  loss: z.enum(['mse', 'huber']).default('mse'),
+  task: z.enum(['auto', 'regression', 'classification']).default('auto'),
+  epochs: positiveInt.default(60),
+  patience: positiveInt.default(8),
+  batchSize: positiveInt.default(256),
+  learningRate: z.number().positive().default(0.001),
+});
+
+const AttributionSchema = z.strictObject({
+  methods: z.array(z.enum(['saliency', 'smoothgrad', 'integrated', 'permutation'])).min(1)
+    .default(['saliency', 'smoothgrad', 'integrated', 'permutation']),
+  seeds: positiveInt.default(3),
+  folds: nonNegativeInt.default(0),
+  dropTop: nonNegativeInt.default(0),
+});
+
+const FitSchema = z.strictObject({
+  target: exprString,
+  terms: z.array(exprString).min(1),
+  intercept: z.boolean().default(true),
+});
+
+const SearchSchema = z.strictObject({
+  target: exprString,
+  from: z.array(z.string().min(1)).min(1),
+  maxTerms: positiveInt.default(2),
+  powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
+  top: positiveInt.default(10),
+});
+
+const BoundSchema = z.strictObject({
+  lhs: exprString,
+  rhs: z.array(exprString).min(1),
+  by: exprString.optional(),
+  bins: positiveInt.default(10),
+  top: positiveInt.default(5),
+  skipInvalid: z.boolean().default(false),
+});
+
+export const RunConfigSchema = z.strictObject({
+  table: z.string().min(1),
+  format: z.enum(['csv', 'tsv', 'json', 'jsonl']).optional(),
+  kinds: z.record(z.string(), z.enum(['real', 'integer', 'complex', 'label'])).default({}),
+  derive: z.record(z.string(), exprString).default({}),
+  target: exprString,
+  features: z.array(z.string().min(1)).optional(),
+  exclude: z.array(z.string().min(1)).default([]),
+  groups: z.record(z.string(), z.array(z.string().min(1)).min(1)).default({}),
+  split: z.string().min(1).default('random'),
+  seed: z.number().int().default(1),
+  network: NetworkSchema.prefault({}),
+  attribution: AttributionSchema.prefault({}),
+  fits: z.array(FitSchema).default([]),
+  search: SearchSchema.optional(),
+  bounds: z.array(BoundSchema).default([]),
+  output: z.string().min(1).default('surmise-run'),
+});
+
+export type RunConfig = z.infer<typeof RunConfigSchema>;
+
+/** Keys allowed at each level, for "did you mean" on misspellings. */
+const KNOWN_KEYS: Record<string, readonly string[]> = {
+  '': Object.keys(RunConfigSchema.shape),
+  network: Object.keys(NetworkSchema.shape),
+  attribution: Object.keys(AttributionSchema.shape),
+  fits: Object.keys(FitSchema.shape),
+  search: Object.keys(SearchSchema.shape),
+  bounds: Object.keys(BoundSchema.shape),
+};
+
+export interface LoadedConfig {
+  /** The validated configuration with defaults filled in; `table` and `output` resolved to absolute paths. */
+  config: RunConfig;
+  /** The configuration file's path (as given). */
+  path: string;
+}
+
+function describe(v: unknown): string {
+  if (v === undefined) return 'nothing';
+  if (v === null) return 'null';
+  if (typeof v === 'string') return `'${v}'`;
+  if (Array.isArray(v)) return 'a list';
+  if (typeof v === 'object') return 'a mapping';
+  return String(v);
+}
+
+function valueAt(data: unknown, path: ReadonlyArray<PropertyKey>): unknown {
+  let cur: unknown = data;
+  for (const k of path) {
+    if (cur === null || typeof cur !== 'object') return undefined;
+    cur = (cur as Record<PropertyKey, unknown>)[k];
+  }
+  return cur;
+}
+
+/** The YAML node at `path` (or its nearest existing ancestor), to place the error in the file. */
+function nodeAt(root: YamlNode | null | undefined, path: ReadonlyArray<PropertyKey>, key?: string): YamlNode | undefined {
+  let cur: unknown = root;
+  let last: YamlNode | undefined = (root ?? undefined) as YamlNode | undefined;
+  const full = key === undefined ? path : [...path, key];
+  for (let depth = 0; depth < full.length; depth++) {
+    const k = full[depth];
+    if (isMap(cur)) {
+      const pair = cur.items.find((p) => isScalar(p.key) && String(p.key.value) === String(k));
+      if (!pair) return last;
+      // for an unknown key, point at the key itself
+      if (depth === full.length - 1 && key !== undefined) return pair.key as YamlNode;
+      cur = pair.value;
+    } else if (isSeq(cur)) {
+      cur = cur.items[Number(k)];
+    } else return last;
+    if (cur) last = cur as YamlNode;
+  }
+  return last;
+}
+
+function keyPath(path: ReadonlyArray<PropertyKey>): string {
+  let s = '';
+  for (const k of path) s += typeof k === 'number' ? `[${k}]` : s === '' ? String(k) : `.${String(k)}`;
+  return s === '' ? '(top level)' : s;
+}
+
+/** Parse and validate configuration text. `file` is used in messages and to resolve relative paths. */
+export function parseConfig(text: string, file: string): LoadedConfig {
+  const lc = new LineCounter();
+  const doc = parseDocument(text, { lineCounter: lc, prettyErrors: false });
+  const where = (offset: number | undefined): string => {
+    if (offset === undefined) return file;
+    const { line, col } = lc.linePos(offset);
+    return `${file}:${line}:${col}`;
+  };
+  if (doc.errors.length > 0) {
+    const e = doc.errors[0]!;
+    throw new SurmiseError('config.yaml', `${where(e.pos[0])}: not valid YAML: ${e.message.split('\n')[0]}`);
+  }
+  const data: unknown = doc.toJS();
+  if (data === null || typeof data !== 'object' || Array.isArray(data)) {
+    throw new SurmiseError('config.notMapping', `${file}: expected a mapping of keys (table, target, ...) at the top level`);
+  }
+  const parsed = RunConfigSchema.safeParse(data);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0]!;
+    const path = issue.path as PropertyKey[];
+    if (issue.code === 'unrecognized_keys') {
+      const key = issue.keys[0]!;
+      const level = path.filter((p) => typeof p === 'string').join('.');
+      const known = KNOWN_KEYS[level] ?? [];
+      const node = nodeAt(doc.contents as YamlNode, path, key);
+      const full = keyPath([...path, key]);
+      throw new SurmiseError(
+        'config.unknownKey',
+        `${where(node?.range?.[0])}: unknown key '${full}'${didYouMean(key, known)}`,
+      );
+    }
+    const node = nodeAt(doc.contents as YamlNode, path);
+    const got = valueAt(data, path);
+    let expected = issue.message;
+    if (issue.code === 'invalid_type') expected = `expected ${issue.expected === 'array' ? 'a list' : issue.expected}`;
+    else if (issue.code === 'too_small' && issue.origin === 'number') expected = `expected a number ≥ ${String(issue.minimum)}`;
+    else if (issue.code === 'too_small' && issue.origin === 'array') expected = `expected a list of at least ${String(issue.minimum)} item(s)`;
+    else if (issue.code === 'too_small' && issue.origin === 'string') expected = 'expected a non-empty text';
+    else if (issue.code === 'invalid_value') expected = `expected one of ${issue.values.map((v) => `'${String(v)}'`).join(', ')}`;
+    if (got === undefined) {
+      throw new SurmiseError('config.missingKey', `${where(node?.range?.[0])}: missing required key '${keyPath(path)}'`);
+    }
+    throw new SurmiseError('config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`);
+  }
+  const config = parsed.data;
+  const base = dirname(resolve(file));
+  config.table = resolve(base, config.table);
+  config.output = resolve(base, config.output);
+  return { config, path: file };
+}
+
+/** Read and validate a configuration file. */
+export function loadConfig(file: string): LoadedConfig {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (e) {
+    throw new SurmiseError('config.unreadable', `cannot read configuration ${file}: ${(e as Error).message}`);
+  }
+  return parseConfig(text, file);
+}
