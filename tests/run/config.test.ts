@@ -1,0 +1,94 @@
+import { describe, it, expect } from 'vitest';
+import { fileURLToPath } from 'node:url';
+import { parseConfig, loadConfig } from '../../src/run/config.ts';
+import { SurmiseError } from '../../src/errors.ts';
+
+function refusal(text: string): { code: string; message: string } {
+  try {
+    parseConfig(text, 'cfg.yaml');
+  } catch (e) {
+    expect(e).toBeInstanceOf(SurmiseError);
+    return { code: (e as SurmiseError).code, message: (e as SurmiseError).message };
+  }
+  throw new Error('expected a refusal');
+}
+
+describe('run configuration', () => {
+  it('fills documented defaults (README: configuration reference)', () => {
+    const { config } = parseConfig('table: t.csv\ntarget: sig\n', 'dir/cfg.yaml');
+    expect(config.network.hidden).toEqual([64, 64, 64]);
+    expect(config.attribution.seeds).toBe(3);
+    expect(config.attribution.methods).toEqual(['saliency', 'smoothgrad', 'integrated', 'permutation']);
+    expect(config.split).toBe('random');
+    expect(config.table.endsWith('dir/t.csv')).toBe(true);
+  });
+
+  it('loads the bundled demo configuration', () => {
+    const path = fileURLToPath(new URL('../../configs/demo.yaml', import.meta.url));
+    const { config } = loadConfig(path);
+    expect(config.target).toBe('sig');
+    expect(config.bounds[0]!.rhs).toEqual(['vol', 'vol/inj']);
+  });
+
+  it('refuses an unknown key with its place and a suggestion', () => {
+    expect(refusal('table: a.csv\ntarget: sig\natribution:\n  seeds: 2\n')).toEqual({
+      code: 'config.unknownKey',
+      message: "cfg.yaml:3:1: unknown key 'atribution' (did you mean 'attribution'?)",
+    });
+  });
+
+  it('refuses an unknown nested key inside a list item', () => {
+    expect(refusal('table: a.csv\ntarget: sig\nbounds:\n  - lhs: x\n    rhs: [a]\n    topp: 2\n')).toEqual({
+      code: 'config.unknownKey',
+      message: "cfg.yaml:6:5: unknown key 'bounds[0].topp' (did you mean 'top'?)",
+    });
+  });
+
+  it('refuses a number out of range', () => {
+    expect(refusal('table: a.csv\ntarget: sig\nattribution:\n  seeds: 0\n')).toEqual({
+      code: 'config.badValue',
+      message: 'cfg.yaml:4:10: attribution.seeds: expected a number ≥ 1, got 0',
+    });
+  });
+
+  it('refuses a wrong type', () => {
+    expect(refusal('table: a.csv\ntarget: sig\nnetwork:\n  hidden: 12\n')).toEqual({
+      code: 'config.badValue',
+      message: 'cfg.yaml:4:11: network.hidden: expected a list, got 12',
+    });
+  });
+
+  it('refuses a value outside an enumeration', () => {
+    expect(refusal('table: a.csv\ntarget: sig\nnetwork:\n  activation: tanh\n')).toEqual({
+      code: 'config.badValue',
+      message: "cfg.yaml:4:15: network.activation: expected one of 'relu', 'gelu', got 'tanh'",
+    });
+  });
+
+  it('refuses a missing required key', () => {
+    expect(refusal('table: a.csv\n')).toEqual({
+      code: 'config.missingKey',
+      message: "cfg.yaml:1:1: missing required key 'target'",
+    });
+  });
+
+  it('refuses broken YAML with its line', () => {
+    const r = refusal('table: a.csv\ntarget: [sig\n');
+    expect(r.code).toBe('config.yaml');
+    expect(r.message.startsWith('cfg.yaml:3:1: not valid YAML')).toBe(true);
+  });
+
+  it('refuses a top level that is not a mapping', () => {
+    expect(refusal('- a\n- b\n')).toEqual({
+      code: 'config.notMapping',
+      message: 'cfg.yaml: expected a mapping of keys (table, target, ...) at the top level',
+    });
+  });
+
+  it('refuses a malformed power range in search', () => {
+    expect(refusal('table: a.csv\ntarget: y\nsearch:\n  target: y\n  from: [a]\n  powers: 1-3\n')).toEqual({
+      code: 'config.badValue',
+      message: "cfg.yaml:6:11: search.powers: expected a range such as -3..3, got '1-3'",
+    });
+  });
+});
