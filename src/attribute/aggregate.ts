@@ -83,18 +83,51 @@ export function aggregateRepeats(
   const mean = new Array<number>(G).fill(0);
   for (const s of perRepeat) for (let k = 0; k < G; k++) mean[k]! += s[k]! / R;
 
-  const withRows = repeats.every((r) => r.perRow !== undefined && r.n > 0);
-  const resampleRows = withRows && (opts.resampleRows ?? R < 10);
+  const { boot, resampledRows } = bootstrapReplicates(repeats, perRepeat, G, opts);
+  const { low, high } = percentile(boot, level, R);
+  const order = Array.from({ length: G }, (_, k) => k).sort((i, j) => mean[j]! - mean[i]! || i - j);
+  return {
+    method,
+    groups: [...groups],
+    mean,
+    low,
+    high,
+    perRepeat,
+    rawPerRepeat,
+    kendallTau: meanPairwiseTau(perRepeat),
+    order,
+    resamples: B,
+    level,
+    resampledRows,
+  };
+}
+
+/**
+ * B bootstrap replicates of the mean normalised score per group (groups × B). The draws depend only
+ * on the seed, R and n, so methods aggregated with one seed on the same repeats see the same
+ * resampled repeats and rows: the b-th replicates of several methods can be averaged into a
+ * replicate of their consensus.
+ */
+export function bootstrapReplicates(
+  repeats: readonly RepeatScores[],
+  perRepeat: readonly number[][],
+  G: number,
+  opts: AggregateOptions,
+): { boot: Float64Array[]; resampledRows: boolean } {
+  const R = repeats.length;
+  const B = opts.resamples ?? 1000;
+  const withRows = R > 0 && repeats.every((r) => r.perRow !== undefined && r.n > 0);
+  const resampledRows = withRows && (opts.resampleRows ?? R < 10);
   const rng = new Rng(opts.seed);
   const boot: Float64Array[] = Array.from({ length: G }, () => new Float64Array(B));
   const sums = new Float64Array(G);
   const acc = new Float64Array(G);
-  for (let b = 0; b < B; b++) {
+  for (let b = 0; b < B && R > 0; b++) {
     acc.fill(0);
     for (let t = 0; t < R; t++) {
       const r = rng.int(R);
       let s: ArrayLike<number>;
-      if (resampleRows) {
+      if (resampledRows) {
         const rep = repeats[r]!;
         const n = rep.n;
         const pr = rep.perRow!;
@@ -110,18 +143,15 @@ export function aggregateRepeats(
     }
     for (let k = 0; k < G; k++) boot[k]![b] = acc[k]!;
   }
-  const a = (1 - level) / 2;
-  const low: number[] = [];
-  const high: number[] = [];
-  for (let k = 0; k < G; k++) {
-    const sorted = boot[k]!.sort();
-    low.push(R > 0 ? quantileSorted(sorted, a) : NaN);
-    high.push(R > 0 ? quantileSorted(sorted, 1 - a) : NaN);
-  }
+  return { boot, resampledRows };
+}
+
+/** Mean Kendall τ-b over all pairs of rows of `perRepeat`; null when no pair is defined. */
+export function meanPairwiseTau(perRepeat: readonly number[][]): number | null {
   let tauSum = 0;
   let pairs = 0;
-  for (let i = 0; i < R; i++) {
-    for (let j = i + 1; j < R; j++) {
+  for (let i = 0; i < perRepeat.length; i++) {
+    for (let j = i + 1; j < perRepeat.length; j++) {
       const t = kendallTauB(perRepeat[i]!, perRepeat[j]!);
       if (Number.isFinite(t)) {
         tauSum += t;
@@ -129,19 +159,66 @@ export function aggregateRepeats(
       }
     }
   }
+  return pairs > 0 ? tauSum / pairs : null;
+}
+
+function percentile(boot: Float64Array[], level: number, R: number): { low: number[]; high: number[] } {
+  const a = (1 - level) / 2;
+  const low: number[] = [];
+  const high: number[] = [];
+  for (const col of boot) {
+    const sorted = Float64Array.from(col).sort();
+    low.push(R > 0 ? quantileSorted(sorted, a) : NaN);
+    high.push(R > 0 ? quantileSorted(sorted, 1 - a) : NaN);
+  }
+  return { low, high };
+}
+
+/**
+ * The consensus of several methods on the same repeats: each repeat's normalised group scores
+ * averaged over the methods (equal weight per method), then aggregated like one method. Its interval
+ * comes from averaging the methods' b-th bootstrap replicates, all drawn with the same seed (so the
+ * same resampled repeats and rows; see bootstrapReplicates).
+ */
+export function consensusRanking(
+  groups: readonly string[],
+  repeatsByMethod: ReadonlyArray<readonly RepeatScores[]>,
+  opts: AggregateOptions,
+): MethodRanking {
+  const G = groups.length;
+  const M = repeatsByMethod.length;
+  const R = M > 0 ? repeatsByMethod[0]!.length : 0;
+  const B = opts.resamples ?? 1000;
+  const level = opts.level ?? 0.95;
+  const perRepeatByMethod = repeatsByMethod.map((reps) => reps.map((r) => normaliseScores(r.scores)));
+  const perRepeat: number[][] = Array.from({ length: R }, (_, r) => {
+    const s = new Array<number>(G).fill(0);
+    for (const pm of perRepeatByMethod) for (let k = 0; k < G; k++) s[k]! += pm[r]![k]! / M;
+    return s;
+  });
+  const mean = new Array<number>(G).fill(0);
+  for (const s of perRepeat) for (let k = 0; k < G; k++) mean[k]! += s[k]! / R;
+  const boot: Float64Array[] = Array.from({ length: G }, () => new Float64Array(B));
+  let anyRows = false;
+  repeatsByMethod.forEach((reps, m) => {
+    const rb = bootstrapReplicates(reps, perRepeatByMethod[m]!, G, opts);
+    anyRows ||= rb.resampledRows;
+    for (let k = 0; k < G; k++) for (let b = 0; b < B; b++) boot[k]![b] += rb.boot[k]![b]! / M;
+  });
+  const { low, high } = percentile(boot, level, R);
   const order = Array.from({ length: G }, (_, k) => k).sort((i, j) => mean[j]! - mean[i]! || i - j);
   return {
-    method,
+    method: 'consensus',
     groups: [...groups],
     mean,
     low,
     high,
     perRepeat,
-    rawPerRepeat,
-    kendallTau: pairs > 0 ? tauSum / pairs : null,
+    rawPerRepeat: perRepeat,
+    kendallTau: meanPairwiseTau(perRepeat),
     order,
     resamples: B,
     level,
-    resampledRows: resampleRows,
+    resampledRows: anyRows,
   };
 }

@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { kendallTauB } from '../../src/attribute/kendall.ts';
-import { aggregateRepeats, normaliseScores, quantileSorted } from '../../src/attribute/aggregate.ts';
+import { aggregateRepeats, consensusRanking, normaliseScores, quantileSorted } from '../../src/attribute/aggregate.ts';
 import { defaultGroups, declareGroups, sumOverGroups } from '../../src/attribute/groups.ts';
 import { Rng } from '../../src/util/rng.ts';
 import type { RepeatScores } from '../../src/attribute/types.ts';
@@ -58,6 +58,22 @@ describe('aggregation over repeats', () => {
     for (const s of a.perRepeat) expect(s.reduce((x, y) => x + y, 0)).toBeCloseTo(1, 12);
     // the sum-to-one constraint: means sum to 1 too
     expect(a.mean.reduce((x, y) => x + y, 0)).toBeCloseTo(1, 12);
+  });
+  it('the consensus of a method with itself is that method (same seed → same bootstrap draws)', () => {
+    const rng = new Rng(8);
+    const reps: RepeatScores[] = [0, 1].map(() => {
+      const perRow = Float64Array.from({ length: 200 * 2 }, (_, k) => (k % 2 ? 1 : 2) + rng.normal());
+      const scores = new Float64Array(2);
+      for (let i = 0; i < 200; i++) for (let k = 0; k < 2; k++) scores[k] += perRow[i * 2 + k]! / 200;
+      return { scores, perRow, n: 200 };
+    });
+    const one = aggregateRepeats('saliency', ['a', 'b'], reps, { seed: 4, resamples: 200 });
+    const both = consensusRanking(['a', 'b'], [reps, reps], { seed: 4, resamples: 200 });
+    for (let k = 0; k < 2; k++) {
+      expect(both.mean[k]).toBeCloseTo(one.mean[k]!, 12);
+      expect(both.low[k]).toBeCloseTo(one.low[k]!, 12);
+      expect(both.high[k]).toBeCloseTo(one.high[k]!, 12);
+    }
   });
   it('τ-b is the mean over pairs of repeats (hand-worked: pairs give 1, 1/3, 1/3 → 5/9)', () => {
     const rep = (s: number[]): RepeatScores => ({ scores: Float64Array.from(s), n: 1 });
