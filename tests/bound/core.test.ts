@@ -1,0 +1,193 @@
+import { describe, it, expect } from 'vitest';
+import fc from 'fast-check';
+import { boundArrays } from '../../src/bound/core.ts';
+import { topK } from '../../src/bound/topk.ts';
+import { equalCountStrata } from '../../src/bound/strata.ts';
+import { kahanSum } from '../../src/util/sum.ts';
+import { Rng } from '../../src/util/rng.ts';
+
+const all = (n: number) => Int32Array.from({ length: n }, (_, i) => i);
+
+/** Bound lhs ≤ c·rhs (or ≥) on arrays, by the core, stratified along `by`. */
+function bound(lhs: number[], rhs: number[], by: number[], upper = true, bins = 10, top = 5) {
+  const ratio = Float64Array.from(lhs, (l, i) => l / rhs[i]!);
+  return boundArrays(ratio, Float64Array.from(by), all(lhs.length), { bins, top, upper, byName: 'x' });
+}
+
+describe('tightest constant, witnesses and strata (brute force, by definition)', () => {
+  const data = fc
+    .array(fc.tuple(fc.double({ min: -100, max: 100, noNaN: true }), fc.integer({ min: -50, max: 50 })), { minLength: 1, maxLength: 200 })
+    .map((rows) => ({ ratio: rows.map((r) => r[0]), by: rows.map((r) => r[1]) }));
+
+  it('c* is the brute-force max (and min in the lower form); witnesses are exactly the top-K ratios', () => {
+    fc.assert(
+      fc.property(data, fc.integer({ min: 1, max: 12 }), fc.boolean(), ({ ratio, by }, k, upper) => {
+        const res = boundArrays(Float64Array.from(ratio), Float64Array.from(by), all(ratio.length), { bins: 4, top: k, upper, byName: 'b' });
+        expect(res.constant).toBe(upper ? Math.max(...ratio) : Math.min(...ratio));
+        // brute force: sort rows by ratio (best first), ties by row number
+        const order = [...ratio.keys()].sort((a, b) => (upper ? ratio[b]! - ratio[a]! : ratio[a]! - ratio[b]!) || a - b);
+        expect(Array.from(res.witnessRows)).toEqual(order.slice(0, Math.min(k, ratio.length)));
+      }),
+    );
+  });
+
+  it('strata partition the rows with equal counts (±1), ordered by `by`, each constant its own max', () => {
+    fc.assert(
+      fc.property(data, fc.integer({ min: 1, max: 15 }), ({ ratio, by }, bins) => {
+        const r = Float64Array.from(ratio);
+        const b = Float64Array.from(by);
+        const strata = equalCountStrata(b, r, all(ratio.length), bins, true);
+        const nb = Math.min(bins, ratio.length);
+        expect(strata.length).toBe(nb);
+        expect(strata.reduce((s, st) => s + st.n, 0)).toBe(ratio.length);
+        const sizes = strata.map((s) => s.n);
+        expect(Math.max(...sizes) - Math.min(...sizes)).toBeLessThanOrEqual(1);
+        for (let s = 1; s < nb; s++) expect(strata[s - 1]!.high).toBeLessThanOrEqual(strata[s]!.low);
+        // the union of the strata's ranges covers every row, and the overall max is the max of stratum maxima
+        expect(Math.max(...strata.map((s) => s.constant))).toBe(Math.max(...ratio));
+        for (const st of strata) {
+          expect(r[st.witness]).toBe(st.constant);
+          expect(b[st.witness]!).toBeGreaterThanOrEqual(st.low);
+          expect(b[st.witness]!).toBeLessThanOrEqual(st.high);
+          expect(st.centre).toBeGreaterThanOrEqual(st.low);
+          expect(st.centre).toBeLessThanOrEqual(st.high);
+          // every row whose `by` lies strictly inside the stratum's range belongs to it, so its ratio is ≤ the constant
+          for (let i = 0; i < ratio.length; i++) if (b[i]! > st.low && b[i]! < st.high) expect(r[i]!).toBeLessThanOrEqual(st.constant);
+        }
+      }),
+    );
+  });
+
+  it('with distinct `by` values each stratum is exactly the corresponding slice of the sorted rows', () => {
+    const rng = new Rng(11);
+    const n = 1003;
+    const by = Float64Array.from({ length: n }, () => rng.normal());
+    const ratio = Float64Array.from({ length: n }, () => rng.normal());
+    const strata = equalCountStrata(by, ratio, all(n), 7, true);
+    const order = [...by.keys()].sort((a, b) => by[a]! - by[b]!);
+    strata.forEach((st, s) => {
+      const slice = order.slice(Math.floor((s * n) / 7), Math.floor(((s + 1) * n) / 7));
+      expect(st.n).toBe(slice.length);
+      expect(st.constant).toBe(Math.max(...slice.map((i) => ratio[i]!)));
+      expect(st.low).toBe(by[slice[0]!]);
+      expect(st.high).toBe(by[slice[slice.length - 1]!]);
+    });
+  });
+
+  it('topK keeps the earliest row among ties', () => {
+    expect(Array.from(topK(new Float64Array([5, 9, 1, 9]), null, 2, true))).toEqual([1, 3]);
+    expect(Array.from(topK(new Float64Array([5, 9, 1, 9]), null, 2, false))).toEqual([2, 0]);
+  });
+});
+
+describe('known inequalities', () => {
+  // |sin x − x| ≤ |x|³/6, approached as x → 0 (Taylor; ../shared/reference-checks.md, from memory).
+  // x ≥ 0.01 keeps the cancellation in x − sin x (relative error ~ 6ε/x² ≈ 7e-12) far below the margin x²/120 ≥ 8e-7.
+  it('|sin x − x| ≤ c·|x|³ on (0, 0.5]: c* within 1e-3 of 1/6 from below, witness at the smallest x', () => {
+    const rng = new Rng(3);
+    const x = Array.from({ length: 5000 }, () => rng.uniform(0.01, 0.5));
+    const lhs = x.map((v) => Math.abs(Math.sin(v) - v));
+    const res = bound(lhs, x.map((v) => v ** 3), x);
+    expect(res.constant).toBeLessThan(1 / 6);
+    expect(res.constant).toBeGreaterThan(1 / 6 - 1e-3);
+    expect(x[res.witnessRows[0]!]).toBe(Math.min(...x));
+    // c* per stratum rises towards 1/6 as x decreases (ratio = 1/6 − x²/120 + …), so the mildest trend is flagged with its direction
+    expect(res.trend.direction).toBe('decreasing');
+    expect(res.extremeStratum).toBe('lowest');
+  });
+
+  // |eˣ − 1 − x| ≤ (e − 2)x² on [−1, 1], attained at x = 1 (from memory); the smallest ratio is at x = −1: e⁻¹ (from the formula).
+  it('|eˣ − 1 − x| ≤ c·x² on [−1, 1]: c* = e − 2 at x = 1; lower form 1/e at x = −1', () => {
+    const rng = new Rng(5);
+    const x = [1, -1, ...Array.from({ length: 4000 }, () => rng.uniform(-1, 1))];
+    const lhs = x.map((v) => Math.abs(Math.expm1(v) - v));
+    const rhs = x.map((v) => v * v);
+    const up = bound(lhs, rhs, x);
+    expect(up.constant).toBeCloseTo(Math.E - 2, 14);
+    expect(x[up.witnessRows[0]!]).toBe(1);
+    const lo = bound(lhs, rhs, x, false);
+    expect(lo.constant).toBeCloseTo(1 / Math.E, 14);
+    expect(x[lo.witnessRows[0]!]).toBe(-1);
+  });
+
+  // Stirling: 1/(12n+1) < ln n! − (n ln n − n + ½ ln 2πn) < 1/(12n) (H. Robbins, "A remark on Stirling's formula",
+  // Amer. Math. Monthly 62, 1955; from memory). n ≤ 200: ln n! carries an absolute rounding error ~1e-13, while the
+  // upper ratio's distance from 1 is ~1/(30n²) ≥ 8e-7; past n ≈ 1000 float64 cancellation would swamp that margin.
+  it('Stirling error: c* of err ≤ c/(12n) is ≤ 1 (at the largest n); lower form err ≥ c/(12n+1) gives c ≥ 1', () => {
+    const N = 200;
+    const logs = Float64Array.from({ length: N }, (_, k) => Math.log(k + 1));
+    const n = Array.from({ length: N }, (_, k) => k + 1);
+    const err = n.map((m) => kahanSum(logs.subarray(0, m)) - (m * Math.log(m) - m + 0.5 * Math.log(2 * Math.PI * m)));
+    const up = bound(err, n.map((m) => 1 / (12 * m)), n);
+    expect(up.constant).toBeLessThanOrEqual(1);
+    expect(up.constant).toBeGreaterThan(1 - 1e-5);
+    expect(n[up.witnessRows[0]!]).toBe(N);
+    const lo = bound(err, n.map((m) => 1 / (12 * m + 1)), n, false);
+    expect(lo.constant).toBeGreaterThanOrEqual(1);
+    // err·(12n+1) ≈ (1 + 1/(12n))(1 − 1/(30n²)) falls towards 1 (Stirling series 1/(12n) − 1/(360n³), from memory):
+    // the smallest ratio is at the largest n, just above 1
+    expect(n[lo.witnessRows[0]!]).toBe(N);
+    expect(lo.constant).toBeLessThan(1 + 1 / (12 * N));
+  });
+});
+
+describe('trend of the per-stratum constant', () => {
+  const family = (seed: number, f: (t: number, u: number) => number) => {
+    const rng = new Rng(seed);
+    const t = Array.from({ length: 20000 }, () => Math.exp(rng.uniform(0, 5)));
+    const ratio = t.map((v) => f(v, rng.next()));
+    return boundArrays(Float64Array.from(ratio), Float64Array.from(t), all(t.length), { bins: 10, top: 3, upper: true, byName: 't' });
+  };
+
+  // On ratio = t·u (u uniform), per-stratum max ≈ the stratum's top t: log-log slope 1 (by construction).
+  it('ratio growing like t: "grows along t", slope ≈ 1', () => {
+    const res = family(1, (t, u) => t * u);
+    expect(res.trend.kind).toBe('unbounded');
+    expect(res.trend.direction).toBe('increasing');
+    expect(res.trend.verdict).toMatch(/^grows along t /);
+    expect(res.trend.slope!).toBeCloseTo(1, 1);
+    expect(res.extremeStratum).toBe('highest');
+  });
+
+  it('ratio = u/t: "grows as t decreases", slope ≈ −1', () => {
+    const res = family(2, (t, u) => u / t);
+    expect(res.trend.direction).toBe('decreasing');
+    expect(res.trend.verdict).toMatch(/^grows as t decreases /);
+    expect(res.trend.slope!).toBeCloseTo(-1, 1);
+    expect(res.extremeStratum).toBe('lowest');
+  });
+
+  // Bounded ratio (uniform noise, independent of t): the 95% interval should contain 0 in about 95% of seeds
+  // (coverage of the t interval, common practice); 40 seeds, at most 6 alarms (binomial tail ≈ 1.4%).
+  it('bounded ratio (uniform noise): verdict bounded in at least 34 of 40 seeds', () => {
+    let bounded = 0;
+    for (let s = 0; s < 40; s++) if (family(100 + s, (_t, u) => u).trend.kind === 'bounded') bounded++;
+    expect(bounded).toBeGreaterThanOrEqual(34);
+    expect(family(100, (_t, u) => u).trend.verdict).toMatch(/^bounded: no trend along t/);
+  });
+
+  it('in the lower form a constant falling towards 0 along t is the failure direction', () => {
+    const rng = new Rng(9);
+    const t = Array.from({ length: 5000 }, () => Math.exp(rng.uniform(0, 4)));
+    const ratio = Float64Array.from(t, (v) => (1 + rng.next()) / v);
+    const res = boundArrays(ratio, Float64Array.from(t), all(t.length), { bins: 8, top: 1, upper: false, byName: 't' });
+    expect(res.trend.verdict).toMatch(/^shrinks along t /);
+  });
+
+  it('uses the stratum rank when `by` takes values ≤ 0, and says so', () => {
+    const rng = new Rng(4);
+    const t = Array.from({ length: 3000 }, () => rng.uniform(-1, 1));
+    const ratio = Float64Array.from(t, (v) => Math.exp(3 * v) * rng.next());
+    const res = boundArrays(ratio, Float64Array.from(t), all(t.length), { bins: 10, top: 1, upper: true, byName: 't' });
+    expect(res.trend.basis).toBe('rank');
+    expect(res.notes.join(' ')).toMatch(/values ≤ 0.*rank/);
+    expect(res.trend.direction).toBe('increasing');
+  });
+
+  it('is undetermined when a stratum constant is ≤ 0, and notes c* ≤ 0', () => {
+    const res = bound([-1, -2, -3, -4, -5, -6], [1, 1, 1, 1, 1, 1], [1, 2, 3, 4, 5, 6], true, 3);
+    expect(res.constant).toBe(-1);
+    expect(res.trend.kind).toBe('undetermined');
+    expect(res.notes.join(' ')).toMatch(/c\* = -1 ≤ 0/);
+  });
+});
