@@ -1,0 +1,90 @@
+import type { Block, Inline } from './doc.ts';
+import { escapeHtml } from './escape.ts';
+
+const STYLE = `
+:root { color-scheme: light; }
+body { font-family: "DejaVu Sans", "Helvetica Neue", Arial, sans-serif; color: #1b1b1b; background: #fff;
+  max-width: 62rem; margin: 2rem auto; padding: 0 1.25rem; line-height: 1.5; }
+h1 { font-size: 1.7rem; margin-bottom: 0.2rem; } h2 { margin-top: 2.2rem; border-bottom: 1px solid #ccc; }
+h3 { margin-top: 1.6rem; }
+table { border-collapse: collapse; margin: 0.8rem 0; font-size: 0.92rem; }
+th, td { border: 1px solid #d0d0d0; padding: 0.25rem 0.55rem; text-align: left; vertical-align: top; }
+th { background: #f3f3f3; } td.num { text-align: right; font-variant-numeric: tabular-nums; }
+figure { margin: 1rem 0; } figure svg { max-width: 100%; height: auto; display: block; }
+figcaption { color: #555; font-size: 0.9rem; }
+pre { background: #f6f6f6; padding: 0.8rem; overflow-x: auto; border: 1px solid #ddd; }
+code { font-family: "DejaVu Sans Mono", Menlo, Consolas, monospace; font-size: 0.92em; }
+p.note { background: #eef4fb; border-left: 4px solid #4c78a8; padding: 0.5rem 0.8rem; }
+p.flag { background: #fdf0e6; border-left: 4px solid #d95f02; padding: 0.5rem 0.8rem; }
+`;
+
+function inline(p: Inline): string {
+  if (typeof p === 'string') return escapeHtml(p);
+  let t = escapeHtml(p.text);
+  if (p.code) t = `<code>${t}</code>`;
+  if (p.strong) t = `<strong>${t}</strong>`;
+  if (p.key !== undefined) t = `<span data-key="${escapeHtml(p.key)}">${t}</span>`;
+  return t;
+}
+
+function inlines(ps: Inline[]): string {
+  return ps.map(inline).join('');
+}
+
+/**
+ * One self-contained HTML page: inline CSS, the SVGs inlined, no scripts, no external resources;
+ * a Content-Security-Policy forbids scripts and every network load as a second line of defence.
+ */
+export function renderHtml(title: string, blocks: Block[], svgs: ReadonlyMap<string, string>): string {
+  const out: string[] = [];
+  out.push('<!DOCTYPE html>');
+  out.push('<html lang="en">');
+  out.push('<head>');
+  out.push('<meta charset="utf-8">');
+  out.push(
+    `<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">`,
+  );
+  out.push('<meta name="viewport" content="width=device-width, initial-scale=1">');
+  out.push(`<title>${escapeHtml(title)}</title>`);
+  out.push(`<style>${STYLE}</style>`);
+  out.push('</head>');
+  out.push('<body>');
+  for (const b of blocks) {
+    switch (b.kind) {
+      case 'heading': {
+        const id = b.id !== undefined ? ` id="${escapeHtml(b.id)}"` : '';
+        out.push(`<h${b.level}${id}>${escapeHtml(b.text)}</h${b.level}>`);
+        break;
+      }
+      case 'paragraph':
+        out.push(`<p${b.tone ? ` class="${b.tone}"` : ''}>${inlines(b.parts)}</p>`);
+        break;
+      case 'list':
+        out.push(`<ul>${b.items.map((it) => `<li>${inlines(it)}</li>`).join('')}</ul>`);
+        break;
+      case 'table': {
+        const num = b.numeric ?? [];
+        const head = b.header.map((h) => `<th>${escapeHtml(h)}</th>`).join('');
+        const rows = b.rows
+          .map((r) => `<tr>${r.map((c, j) => `<td${num[j] ? ' class="num"' : ''}>${inline(c)}</td>`).join('')}</tr>`)
+          .join('\n');
+        out.push(`<table>\n<thead><tr>${head}</tr></thead>\n<tbody>\n${rows}\n</tbody>\n</table>`);
+        break;
+      }
+      case 'plot': {
+        const svg = svgs.get(b.name);
+        if (svg === undefined) throw new Error(`report: plot '${b.name}' was not rendered`);
+        out.push(
+          `<figure class="plot" data-plot="${escapeHtml(b.name)}">${svg}<figcaption>${escapeHtml(b.title)}</figcaption></figure>`,
+        );
+        break;
+      }
+      case 'code':
+        out.push(`<pre><code>${escapeHtml(b.text)}</code></pre>`);
+        break;
+    }
+  }
+  out.push('</body>');
+  out.push('</html>');
+  return out.join('\n') + '\n';
+}

@@ -1,0 +1,61 @@
+import type { Block, Inline } from './doc.ts';
+import { escapeMarkdown, markdownFence } from './escape.ts';
+
+function inline(p: Inline, inTable = false): string {
+  if (typeof p === 'string') return escapeMarkdown(p);
+  let t = escapeMarkdown(p.text);
+  if (p.code) t = codeSpan(p.text, inTable);
+  if (p.strong) t = `**${t}**`;
+  return t;
+}
+
+/**
+ * A code span (CommonMark 0.31 §6.1): delimiters longer than any backtick run inside; no HTML
+ * forms in it. In a table cell `|` is escaped as `\|` (GitHub tables extension, §4.10).
+ */
+function codeSpan(text: string, inTable: boolean): string {
+  let t = text.replace(/\r\n|\r|\n/g, ' ');
+  if (inTable) t = t.replace(/\|/g, '\\|');
+  let longest = 0;
+  for (const m of t.matchAll(/`+/g)) longest = Math.max(longest, m[0].length);
+  const d = '`'.repeat(longest + 1);
+  const pad = t.startsWith('`') || t.endsWith('`') ? ' ' : '';
+  return `${d}${pad}${t}${pad}${d}`;
+}
+
+function inlines(ps: Inline[]): string {
+  return ps.map((p) => inline(p)).join('');
+}
+
+/** The report as GitHub-flavoured Markdown; plots are referenced as `plots/<name>.svg`. */
+export function renderMarkdown(blocks: Block[]): string {
+  const out: string[] = [];
+  for (const b of blocks) {
+    switch (b.kind) {
+      case 'heading':
+        out.push(`${'#'.repeat(b.level)} ${escapeMarkdown(b.text)}`);
+        break;
+      case 'paragraph':
+        out.push(b.tone ? `> ${inlines(b.parts)}` : inlines(b.parts));
+        break;
+      case 'list':
+        out.push(b.items.map((it) => `- ${inlines(it)}`).join('\n'));
+        break;
+      case 'table': {
+        const num = b.numeric ?? [];
+        const head = `| ${b.header.map(escapeMarkdown).join(' | ')} |`;
+        const rule = `|${b.header.map((_, j) => (num[j] ? ' ---: ' : ' --- ')).join('|')}|`;
+        const rows = b.rows.map((r) => `| ${r.map((c) => inline(c, true)).join(' | ')} |`);
+        out.push([head, rule, ...rows].join('\n'));
+        break;
+      }
+      case 'plot':
+        out.push(`![${escapeMarkdown(b.title)}](plots/${b.name}.svg)`);
+        break;
+      case 'code':
+        out.push(markdownFence(b.text));
+        break;
+    }
+  }
+  return out.join('\n\n') + '\n';
+}

@@ -1,0 +1,48 @@
+import type { PlotSpec } from '../render-plot.ts';
+import { formatCount } from '../format.ts';
+
+/** Settings every plot shares: fixed size, no ARIA text (large charts), the DejaVu font family. */
+export function baseSpec(title: string, subtitle: string | undefined, width = 560, height = 360): PlotSpec {
+  return {
+    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    title: subtitle ? { text: title, subtitle, anchor: 'start' } : { text: title, anchor: 'start' },
+    width,
+    height,
+    background: 'white',
+    config: {
+      aria: false,
+      font: 'DejaVu Sans, sans-serif',
+      axis: { labelLimit: 180, titleLimit: 520 },
+      legend: { titleLimit: 240 },
+      title: { subtitleColor: '#555', limit: 700 },
+    },
+  };
+}
+
+/** "all 1,234 points" or "2,000 of 100,000 points, a seeded random sample (seed 7)…". */
+export function sampleNote(shown: number, total: number, seed: number, extra = ''): string {
+  if (shown >= total) return `all ${formatCount(total)} points`;
+  return `${formatCount(shown)} of ${formatCount(total)} points, a seeded random sample (seed ${seed})${extra}`;
+}
+
+/** Finite-only copy of paired arrays, with the count of rows left out. */
+export function finitePairs(x: ArrayLike<number>, y: ArrayLike<number>, idx: ArrayLike<number>): {
+  rows: Array<{ x: number; y: number; i: number }>;
+  nonFinite: number;
+} {
+  const rows: Array<{ x: number; y: number; i: number }> = [];
+  let nonFinite = 0;
+  for (let k = 0; k < idx.length; k++) {
+    const i = idx[k]!;
+    const a = x[i]!;
+    const b = y[i]!;
+    if (Number.isFinite(a) && Number.isFinite(b)) rows.push({ x: a, y: b, i });
+    else nonFinite++;
+  }
+  return { rows, nonFinite };
+}
+
+/** " (k rows with a missing or non-finite value not drawn)" or "". */
+export function nonFiniteNote(k: number): string {
+  return k > 0 ? `; ${formatCount(k)} row${k === 1 ? '' : 's'} with a non-finite value not drawn` : '';
+}

@@ -1,0 +1,53 @@
+import type { RenderedPlot, RenderedReport, ReportInput, ReportOptions } from './types.ts';
+import type { Block } from './doc.ts';
+import { PlotPlan } from './plan.ts';
+import { resolveOptions, validateInput } from './validate.ts';
+import { summaryBlocks } from './summary.ts';
+import {
+  attributionSection,
+  boundsSection,
+  dataSection,
+  predictabilitySection,
+  relationsSection,
+  reproducibilitySection,
+} from './sections.ts';
+import { specToSvg, svgToPng } from './render-plot.ts';
+import { renderHtml } from './html.ts';
+import { renderMarkdown } from './markdown.ts';
+
+/** The report's blocks and the plots they reference, before anything is drawn. */
+export function planReport(input: ReportInput, opts?: ReportOptions): { blocks: Block[]; plan: PlotPlan } {
+  const o = resolveOptions(opts);
+  validateInput(input);
+  const plan = new PlotPlan();
+  const set = { seed: o.seed, maxPoints: o.maxPoints, scatterMode: o.scatterMode };
+  const blocks: Block[] = [
+    { kind: 'heading', level: 1, text: input.title },
+    { kind: 'paragraph', parts: [`Created ${input.createdAt} by ${input.tool.name} ${input.tool.version}.`] },
+    ...summaryBlocks(input),
+    ...dataSection(input),
+    ...predictabilitySection(input, plan, set),
+    ...attributionSection(input, plan, set),
+    ...relationsSection(input, plan, set),
+    ...boundsSection(input, plan, set),
+    ...reproducibilitySection(input),
+  ];
+  return { blocks, plan };
+}
+
+/**
+ * Render the report: one self-contained HTML page, the same content as Markdown (plots referenced
+ * as plots/<name>.svg), and every plot as SVG and PNG. Pure: nothing is written.
+ */
+export async function renderReport(input: ReportInput, opts?: ReportOptions): Promise<RenderedReport> {
+  const o = resolveOptions(opts);
+  const { blocks, plan } = planReport(input, opts);
+  const plots: RenderedPlot[] = [];
+  for (const item of plan.items) {
+    const svg = await specToSvg(item.spec, `p-${item.name}`);
+    const png = o.png ? svgToPng(svg, o.pngScale) : new Uint8Array(0);
+    plots.push({ name: item.name, title: item.title, svg, png });
+  }
+  const svgs = new Map(plots.map((p) => [p.name, p.svg]));
+  return { html: renderHtml(input.title, blocks, svgs), markdown: renderMarkdown(blocks), plots };
+}

@@ -1,0 +1,298 @@
+import type { Block, Inline } from './doc.ts';
+import type { ReportInput, Interval } from './types.ts';
+import type { PlotPlan } from './plan.ts';
+import { formatCount, formatInterval, formatNumber } from './format.ts';
+import { candidateEquation, equation, metricDirection, metricLabel, trendGrows } from './words.ts';
+import { attributionSpec } from './plots/attribution.ts';
+import { scatterSpec } from './plots/scatter.ts';
+import { predictionSpec } from './plots/predictions.ts';
+import { residualSpec } from './plots/residuals.ts';
+import { boundSpec } from './plots/bound.ts';
+import { plotLibraryVersions } from './render-plot.ts';
+import { deriveSeed } from '../util/rng.ts';
+
+export interface SectionSettings {
+  seed: number;
+  maxPoints: number;
+  scatterMode: 'bin' | 'sample';
+}
+
+const n4 = (x: number): Inline => formatNumber(x);
+
+/** The table and its row policy: every drop with its reason, duplicates and the accounting. */
+export function dataSection(input: ReportInput): Block[] {
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'The table and the rows used', id: 'data' }];
+  out.push({
+    kind: 'paragraph',
+    parts: ['Input file ', { text: input.input.path, code: true }, ` with ${formatCount(input.input.rows)} rows.`],
+  });
+  const d = input.drops;
+  if (!d) {
+    out.push({ kind: 'paragraph', parts: ['No row policy was reported for this run.'] });
+    return out;
+  }
+  out.push({
+    kind: 'paragraph',
+    parts: [
+      `Of ${formatCount(d.inputRows)} rows read, `,
+      { text: formatCount(d.keptRows), key: 'kept-rows' },
+      ' were kept for the analysis.',
+    ],
+  });
+  const rows: Inline[][] = d.dropped.map((x) => [{ text: x.column, code: true }, x.reason, formatCount(x.rows)]);
+  rows.push(['(whole row)', `exact duplicate (${d.duplicateRule})`, formatCount(d.duplicates)]);
+  out.push({ kind: 'table', header: ['column', 'reason', 'rows dropped'], rows, numeric: [false, false, true] });
+  const listed = d.dropped.reduce((s, x) => s + x.rows, 0) + d.duplicates;
+  const gone = d.inputRows - d.keptRows;
+  if (listed > gone) {
+    out.push({
+      kind: 'paragraph',
+      parts: [`A row can be dropped for more than one reason: the counts above add up to ${formatCount(listed)}, while ${formatCount(gone)} distinct rows were dropped.`],
+    });
+  } else if (listed < gone) {
+    out.push({
+      kind: 'paragraph',
+      tone: 'flag',
+      parts: [`${formatCount(gone - listed)} dropped rows are not explained by the reasons above (${formatCount(gone)} dropped, ${formatCount(listed)} explained).`],
+    });
+  }
+  return out;
+}
+
+/** Network skill against the constant and ridge baselines, with the predicted-against-actual plot. */
+export function predictabilitySection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
+  const r = input.rank;
+  if (!r) return [];
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'Can the target be predicted?', id: 'predictability' }];
+  const dir = metricDirection(r.model.metric);
+  out.push({
+    kind: 'paragraph',
+    parts: [
+      `Target `,
+      { text: r.target, code: true },
+      ` (${r.task}). Scores on held-out rows, metric ${metricLabel(r.model.metric)}`,
+      dir === 1 ? ' (larger is better):' : dir === -1 ? ' (smaller is better):' : ':',
+    ],
+  });
+  out.push({
+    kind: 'table',
+    header: ['model', metricLabel(r.model.metric)],
+    rows: [
+      ['network', { text: formatNumber(r.model.score), key: 'network-score-table' }],
+      ['constant prediction', n4(r.model.baselines.constant)],
+      ['ridge regression', n4(r.model.baselines.ridge)],
+    ],
+    numeric: [false, true],
+  });
+  if (r.predictions && r.predictions.actual.length > 0) {
+    const title = `Network prediction of ${r.target} against the actual value`;
+    const name = plan.add('predicted-vs-actual', title, predictionSpec(r.target, r.predictions, set.maxPoints, deriveSeed(set.seed, 'report', 'predictions')));
+    out.push({ kind: 'plot', name, title });
+  }
+  return out;
+}
+
+function rankingTable(ranking: readonly Interval[]): Block {
+  const sorted = [...ranking].sort((a, b) => b.score - a.score);
+  return {
+    kind: 'table',
+    header: ['rank', 'quantity', 'score', 'low', 'high'],
+    rows: sorted.map((f, k) => [String(k + 1), { text: f.feature, code: true }, n4(f.score), n4(f.low), n4(f.high)]),
+    numeric: [true, false, true, true, true],
+  };
+}
+
+/** The combined ranking, then per method its plot, table and Kendall τ; the target-against-top-feature plot. */
+export function attributionSection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
+  const r = input.rank;
+  const s = input.scatter;
+  if (!r && !s) return [];
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'Which quantities matter', id: 'attribution' }];
+  if (r) {
+    out.push({ kind: 'paragraph', parts: ['Combined ranking over all methods, with each score’s interval:'] });
+    out.push(rankingTable(r.ranking));
+    for (const [method, m] of Object.entries(r.methods)) {
+      out.push({ kind: 'heading', level: 3, text: `Method: ${method}` });
+      out.push({
+        kind: 'paragraph',
+        parts: [`Kendall τ between this method’s order and the combined order: `, { text: formatNumber(m.kendallTau, 3) }, '.'],
+      });
+      const title = `Attribution by ${method}`;
+      const name = plan.add(`attribution-${method}`, title, attributionSpec(method, m.ranking));
+      out.push({ kind: 'plot', name, title });
+      out.push(rankingTable(m.ranking));
+    }
+  }
+  if (s && s.x.length > 0) {
+    out.push({ kind: 'heading', level: 3, text: `${s.yName} against ${s.xName}` });
+    const title = `${s.yName} against ${s.xName}${s.colorName ? `, coloured by ${s.colorName}` : ''}`;
+    const name = plan.add(
+      'target-vs-top-feature',
+      title,
+      scatterSpec(s, { maxPoints: set.maxPoints, mode: set.scatterMode, seed: deriveSeed(set.seed, 'report', 'scatter') }),
+    );
+    out.push({ kind: 'plot', name, title });
+  }
+  return out;
+}
+
+/** Fitted relations (coefficients, standard errors, intervals, fractions, warnings, residual plots) and the search front. */
+export function relationsSection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
+  const fits = input.fits ?? [];
+  const search = input.search;
+  if (fits.length === 0 && !search) return [];
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'Formulas', id: 'relations' }];
+  fits.forEach((f, i) => {
+    out.push({ kind: 'heading', level: 3, text: `Least-squares fit of ${f.target}` });
+    out.push({ kind: 'paragraph', parts: [{ text: equation(f.target, f.terms, false)!, code: true }] });
+    const frac = equation(f.target, f.terms, true);
+    if (frac !== null) out.push({ kind: 'paragraph', parts: ['With its coefficients as fractions: ', { text: frac, code: true }] });
+    out.push({
+      kind: 'paragraph',
+      parts: [`n = ${formatCount(f.n)}, R² = ${formatNumber(f.r2)}, RMSE = ${formatNumber(f.rmse)}, cross-validated RMSE = ${formatNumber(f.cvRmse)}.`],
+    });
+    out.push({
+      kind: 'table',
+      header: ['term', 'coefficient', 'standard error', 'interval', 'as a fraction'],
+      rows: f.terms.map((t) => [
+        { text: t.term, code: true },
+        n4(t.coef),
+        n4(t.se),
+        formatInterval(t.low, t.high),
+        t.rational ? { text: t.rational.text, code: true } : '—',
+      ]),
+      numeric: [false, true, true, false, false],
+    });
+    if (f.warnings.length > 0) out.push({ kind: 'list', items: f.warnings.map((w) => [{ text: 'Warning: ', strong: true }, w]) });
+    const res = f.residuals;
+    if (res) {
+      res.byTerm.forEach((bt, k) => {
+        const title = `Residuals of ${f.target} against ${bt.term}`;
+        const name = plan.add(
+          `residuals-${i + 1}-${bt.term}`,
+          title,
+          residualSpec(f.target, bt.term, bt.x, res.residual, set.maxPoints, deriveSeed(set.seed, 'report', 'residuals', i, k)),
+        );
+        out.push({ kind: 'plot', name, title });
+      });
+    }
+  });
+  if (search) {
+    const target = input.rank?.target ?? fits[0]?.target ?? 'target';
+    out.push({ kind: 'heading', level: 3, text: 'Formula search' });
+    out.push({
+      kind: 'paragraph',
+      parts: [
+        `Search mode `,
+        { text: search.mode, code: true },
+        `: ${formatCount(search.candidates.length)} candidate formulas scored on held-out rows; the ${formatCount(search.front.length)} below are not beaten on both error and complexity by any other.`,
+      ],
+    });
+    const front = [...search.front].sort((a, b) => a.complexity - b.complexity || a.heldOutRmse - b.heldOutRmse);
+    out.push({
+      kind: 'table',
+      header: ['complexity', 'held-out RMSE', 'formula'],
+      rows: front.map((c) => [String(c.complexity), n4(c.heldOutRmse), { text: candidateEquation(target, c.terms, c.coefs), code: true }]),
+      numeric: [true, true, false],
+    });
+  }
+  return out;
+}
+
+/** Each bound: constant, quantiles, strata, trend, witness rows and the ratio plot. */
+export function boundsSection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
+  const bounds = input.bounds ?? [];
+  if (bounds.length === 0) return [];
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'Inequalities and their constants', id: 'bounds' }];
+  bounds.forEach((b, i) => {
+    b.results.forEach((r, j) => {
+      const stmt = `${b.lhs} ≤ c · (${r.rhs})`;
+      out.push({ kind: 'heading', level: 3, text: stmt });
+      out.push({
+        kind: 'paragraph',
+        parts: [
+          'Smallest constant that holds on every row: c = ',
+          { text: formatNumber(r.constant), key: `bound-${i}-${j}-constant-section`, strong: true },
+          '.',
+        ],
+      });
+      const q = Object.entries(r.quantiles);
+      if (q.length > 0) {
+        out.push({ kind: 'paragraph', parts: ['Quantiles of the ratio over the rows:'] });
+        out.push({ kind: 'table', header: ['quantile', 'ratio'], rows: q.map(([k, v]) => [k, n4(v)]), numeric: [false, true] });
+      }
+      if (r.strata.length > 0) {
+        out.push({ kind: 'paragraph', parts: [`Largest ratio within each stratum of ${b.by ?? 'the stratifying quantity'}:`] });
+        out.push({
+          kind: 'table',
+          header: [`${b.by ?? 'stratum'} from`, 'to', 'rows', 'largest ratio'],
+          rows: r.strata.map((s) => [n4(s.low), n4(s.high), formatCount(s.n), n4(s.constant)]),
+          numeric: [true, true, true, true],
+        });
+      }
+      if (r.trend) {
+        const grows = trendGrows(r.trend);
+        out.push({
+          kind: 'paragraph',
+          tone: grows ? 'flag' : undefined,
+          parts: [
+            `Trend of the per-stratum constant along ${b.by ?? 'the strata'}: slope ${formatNumber(r.trend.slope)} (interval ${formatInterval(r.trend.low, r.trend.high)}); verdict: `,
+            { text: r.trend.verdict, strong: true },
+            grows
+              ? '. The constant changes systematically along this quantity and grows towards one end: no fixed constant may hold on the whole family.'
+              : '.',
+          ],
+        });
+      }
+      if (r.witnesses.length > 0) {
+        const labelKeys: string[] = [];
+        for (const w of r.witnesses) for (const k of Object.keys(w.labels ?? {})) if (!labelKeys.includes(k)) labelKeys.push(k);
+        out.push({ kind: 'paragraph', parts: ['Rows where the ratio is largest (witnesses):'] });
+        out.push({
+          kind: 'table',
+          header: ['row', ...labelKeys, b.lhs, r.rhs, 'ratio'],
+          rows: r.witnesses.map((w) => [
+            String(w.row),
+            ...labelKeys.map((k) => w.labels?.[k] ?? ''),
+            n4(w.lhs),
+            n4(w.rhs),
+            n4(w.ratio),
+          ]),
+          numeric: [true, ...labelKeys.map(() => false), true, true, true],
+        });
+      }
+      if (b.by !== undefined && (r.points || r.strata.length > 0)) {
+        const title = `${stmt}: ratio against ${b.by}`;
+        const name = plan.add(
+          `bound-${i + 1}-${j + 1}`,
+          title,
+          boundSpec(b.lhs, b.by, r, set.maxPoints, deriveSeed(set.seed, 'report', 'bound', i, j)),
+        );
+        out.push({ kind: 'plot', name, title });
+      }
+    });
+  });
+  return out;
+}
+
+/** Input digest, versions and the resolved configuration verbatim. */
+export function reproducibilitySection(input: ReportInput): Block[] {
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'How to reproduce this', id: 'reproducibility' }];
+  out.push({
+    kind: 'table',
+    header: ['item', 'value'],
+    rows: [
+      ['input file', { text: input.input.path, code: true }],
+      ['input SHA-256', { text: input.input.sha256, code: true, key: 'sha256' }],
+      ['rows in the input', formatCount(input.input.rows)],
+      ['created', input.createdAt],
+      ['tool', `${input.tool.name} ${input.tool.version}`],
+      ...Object.entries(plotLibraryVersions).map(([k, v]): Inline[] => [`plots drawn with ${k}`, v]),
+    ],
+  });
+  if (input.configText !== undefined) {
+    out.push({ kind: 'paragraph', parts: ['The resolved configuration of this run, verbatim:'] });
+    out.push({ kind: 'code', text: input.configText });
+  }
+  return out;
+}

@@ -1,0 +1,139 @@
+import type { Block, Inline } from './doc.ts';
+import type { ReportInput } from './types.ts';
+import { formatInterval, formatNumber } from './format.ts';
+import { compareScore, equation, metricDirection, metricLabel, trendGrows, witnessLabels } from './words.ts';
+
+/** The sentence every report carries after its summary. */
+export const EVIDENCE_SENTENCE = 'These findings are statistical evidence on this table, not a proof.';
+
+/**
+ * The opening summary in plain words: predictability, the quantities that matter, the best
+ * formula, the tightest constants and where they are attained, and flags.
+ */
+export function summaryBlocks(input: ReportInput): Block[] {
+  const items: Inline[][] = [];
+  const flags: Inline[][] = [];
+  const r = input.rank;
+  if (r) {
+    items.push(predictabilitySentence(r));
+    const top = [...r.ranking].sort((a, b) => b.score - a.score);
+    if (top.length > 0) {
+      const parts: Inline[] = [`The quantities that matter most for `, { text: r.target, code: true }, ': '];
+      top.slice(0, 3).forEach((f, k) => {
+        if (k > 0) parts.push(k === Math.min(3, top.length) - 1 ? ' and ' : ', ');
+        parts.push({ text: f.feature, code: true, ...(k === 0 ? { key: 'top-feature' } : {}) });
+        parts.push(` (score ${formatNumber(f.score)}, interval ${formatInterval(f.low, f.high)})`);
+      });
+      parts.push('.');
+      if (top.length > 1) {
+        const rest = Math.max(...top.slice(1).map((f) => f.high));
+        parts.push(
+          top[0]!.low > rest
+            ? ` ${top[0]!.feature} is clearly ahead: its interval lies above every other one.`
+            : ` The intervals of the leading quantities overlap, so their order is not settled.`,
+        );
+      }
+      items.push(parts);
+    }
+  }
+  const fits = (input.fits ?? []).filter((f) => Number.isFinite(f.cvRmse));
+  const byTarget = new Map<string, (typeof fits)[number]>();
+  for (const f of fits) {
+    const b = byTarget.get(f.target);
+    if (!b || f.cvRmse < b.cvRmse) byTarget.set(f.target, f);
+  }
+  for (const [k, f] of [...byTarget.values()].slice(0, 3).entries()) {
+    const exact = equation(f.target, f.terms, false)!;
+    const frac = equation(f.target, f.terms, true);
+    const parts: Inline[] = [
+      'Best formula found: ',
+      { text: exact, code: true },
+      ` (R² ${formatNumber(f.r2)}, cross-validated RMSE ${formatNumber(f.cvRmse)}, n = ${f.n})`,
+    ];
+    if (frac !== null) parts.push('; with its coefficients as fractions: ', { text: frac, code: true, key: `best-formula-${k}` });
+    parts.push('.');
+    items.push(parts);
+    if (f.warnings.length > 0) {
+      flags.push([`The fit of `, { text: f.target, code: true }, ` carries warnings: ${f.warnings.join('; ')}.`]);
+    }
+  }
+  if (byTarget.size === 0 && input.search && input.search.front.length > 0) {
+    const best = [...input.search.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse)[0]!;
+    const t = input.rank?.target ?? 'target';
+    items.push([
+      'Best formula on the search front: ',
+      { text: best.terms.join(' + '), code: true },
+      ` (held-out RMSE ${formatNumber(best.heldOutRmse)}, complexity ${best.complexity}) for `,
+      { text: t, code: true },
+      '.',
+    ]);
+  }
+  (input.bounds ?? []).forEach((b, i) => {
+    b.results.forEach((res, j) => {
+      const w = res.witnesses[0];
+      const parts: Inline[] = [
+        'Tightest constant: ',
+        { text: `${b.lhs} ≤ c · (${res.rhs})`, code: true },
+        ' holds on every row with c = ',
+        { text: formatNumber(res.constant), key: `bound-${i}-${j}-constant`, strong: true },
+      ];
+      if (w) {
+        const lab = witnessLabels(w);
+        parts.push(', attained at row ', { text: String(w.row), key: `bound-${i}-${j}-row` });
+        if (lab) parts.push(' (', lab, ')');
+        parts.push(` where ${b.lhs} = ${formatNumber(w.lhs)} and ${res.rhs} = ${formatNumber(w.rhs)}`);
+      }
+      parts.push('.');
+      items.push(parts);
+      if (trendGrows(res.trend) && res.trend) {
+        const by = b.by ?? 'the stratifying quantity';
+        const st = res.strata;
+        const span =
+          st.length > 1
+            ? ` the largest ratio is ${formatNumber(st[0]!.constant)} for ${by} from ${formatNumber(st[0]!.low)} to ${formatNumber(st[0]!.high)} and ${formatNumber(st[st.length - 1]!.constant)} for ${by} from ${formatNumber(st[st.length - 1]!.low)} to ${formatNumber(st[st.length - 1]!.high)};`
+            : '';
+        flags.push([
+          'The constant of ',
+          { text: `${b.lhs} ≤ c · (${res.rhs})`, code: true },
+          ` is not stable along ${by}:${span} trend slope ${formatNumber(res.trend.slope)} (interval ${formatInterval(res.trend.low, res.trend.high)}), verdict: ${res.trend.verdict}. It grows towards one end, so no fixed constant may hold on the whole family there.`,
+        ]);
+      }
+    });
+  });
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'In brief', id: 'summary' }];
+  if (items.length > 0) out.push({ kind: 'list', items });
+  else out.push({ kind: 'paragraph', parts: ['This report holds no results from the ranking, fitting or bounding stages.'] });
+  for (const f of flags) out.push({ kind: 'paragraph', parts: [{ text: 'Flag:', strong: true }, ' ', ...f], tone: 'flag' });
+  out.push({ kind: 'paragraph', parts: [EVIDENCE_SENTENCE], tone: 'note' });
+  return out;
+}
+
+function predictabilitySentence(r: NonNullable<ReportInput['rank']>): Inline[] {
+  const m = r.model;
+  const dir = metricDirection(m.metric);
+  const label = metricLabel(m.metric);
+  const parts: Inline[] = [
+    'Predictability: on held-out rows the network scores ',
+    `${label} = `,
+    { text: formatNumber(m.score), key: 'network-score' },
+    ` against ${formatNumber(m.baselines.constant)} for a constant prediction and ${formatNumber(m.baselines.ridge)} for ridge regression`,
+  ];
+  if (dir === 0) {
+    parts.push(` (the report does not know whether a larger ${m.metric} is better, so it draws no conclusion).`);
+    return parts;
+  }
+  const vsConst = compareScore(m.score, m.baselines.constant, dir);
+  const vsRidge = compareScore(m.score, m.baselines.ridge, dir);
+  let verdict: string;
+  if (vsConst !== 'better') {
+    verdict = `: no better than a constant, so no evidence that ${r.target} is predictable from these columns.`;
+  } else if (vsRidge === 'better') {
+    verdict = `: ${r.target} is predictable from these columns, and not only linearly.`;
+  } else if (vsRidge === 'same') {
+    verdict = `: ${r.target} is predictable, and a linear combination already does about as well.`;
+  } else {
+    verdict = `: ${r.target} is predictable, but the network does worse than ridge regression here; prefer the ridge figure.`;
+  }
+  parts.push(verdict);
+  return parts;
+}

@@ -1,0 +1,141 @@
+/**
+ * The input of the report: the JSON results of every stage, each optional, plus raw points for
+ * the plots. Shapes follow the stages' contracts (rank, fit, search, bound); the run stage builds
+ * one of these and hands it to `renderReport`.
+ */
+
+export interface Interval {
+  feature: string;
+  score: number;
+  low: number;
+  high: number;
+}
+
+export interface ReportDrops {
+  inputRows: number;
+  keptRows: number;
+  dropped: Array<{ column: string; reason: string; rows: number }>;
+  duplicates: number;
+  duplicateRule: string;
+}
+
+export interface ReportRank {
+  target: string;
+  task: 'regression' | 'classification';
+  model: { metric: string; score: number; baselines: { constant: number; ridge: number } };
+  methods: Record<string, { ranking: Interval[]; kendallTau: number }>;
+  ranking: Interval[];
+  /** Held-out rows, possibly sampled. */
+  predictions?: { actual: number[]; predicted: number[] };
+}
+
+export interface ReportScatter {
+  x: number[];
+  y: number[];
+  color?: number[];
+  xName: string;
+  yName: string;
+  colorName?: string;
+  /** When the points handed in are already a sample, the number of rows they came from. */
+  sampledFrom?: number;
+}
+
+export interface ReportFitTerm {
+  term: string;
+  coef: number;
+  se: number;
+  low: number;
+  high: number;
+  rational: { text: string } | null;
+}
+
+export interface ReportFit {
+  target: string;
+  n: number;
+  r2: number;
+  rmse: number;
+  cvRmse: number;
+  terms: ReportFitTerm[];
+  warnings: string[];
+  residuals?: { byTerm: Array<{ term: string; x: number[] }>; residual: number[] };
+}
+
+export interface ReportCandidate {
+  terms: string[];
+  coefs: number[];
+  heldOutRmse: number;
+  complexity: number;
+}
+
+export interface ReportSearch {
+  candidates: ReportCandidate[];
+  front: ReportCandidate[];
+  mode: string;
+}
+
+export interface ReportWitness {
+  row: number;
+  lhs: number;
+  rhs: number;
+  ratio: number;
+  labels?: Record<string, string>;
+}
+
+export interface ReportBoundResult {
+  rhs: string;
+  constant: number;
+  witnesses: ReportWitness[];
+  quantiles: Record<string, number>;
+  strata: Array<{ low: number; high: number; n: number; constant: number }>;
+  trend: { slope: number; low: number; high: number; verdict: string } | null;
+  points?: { by: number[]; ratio: number[] };
+}
+
+export interface ReportBound {
+  lhs: string;
+  by?: string;
+  results: ReportBoundResult[];
+}
+
+export interface ReportInput {
+  title: string;
+  createdAt: string;
+  tool: { name: 'surmise'; version: string };
+  input: { path: string; sha256: string; rows: number };
+  drops?: ReportDrops;
+  rank?: ReportRank;
+  /** Target against the top feature, coloured by the second. */
+  scatter?: ReportScatter;
+  fits?: ReportFit[];
+  search?: ReportSearch;
+  bounds?: ReportBound[];
+  /** The resolved configuration, shown verbatim. */
+  configText?: string;
+}
+
+/** One rendered plot: `name` is a safe file stem (the lead writes plots/<name>.svg and .png). */
+export interface RenderedPlot {
+  name: string;
+  title: string;
+  svg: string;
+  png: Uint8Array;
+}
+
+export interface RenderedReport {
+  html: string;
+  markdown: string;
+  plots: RenderedPlot[];
+}
+
+export interface ReportOptions {
+  /** Seed for deterministic sampling of large point sets (default 0). */
+  seed?: number;
+  /** Most points drawn in a point plot before it is sampled or binned (default 3000). */
+  maxPoints?: number;
+  /** How the target-against-top-feature plot handles more than maxPoints rows (default 'bin'). */
+  scatterMode?: 'bin' | 'sample';
+  /** Render PNG copies of the plots (default true). */
+  png?: boolean;
+  /** Width in pixels of the PNG copies (default: the SVG's own width × 2). */
+  pngScale?: number;
+}
