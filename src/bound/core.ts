@@ -80,6 +80,13 @@ export function boundArrays(
   let extremeStratum: ArrayBound['extremeStratum'] = null;
   if (by) {
     strata = equalCountStrata(by, ratio, rows, opts.bins, upper);
+    if (strata.length < opts.bins) {
+      notes.push(
+        n < opts.bins
+          ? `only ${n} rows: ${strata.length} strata instead of ${opts.bins}`
+          : `${byName} has tied values, which are never split between strata: ${strata.length} strata instead of ${opts.bins}, of unequal size`,
+      );
+    }
     let byMin = Infinity;
     for (let t = 0; t < n; t++) byMin = Math.min(byMin, by[rows[t]!]!);
     const basis: Trend['basis'] = byMin > 0 ? 'median' : 'rank';
