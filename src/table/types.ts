@@ -37,4 +37,6 @@ export interface Table {
   columns: Column[];
   /** 1-based line in the source file where each data row starts (for error messages), when known. */
   lines?: Int32Array;
+  /** What the reader decided and the user should know (columns read as labels, pairs joined, blank lines skipped). */
+  notes?: string[];
 }

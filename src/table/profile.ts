@@ -1,0 +1,336 @@
+/**
+ * profileTable: what a mathematician checks first in a new table — rows, per-column kind,
+ * missing and non-finite counts, min/max/mean/sample standard deviation (over finite values;
+ * complex columns per part), distinct counts, duplicate rows, and the strongest Spearman rank
+ * correlations between numeric columns.
+ */
+import { kahanSum } from '../util/sum.ts';
+import { Rng, deriveSeed } from '../util/rng.ts';
+import type { Column, ColumnKind, Table } from './types.ts';
+
+export interface Stats {
+  /** finite, non-missing values used */
+  n: number;
+  min: number | null;
+  max: number | null;
+  mean: number | null;
+  /** sample standard deviation (divides by n − 1); null when n < 2 */
+  std: number | null;
+}
+
+export interface ColumnProfile {
+  name: string;
+  kind: ColumnKind;
+  missing: number;
+  /** nan / inf / -inf cells (complex: either part) */
+  nonFinite: number;
+  min: number | { re: number | null; im: number | null } | null;
+  max: number | { re: number | null; im: number | null } | null;
+  mean: number | { re: number | null; im: number | null } | null;
+  std: number | { re: number | null; im: number | null } | null;
+  /** distinct non-missing values, for integer and label columns */
+  distinct?: number;
+}
+
+export interface Correlation {
+  a: string;
+  b: string;
+  /** Spearman's rank correlation (Pearson correlation of average ranks) */
+  rho: number;
+  /** rows with both values finite */
+  n: number;
+}
+
+export interface TableProfile {
+  source: string;
+  rows: number;
+  /** rows equal in every column to an earlier row (NaN equals NaN, missing equals missing) */
+  duplicates: number;
+  columns: ColumnProfile[];
+  /** top 10 by |rho| */
+  correlations: Correlation[];
+  /** rows used for the correlations (all rows, or a seeded sample) */
+  correlationRows: number;
+  correlationSampled: boolean;
+  notes: string[];
+}
+
+export const CORRELATION_SAMPLE = 200_000;
+export const TOP_CORRELATIONS = 10;
+
+/**
+ * Mean and sample standard deviation by two passes with compensated sums
+ * (s² = Σ(x − x̄)² / (n − 1); the two-pass form, e.g. Chan, Golub & LeVeque, Am. Stat. 37, 1983).
+ * Missing and non-finite values are skipped.
+ * @example numericStats(new Float64Array([1, 2, 3]), new Uint8Array(3)) // { n: 3, min: 1, max: 3, mean: 2, std: 1 }
+ */
+export function numericStats(values: Float64Array, missing: Uint8Array): Stats {
+  const n0 = values.length;
+  const idx = new Int32Array(n0);
+  let n = 0;
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < n0; i++) {
+    const x = values[i]!;
+    if (missing[i] || x - x !== 0) continue;
+    idx[n++] = i;
+    if (x < min) min = x;
+    if (x > max) max = x;
+  }
+  if (n === 0) return { n: 0, min: null, max: null, mean: null, std: null };
+  const rows = idx.subarray(0, n);
+  const mean = kahanSum(values, rows) / n;
+  let std: number | null = null;
+  if (n > 1) {
+    const d = new Float64Array(n);
+    for (let k = 0; k < n; k++) {
+      const e = values[rows[k]!]! - mean;
+      d[k] = e * e;
+    }
+    std = Math.sqrt(kahanSum(d) / (n - 1));
+  }
+  return { n, min, max, mean, std };
+}
+
+/** Average ranks (1-based; ties share the mean of their positions) of values at `rows`. */
+export function averageRanks(values: Float64Array, rows: Int32Array): Float64Array {
+  const n = rows.length;
+  const v = new Float64Array(n);
+  for (let k = 0; k < n; k++) v[k] = values[rows[k]!]!;
+  const order = new Int32Array(n);
+  for (let k = 0; k < n; k++) order[k] = k;
+  order.sort((a, b) => v[a]! - v[b]!);
+  const r = new Float64Array(n);
+  for (let k = 0; k < n; ) {
+    let m = k + 1;
+    while (m < n && v[order[m]!] === v[order[k]!]) m++;
+    const avg = (k + 1 + m) / 2;
+    for (let t = k; t < m; t++) r[order[t]!] = avg;
+    k = m;
+  }
+  return r;
+}
+
+/** Pearson correlation of two equally long arrays (compensated sums); NaN when either is constant. */
+export function pearson(x: Float64Array, y: Float64Array): number {
+  const n = x.length;
+  const mx = kahanSum(x) / n;
+  const my = kahanSum(y) / n;
+  const sxy = new Float64Array(n);
+  const sxx = new Float64Array(n);
+  const syy = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const a = x[i]! - mx;
+    const b = y[i]! - my;
+    sxy[i] = a * b;
+    sxx[i] = a * a;
+    syy[i] = b * b;
+  }
+  const d = Math.sqrt(kahanSum(sxx) * kahanSum(syy));
+  return d === 0 ? NaN : kahanSum(sxy) / d;
+}
+
+interface Series {
+  name: string;
+  values: Float64Array;
+  missing: Uint8Array;
+}
+
+function numericSeries(columns: Column[]): Series[] {
+  const out: Series[] = [];
+  for (const c of columns) {
+    if (c.kind === 'real' || c.kind === 'integer') out.push({ name: c.name, values: c.values, missing: c.missing });
+    else if (c.kind === 'complex') {
+      out.push({ name: `${c.name}.re`, values: c.re, missing: c.missing });
+      out.push({ name: `${c.name}.im`, values: c.im, missing: c.missing });
+    }
+  }
+  return out;
+}
+
+/**
+ * Spearman rank correlations between all pairs of numeric series (complex parts separately) on
+ * `rows`, pairwise-complete (rows where both values are finite), strongest first.
+ */
+export function spearmanPairs(columns: Column[], rows: Int32Array, top = TOP_CORRELATIONS): Correlation[] {
+  const series = numericSeries(columns);
+  const m = rows.length;
+  // per series: finite flags over the sampled rows, and ranks when complete
+  const finite = series.map((s) => {
+    const f = new Uint8Array(m);
+    for (let k = 0; k < m; k++) {
+      const i = rows[k]!;
+      const x = s.values[i]!;
+      f[k] = !s.missing[i] && x - x === 0 ? 1 : 0;
+    }
+    return f;
+  });
+  const complete = finite.map((f) => f.every((v) => v === 1));
+  const fullRanks = series.map((s, j) => (complete[j] ? averageRanks(s.values, rows) : null));
+  const out: Correlation[] = [];
+  for (let a = 0; a < series.length; a++)
+    for (let b = a + 1; b < series.length; b++) {
+      let ra: Float64Array;
+      let rb: Float64Array;
+      let n = m;
+      if (fullRanks[a] && fullRanks[b]) {
+        ra = fullRanks[a]!;
+        rb = fullRanks[b]!;
+      } else {
+        const sub: number[] = [];
+        for (let k = 0; k < m; k++) if (finite[a]![k] && finite[b]![k]) sub.push(rows[k]!);
+        n = sub.length;
+        if (n < 3) continue;
+        const r = Int32Array.from(sub);
+        ra = averageRanks(series[a]!.values, r);
+        rb = averageRanks(series[b]!.values, r);
+      }
+      const rho = pearson(ra, rb);
+      if (Number.isFinite(rho)) out.push({ a: series[a]!.name, b: series[b]!.name, rho, n });
+    }
+  out.sort((p, q) => Math.abs(q.rho) - Math.abs(p.rho) || (p.a + p.b < q.a + q.b ? -1 : 1));
+  return out.slice(0, top);
+}
+
+const F64 = new Float64Array(1);
+const U32 = new Uint32Array(F64.buffer);
+
+function hashRow(cols: Column[], i: number): number {
+  let h = 0x811c9dc5;
+  for (const c of cols) {
+    if (c.missing[i]) {
+      h = Math.imul(h ^ 0x55, 0x01000193);
+      continue;
+    }
+    if (c.kind === 'label') {
+      const s = c.values[i]!;
+      for (let k = 0; k < s.length; k++) h = Math.imul(h ^ s.charCodeAt(k), 0x01000193);
+      h = Math.imul(h ^ 0xff, 0x01000193);
+      continue;
+    }
+    const parts = c.kind === 'complex' ? [c.re[i]!, c.im[i]!] : [c.values[i]!];
+    for (const x of parts) {
+      F64[0] = x === 0 ? 0 : x !== x ? NaN : x;
+      h = Math.imul(h ^ U32[0]!, 0x01000193);
+      h = Math.imul(h ^ U32[1]!, 0x01000193);
+    }
+  }
+  return h >>> 0;
+}
+
+function same(x: number, y: number): boolean {
+  return x === y || (x !== x && y !== y);
+}
+
+function rowsEqual(cols: Column[], i: number, j: number): boolean {
+  for (const c of cols) {
+    if (c.missing[i] !== c.missing[j]) return false;
+    if (c.missing[i]) continue;
+    if (c.kind === 'label') {
+      if (c.values[i] !== c.values[j]) return false;
+    } else if (c.kind === 'complex') {
+      if (!same(c.re[i]!, c.re[j]!) || !same(c.im[i]!, c.im[j]!)) return false;
+    } else if (!same(c.values[i]!, c.values[j]!)) return false;
+  }
+  return true;
+}
+
+/** Rows equal in every column to an earlier row (hash, then exact comparison). */
+export function countDuplicateRows(table: Table): number {
+  const cols = table.columns;
+  const seen = new Map<number, number | number[]>();
+  let dup = 0;
+  for (let i = 0; i < table.nRows; i++) {
+    const h = hashRow(cols, i);
+    const prev = seen.get(h);
+    if (prev === undefined) {
+      seen.set(h, i);
+      continue;
+    }
+    const list = typeof prev === 'number' ? [prev] : prev;
+    if (list.some((j) => rowsEqual(cols, i, j))) dup++;
+    else {
+      list.push(i);
+      if (typeof prev === 'number') seen.set(h, list);
+    }
+  }
+  return dup;
+}
+
+function distinctCount(c: Column): number {
+  const s = new Set<number | string>();
+  if (c.kind === 'label') {
+    for (let i = 0; i < c.values.length; i++) if (!c.missing[i]) s.add(c.values[i]!);
+  } else if (c.kind !== 'complex') {
+    for (let i = 0; i < c.values.length; i++) if (!c.missing[i]) s.add(c.values[i]! === 0 ? 0 : c.values[i]!);
+  }
+  return s.size;
+}
+
+function countMissing(m: Uint8Array): number {
+  let k = 0;
+  for (let i = 0; i < m.length; i++) k += m[i]!;
+  return k;
+}
+
+/** The profile of a table; correlations on at most 200,000 rows drawn with a fixed seed. */
+export function profileTable(table: Table, opts: { sampleRows?: number; seed?: number } = {}): TableProfile {
+  const notes: string[] = [];
+  const columns: ColumnProfile[] = table.columns.map((c) => {
+    const missing = countMissing(c.missing);
+    if (c.kind === 'label')
+      return { name: c.name, kind: c.kind, missing, nonFinite: 0, min: null, max: null, mean: null, std: null, distinct: distinctCount(c) };
+    if (c.kind === 'complex') {
+      const r = numericStats(c.re, c.missing);
+      const m = numericStats(c.im, c.missing);
+      let nonFinite = 0;
+      for (let i = 0; i < c.re.length; i++)
+        if (!c.missing[i] && (c.re[i]! - c.re[i]! !== 0 || c.im[i]! - c.im[i]! !== 0)) nonFinite++;
+      return {
+        name: c.name,
+        kind: c.kind,
+        missing,
+        nonFinite,
+        min: { re: r.min, im: m.min },
+        max: { re: r.max, im: m.max },
+        mean: { re: r.mean, im: m.mean },
+        std: { re: r.std, im: m.std },
+      };
+    }
+    const s = numericStats(c.values, c.missing);
+    const p: ColumnProfile = {
+      name: c.name,
+      kind: c.kind,
+      missing,
+      nonFinite: c.values.length - missing - s.n,
+      min: s.min,
+      max: s.max,
+      mean: s.mean,
+      std: s.std,
+    };
+    if (c.kind === 'integer') p.distinct = distinctCount(c);
+    return p;
+  });
+  const limit = opts.sampleRows ?? CORRELATION_SAMPLE;
+  const sampled = table.nRows > limit;
+  let rows: Int32Array;
+  if (sampled) {
+    const perm = new Rng(deriveSeed(opts.seed ?? 0, 'profile', 'correlation-sample')).permutation(table.nRows);
+    rows = perm.subarray(0, limit).sort();
+    notes.push(`correlations on ${limit.toLocaleString('en-US')} of ${table.nRows.toLocaleString('en-US')} rows, drawn at random with a fixed seed`);
+  } else {
+    rows = new Int32Array(table.nRows);
+    for (let i = 0; i < table.nRows; i++) rows[i] = i;
+  }
+  const correlations = spearmanPairs(table.columns, rows);
+  return {
+    source: table.source,
+    rows: table.nRows,
+    duplicates: countDuplicateRows(table),
+    columns,
+    correlations,
+    correlationRows: rows.length,
+    correlationSampled: sampled,
+    notes: [...(table.notes ?? []), ...notes],
+  };
+}
