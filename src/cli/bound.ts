@@ -1,14 +1,101 @@
 import type { Command } from 'commander';
+import { resolve } from 'node:path';
+import cliProgress from 'cli-progress';
 import type { CliIO } from './io.ts';
-import { SurmiseError } from '../errors.ts';
+import { collect, parsePositiveInt } from './options.ts';
+import { readTable, type TableFormat } from '../table/read.ts';
+import { findBound } from '../bound/find.ts';
+import { formatBound } from '../bound/format.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerBound(program: Command, _io: CliIO): void {
+interface BoundOptions {
+  lhs: string;
+  rhs: string[];
+  by?: string;
+  bins: string;
+  top: string;
+  id: string[];
+  derive: string[];
+  skipInvalid?: boolean;
+  lower?: boolean;
+  json?: boolean;
+  format?: string;
+  progress: boolean;
+}
+
+/** `surmise bound`: the tightest constant c of lhs ≤ c·rhs on a table, with witnesses, strata and trend. */
+export function registerBound(program: Command, io: CliIO): void {
   program
     .command('bound')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'bound' command is not built yet");
+    .description(
+      'tightest constant c with lhs ≤ c·rhs on every row (max of lhs/rhs), the rows attaining it, quantiles of the ratio,\n' +
+        'c per equal-count stratum of --by and its log-log trend; several --rhs are compared side by side',
+    )
+    .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
+    .requiredOption('--lhs <expr>', 'left-hand side expression, e.g. "abs(2*sig - slope)"')
+    .requiredOption('--rhs <expr>', 'right-hand side expression, > 0 on every row (repeat to compare candidates)', collect, [])
+    .option('--by <expr>', 'stratify by this expression (default: each candidate by its own rhs)')
+    .option('--bins <n>', 'number of equal-count strata', '10')
+    .option('--top <k>', 'number of witness rows shown', '5')
+    .option('--id <col>', 'column shown beside witness rows (repeat or comma-separate; default: every label column)', collect, [])
+    .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. slope=re(lon/mer) (repeatable)', collect, [])
+    .option('--skip-invalid', 'drop and count rows with a missing cell, a non-finite value or rhs ≤ 0 instead of refusing them')
+    .option('--lower', 'the lower form: largest c with lhs ≥ c·rhs on every row (min of lhs/rhs)')
+    .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
+    .option('--json', 'print one JSON object on standard output')
+    .option('--no-progress', 'no progress output on standard error')
+    .action(async (file: string, opts: BoundOptions) => {
+      const bins = parsePositiveInt('--bins', opts.bins);
+      const top = parsePositiveInt('--top', opts.top);
+      const id = opts.id.flatMap((s) => s.split(',')).map((s) => s.trim()).filter((s) => s.length > 0);
+      const table = await readTable(resolve(io.cwd, file), {
+        displayName: file,
+        ...(opts.format !== undefined ? { format: opts.format as TableFormat } : {}),
+        ...progressFor(io, file, opts.progress),
+      });
+      const result = findBound(table, {
+        lhs: opts.lhs,
+        rhs: opts.rhs,
+        ...(opts.by !== undefined ? { by: opts.by } : {}),
+        bins,
+        top,
+        ...(id.length > 0 ? { id } : {}),
+        derive: opts.derive,
+        skipInvalid: Boolean(opts.skipInvalid),
+        lower: Boolean(opts.lower),
+      });
+      if (opts.json) io.stdout(JSON.stringify(result, null, 2) + '\n');
+      else io.stdout(formatBound(result));
     });
+}
+
+/** Reading progress: a bar on a terminal; on a pipe, a plain line per quarter for big files only. */
+function progressFor(io: CliIO, file: string, enabled: boolean): { onProgress?: (bytes: number, total: number) => void } {
+  if (!enabled) return {};
+  if (io.isTTY) {
+    let bar: cliProgress.SingleBar | null = null;
+    return {
+      onProgress: (bytes, total) => {
+        if (!bar) {
+          bar = new cliProgress.SingleBar(
+            { format: `reading ${file} [{bar}] {percentage}%`, stream: process.stderr, clearOnComplete: true },
+            cliProgress.Presets.legacy,
+          );
+          bar.start(total, 0);
+        }
+        bar.update(bytes);
+        if (bytes >= total) bar.stop();
+      },
+    };
+  }
+  let shown = 0;
+  return {
+    onProgress: (bytes, total) => {
+      if (total < 50e6) return;
+      const quarter = Math.floor((4 * bytes) / total);
+      if (quarter > shown) {
+        shown = quarter;
+        io.stderr(`reading ${file}: ${25 * quarter}%\n`);
+      }
+    },
+  };
 }

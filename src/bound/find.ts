@@ -1,0 +1,310 @@
+import { SurmiseError, didYouMean } from '../errors.ts';
+import type { Table } from '../table/types.ts';
+import { deriveColumn, evaluateExpression, parseDerive } from '../table/expr/index.ts';
+import { boundArrays, fmt, type Trend } from './core.ts';
+
+/** What to bound: lhs ≤ c·rhs (or lhs ≥ c·rhs with `lower`), for each rhs candidate. */
+export interface BoundSpec {
+  /** Expression for the left-hand side (the table's expression language). */
+  lhs: string;
+  /** One or more candidate right-hand sides; each must be > 0 on the rows used. */
+  rhs: string | readonly string[];
+  /** Expression to stratify by; when omitted each candidate is stratified by its own rhs. */
+  by?: string;
+  /** Equal-count strata (integer ≥ 1, default 10). */
+  bins?: number;
+  /** Witness rows per candidate (integer ≥ 1, default 5). */
+  top?: number;
+  /** Columns shown beside witness rows; default every label column. */
+  id?: readonly string[];
+  /** Drop (and count) rows with a missing cell, a non-finite value or rhs ≤ 0 instead of refusing them. */
+  skipInvalid?: boolean;
+  /** The lower form lhs ≥ c·rhs: c* is the smallest ratio. */
+  lower?: boolean;
+  /** Derived columns `NAME=EXPRESSION`, added in order before anything is evaluated (the table is not changed). */
+  derive?: readonly string[];
+}
+
+/** Rows not used, by first reason (missing cell, then non-finite value, then rhs ≤ 0). */
+export interface DropCounts {
+  missing: number;
+  nonFinite: number;
+  rhsNonPositive: number;
+  total: number;
+}
+
+export interface BoundWitness {
+  /** 1-based data row of the table (the header is not counted). */
+  row: number;
+  /** 1-based line of the source file where the row starts, when known. */
+  line: number | null;
+  /** The id/label columns of the row. */
+  labels: Record<string, string | number | null>;
+  lhs: number;
+  rhs: number;
+  ratio: number;
+  /** The stratifying value of the row. */
+  by: number;
+}
+
+export interface BoundStratum {
+  low: number;
+  high: number;
+  n: number;
+  constant: number;
+  /** Median of `by` in the stratum. */
+  centre: number;
+  /** 1-based data row attaining the stratum's constant. */
+  row: number;
+}
+
+export interface BoundCandidate {
+  rhs: string;
+  /** The expression the strata are taken along. */
+  by: string;
+  /** Upper form: max lhs/rhs; lower form: min lhs/rhs. */
+  constant: number;
+  /** Rows used. */
+  n: number;
+  dropped: DropCounts;
+  witnesses: BoundWitness[];
+  quantiles: Array<{ p: number; value: number }>;
+  quantileDefinition: string;
+  strata: BoundStratum[];
+  trend: Trend;
+  extremeStratum: 'lowest' | 'highest' | null;
+  notes: string[];
+}
+
+export interface BoundResult {
+  source: string;
+  lhs: string;
+  /** The --by expression, or null when each candidate is stratified by its own rhs. */
+  by: string | null;
+  form: 'upper' | 'lower';
+  /** Rows in the table. */
+  n: number;
+  /** Rows dropped for at least one candidate (only with skipInvalid; otherwise such rows are refused). */
+  dropped: DropCounts;
+  results: BoundCandidate[];
+}
+
+const SHOW_FIRST = 5;
+
+/**
+ * Tightest constants of lhs ≤ c·rhs (or ≥ with `lower`) on a table, for each rhs candidate: the
+ * constant, the rows closest to it, quantiles of the ratio, per-stratum constants along `by` and
+ * their log-log trend. Evidence on this table, not a proof.
+ */
+export function findBound(table: Table, spec: BoundSpec): BoundResult {
+  const opts = checkSpec(spec);
+  table = withDerived(table, spec.derive ?? []);
+  const upper = !opts.lower;
+  const lhs = evalReal(table, opts.lhs, 'lhs');
+  const byVal = opts.by === null ? null : evalReal(table, opts.by, 'by');
+  const idCols = idColumns(table, opts.id);
+  const n = table.nRows;
+  const reasonOf = new Uint8Array(n); // 0 ok, 1 missing, 2 non-finite, 3 rhs ≤ 0 (first across candidates)
+  const results: BoundCandidate[] = [];
+  for (const rhsSrc of opts.rhs) {
+    const rhs = evalReal(table, rhsSrc, 'rhs');
+    const by = byVal ?? rhs;
+    const byName = opts.by ?? rhsSrc;
+    const ratio = new Float64Array(n);
+    const rows = new Int32Array(n);
+    let m = 0;
+    const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };
+    const bad: number[] = [];
+    for (let i = 0; i < n; i++) {
+      const l = lhs.values[i]!;
+      const r = rhs.values[i]!;
+      const b = by.values[i]!;
+      let reason = 0;
+      if (lhs.missing[i] || rhs.missing[i] || by.missing[i]) reason = 1;
+      else if (!Number.isFinite(l) || !Number.isFinite(r) || !Number.isFinite(b)) reason = 2;
+      else if (!(r > 0)) reason = 3;
+      else if (!Number.isFinite(l / r)) reason = 2; // rhs so small that the ratio overflows
+      if (reason === 0) {
+        ratio[i] = l / r;
+        rows[m++] = i;
+        continue;
+      }
+      if (reason === 1) dropped.missing++;
+      else if (reason === 2) dropped.nonFinite++;
+      else dropped.rhsNonPositive++;
+      dropped.total++;
+      if (reasonOf[i] === 0 || reason < reasonOf[i]!) reasonOf[i] = reason;
+      if (bad.length < SHOW_FIRST) bad.push(i);
+    }
+    if (dropped.total > 0 && !opts.skipInvalid) refuse(table, opts.lhs, rhsSrc, opts.by, upper, dropped, bad, lhs, rhs, byVal);
+    if (m === 0) {
+      throw new SurmiseError('bound.noRows', `${table.source}: no row is left to bound ${opts.lhs} by ${rhsSrc} (${dropped.total} rows dropped)`);
+    }
+    const used = rows.subarray(0, m);
+    const core = boundArrays(ratio, by.values, used, { bins: opts.bins, top: opts.top, upper, byName });
+    if (opts.by === null) core.notes.push(`no --by given: strata are taken along the rhs ${rhsSrc}`);
+    const rowNo = (i: number) => i + 1;
+    results.push({
+      rhs: rhsSrc,
+      by: byName,
+      constant: core.constant,
+      n: m,
+      dropped,
+      witnesses: Array.from(core.witnessRows, (i) => ({
+        row: rowNo(i),
+        line: table.lines ? table.lines[i]! : null,
+        labels: labelsOf(idCols, i),
+        lhs: lhs.values[i]!,
+        rhs: rhs.values[i]!,
+        ratio: ratio[i]!,
+        by: by.values[i]!,
+      })),
+      quantiles: core.quantiles,
+      quantileDefinition: core.quantileDefinition,
+      strata: core.strata.map((s) => ({ low: s.low, high: s.high, n: s.n, constant: s.constant, centre: s.centre, row: rowNo(s.witness) })),
+      trend: core.trend,
+      extremeStratum: core.extremeStratum,
+      notes: core.notes,
+    });
+  }
+  const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };
+  for (let i = 0; i < n; i++) {
+    const r = reasonOf[i]!;
+    if (r === 0) continue;
+    dropped.total++;
+    if (r === 1) dropped.missing++;
+    else if (r === 2) dropped.nonFinite++;
+    else dropped.rhsNonPositive++;
+  }
+  return { source: table.source, lhs: opts.lhs, by: opts.by, form: upper ? 'upper' : 'lower', n, dropped, results };
+}
+
+/** A shallow copy of `table` with the derived columns appended (each may use the ones before it). */
+function withDerived(table: Table, derive: readonly string[]): Table {
+  if (derive.length === 0) return table;
+  let t: Table = { ...table, columns: [...table.columns] };
+  for (const spec of derive) {
+    const { name, source } = parseDerive(spec);
+    if (t.columns.some((c) => c.name === name)) {
+      throw new SurmiseError('bound.deriveClash', `${table.source}: --derive ${spec}: the table already has a column '${name}'; choose another name`);
+    }
+    const col = deriveColumn(t, name, source);
+    t = { ...t, columns: [...t.columns, col] };
+  }
+  return t;
+}
+
+interface CheckedSpec {
+  lhs: string;
+  rhs: string[];
+  by: string | null;
+  bins: number;
+  top: number;
+  id: string[] | null;
+  skipInvalid: boolean;
+  lower: boolean;
+}
+
+/** Options checked once, against one table of constraints. */
+function checkSpec(spec: BoundSpec): CheckedSpec {
+  const rhs = typeof spec.rhs === 'string' ? [spec.rhs] : [...(spec.rhs ?? [])];
+  if (typeof spec.lhs !== 'string' || spec.lhs.trim() === '') throw new SurmiseError('bound.badOption', 'expected lhs to be an expression, got nothing');
+  if (rhs.length === 0) throw new SurmiseError('bound.badOption', 'expected at least one rhs expression, got none');
+  for (const r of rhs) if (typeof r !== 'string' || r.trim() === '') throw new SurmiseError('bound.badOption', 'expected every rhs to be an expression, got an empty one');
+  if (spec.by !== undefined && (typeof spec.by !== 'string' || spec.by.trim() === '')) throw new SurmiseError('bound.badOption', 'expected by to be an expression, got an empty one');
+  const int = (name: string, v: unknown, dflt: number, min: number): number => {
+    if (v === undefined) return dflt;
+    if (typeof v !== 'number' || !Number.isInteger(v) || v < min) {
+      throw new SurmiseError('bound.badOption', `expected ${name} to be an integer ≥ ${min}, got ${String(v)}`);
+    }
+    return v;
+  };
+  return {
+    lhs: spec.lhs,
+    rhs,
+    by: spec.by ?? null,
+    bins: int('bins', spec.bins, 10, 1),
+    top: int('top', spec.top, 5, 1),
+    id: spec.id ? [...spec.id] : null,
+    skipInvalid: Boolean(spec.skipInvalid),
+    lower: Boolean(spec.lower),
+  };
+}
+
+interface RealValues {
+  values: Float64Array;
+  missing: Uint8Array;
+}
+
+/** Evaluates an expression and insists on real values (a complex result must be reduced by re/im/abs). */
+function evalReal(table: Table, source: string, role: string): RealValues {
+  const v = evaluateExpression(table, source);
+  if (v.im) {
+    for (let i = 0; i < table.nRows; i++) {
+      if (!v.missing[i] && v.im[i] !== 0 && !Number.isNaN(v.im[i]!)) {
+        throw new SurmiseError(
+          'bound.complexValue',
+          `${table.source}: ${role} '${source}' is complex on row ${i + 1}${lineOf(table, i)} (imaginary part ${fmt(v.im[i]!)}); take re(), im() or abs() of it`,
+        );
+      }
+    }
+  }
+  return { values: v.re, missing: v.missing };
+}
+
+function lineOf(table: Table, i: number): string {
+  return table.lines ? `, line ${table.lines[i]}` : '';
+}
+
+function idColumns(table: Table, id: string[] | null): Array<{ name: string; value: (i: number) => string | number | null }> {
+  const names = table.columns.map((c) => c.name);
+  const chosen = id ?? table.columns.filter((c) => c.kind === 'label').map((c) => c.name);
+  return chosen.map((name) => {
+    const col = table.columns.find((c) => c.name === name);
+    if (!col) {
+      throw new SurmiseError('bound.unknownColumn', `${table.source}: no column '${name}' to show beside the witness rows${didYouMean(name, names)}`);
+    }
+    const value = (i: number): string | number | null => {
+      if (col.missing[i]) return null;
+      if (col.kind === 'label') return col.values[i]!;
+      if (col.kind === 'complex') return `${col.re[i]}${col.im[i]! < 0 ? '-' : '+'}${Math.abs(col.im[i]!)}j`;
+      return col.values[i]!;
+    };
+    return { name, value };
+  });
+}
+
+function labelsOf(cols: ReturnType<typeof idColumns>, i: number): Record<string, string | number | null> {
+  const out: Record<string, string | number | null> = {};
+  for (const c of cols) out[c.name] = c.value(i);
+  return out;
+}
+
+function refuse(
+  table: Table,
+  lhsSrc: string,
+  rhsSrc: string,
+  bySrc: string | null,
+  upper: boolean,
+  d: DropCounts,
+  bad: number[],
+  lhs: RealValues,
+  rhs: RealValues,
+  by: RealValues | null,
+): never {
+  const parts: string[] = [];
+  if (d.rhsNonPositive) parts.push(`${d.rhsNonPositive} with rhs ≤ 0`);
+  if (d.nonFinite) parts.push(`${d.nonFinite} with a value that is not finite`);
+  if (d.missing) parts.push(`${d.missing} with a missing cell`);
+  const show = (v: RealValues, i: number) => (v.missing[i] ? 'missing' : fmt(v.values[i]!));
+  const first = bad
+    .map((i) => `row ${i + 1}${lineOf(table, i)}: lhs = ${show(lhs, i)}, rhs = ${show(rhs, i)}${by ? `, by = ${show(by, i)}` : ''}`)
+    .join('; ');
+  const code = d.rhsNonPositive > 0 ? 'bound.badRhs' : 'bound.invalidRows';
+  throw new SurmiseError(
+    code,
+    `${table.source}: ${d.total} of ${table.nRows} rows cannot be used for ${lhsSrc} ${upper ? '≤' : '≥'} c·(${rhsSrc})${bySrc ? ` along ${bySrc}` : ''} ` +
+      `(${parts.join(', ')}); first: ${first}. Pass --skip-invalid to drop and count them`,
+    { counts: d, rows: bad.map((i) => i + 1) },
+  );
+}
