@@ -32,15 +32,19 @@ export function roundGeometry(svg: string): string {
   );
 }
 
-/** Rename every `id="…"` and its `url(#…)` / `href="#…"` references to `<prefix>-…`. */
+/**
+ * Rename the ids in an SVG to `<prefix>-1`, `<prefix>-2`, … in order of appearance, with their
+ * `url(#…)` and `href="#…"` references: vega numbers gradients and clips with a process-wide
+ * counter, so this makes the SVG deterministic and lets several SVGs share one HTML page.
+ */
 export function prefixIds(svg: string, prefix: string): string {
-  const ids = new Set<string>();
-  for (const m of svg.matchAll(/\sid="([^"]+)"/g)) ids.add(m[1]!);
-  if (ids.size === 0) return svg;
+  const map = new Map<string, string>();
+  for (const m of svg.matchAll(/\sid="([^"]+)"/g)) if (!map.has(m[1]!)) map.set(m[1]!, `${prefix}-${map.size + 1}`);
+  if (map.size === 0) return svg;
   return svg
-    .replace(/(\sid=")([^"]+)"/g, (_m, a: string, id: string) => `${a}${prefix}-${id}"`)
-    .replace(/url\(#([^)]+)\)/g, (m, id: string) => (ids.has(id) ? `url(#${prefix}-${id})` : m))
-    .replace(/(href=")#([^"]+)"/g, (m, a: string, id: string) => (ids.has(id) ? `${a}#${prefix}-${id}"` : m));
+    .replace(/(\sid=")([^"]+)"/g, (_m, a: string, id: string) => `${a}${map.get(id)}"`)
+    .replace(/url\(#([^)]+)\)/g, (m, id: string) => (map.has(id) ? `url(#${map.get(id)})` : m))
+    .replace(/(href=")#([^"]+)"/g, (m, a: string, id: string) => (map.has(id) ? `${a}#${map.get(id)}"` : m));
 }
 
 /**

@@ -6,8 +6,8 @@ import { formatNumber } from '../format.ts';
 
 /**
  * The ratio lhs/rhs of a bound against the `by` quantity (layer `points`, a seeded sample above
- * `maxPoints` that always keeps the largest ratios), the per-stratum maximum drawn through the
- * stratum midpoints (layer `strata`), and the overall constant (layer `overall`).
+ * `maxPoints` that always keeps the largest ratios), the per-stratum maximum as a horizontal
+ * segment across each stratum (layer `strata`), and the overall constant (layer `overall`).
  */
 export function boundSpec(
   lhs: string,
@@ -25,7 +25,7 @@ export function boundSpec(
     const keep = largestIndices(pts.ratio.slice(0, n), keepLargest);
     const idx = sampleIndices(n, maxPoints, seed, keep);
     const { rows, nonFinite } = finitePairs(pts.by, pts.ratio, idx);
-    subtitle = sampleNote(idx.length, n, seed, idx.length < n ? `, keeping the ${keep.length} largest ratios` : '') + nonFiniteNote(nonFinite);
+    subtitle = sampleNote(idx.length, n, idx.length < n ? `, keeping the ${keep.length} largest ratios` : '') + nonFiniteNote(nonFinite);
     layers.push({
       name: 'points',
       data: { values: rows.map((p) => ({ b: p.x, q: p.y })) },
@@ -40,10 +40,11 @@ export function boundSpec(
   if (strata.length > 0) {
     layers.push({
       name: 'strata',
-      data: { values: strata.map((s) => ({ b: (s.low + s.high) / 2, q: s.constant })) },
-      mark: { type: 'line', color: '#d62728', point: { color: '#d62728', size: 30 } },
+      data: { values: strata.map((s) => ({ b: s.low, b2: s.high, q: s.constant })) },
+      mark: { type: 'rule', color: '#d62728', strokeWidth: 2.5 },
       encoding: {
         x: { field: 'b', type: 'quantitative', title: by, scale: { zero: false } },
+        x2: { field: 'b2' },
         y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})` },
       },
     });
@@ -56,9 +57,9 @@ export function boundSpec(
       encoding: { y: { field: 'q', type: 'quantitative' } },
     });
   }
-  const note = `red: largest ratio per stratum of ${by}; dashed: overall constant ${formatNumber(r.constant)}`;
+  const note = `red: largest ratio within each stratum of ${by}; dashed: overall constant ${formatNumber(r.constant)}`;
   return {
-    ...baseSpec(`${lhs} ≤ c · (${r.rhs}): ratio against ${by}`, subtitle ? `${subtitle}; ${note}` : note, 560, 340),
+    ...baseSpec(`${lhs} ≤ c · (${r.rhs}): ratio against ${by}`, subtitle ? [subtitle, note] : note, 560, 340),
     layer: layers,
   };
 }

@@ -2,10 +2,10 @@ import type { PlotSpec } from '../render-plot.ts';
 import { formatCount } from '../format.ts';
 
 /** Settings every plot shares: fixed size, no ARIA text (large charts), the DejaVu font family. */
-export function baseSpec(title: string, subtitle: string | undefined, width = 560, height = 360): PlotSpec {
+export function baseSpec(title: string, subtitle: string | string[] | undefined, width = 560, height = 360): PlotSpec {
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
-    title: subtitle ? { text: title, subtitle, anchor: 'start' } : { text: title, anchor: 'start' },
+    title: subtitle ? { text: title, subtitle, anchor: 'start', limit: width + 60 } : { text: title, anchor: 'start', limit: width + 60 },
     width,
     height,
     background: 'white',
@@ -14,15 +14,15 @@ export function baseSpec(title: string, subtitle: string | undefined, width = 56
       font: 'DejaVu Sans, sans-serif',
       axis: { labelLimit: 180, titleLimit: 520 },
       legend: { titleLimit: 240 },
-      title: { subtitleColor: '#555', limit: 700 },
+      title: { subtitleColor: '#555' },
     },
   };
 }
 
-/** "all 1,234 points" or "2,000 of 100,000 points, a seeded random sample (seed 7)…". */
-export function sampleNote(shown: number, total: number, seed: number, extra = ''): string {
+/** "all 1,234 points" or "2,000 of 100,000 points (seeded random sample)…"; the seed is derived from the run's seed. */
+export function sampleNote(shown: number, total: number, extra = ''): string {
   if (shown >= total) return `all ${formatCount(total)} points`;
-  return `${formatCount(shown)} of ${formatCount(total)} points, a seeded random sample (seed ${seed})${extra}`;
+  return `${formatCount(shown)} of ${formatCount(total)} points (seeded random sample)${extra}`;
 }
 
 /** Finite-only copy of paired arrays, with the count of rows left out. */

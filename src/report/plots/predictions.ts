@@ -21,7 +21,7 @@ export function predictionSpec(
     hi = Math.max(hi, r.x, r.y);
   }
   if (!(lo <= hi)) { lo = 0; hi = 1; }
-  const subtitle = `held-out rows: ${sampleNote(idx.length, p.actual.length, seed)}${nonFiniteNote(nonFinite)}; line: predicted = actual`;
+  const subtitle = [`held-out rows: ${sampleNote(idx.length, p.actual.length)}${nonFiniteNote(nonFinite)}`, 'dashed line: predicted = actual'];
   return {
     ...baseSpec(`Network prediction of ${target} against the actual value`, subtitle, 420, 420),
     layer: [

@@ -18,7 +18,7 @@ export function residualSpec(
   const idx = sampleIndices(n, maxPoints, seed);
   const { rows, nonFinite } = finitePairs(x, residual, idx);
   return {
-    ...baseSpec(`Residuals of ${target} against ${term}`, `${sampleNote(idx.length, n, seed)}${nonFiniteNote(nonFinite)}`, 520, 300),
+    ...baseSpec(`Residuals of ${target} against ${term}`, `${sampleNote(idx.length, n)}${nonFiniteNote(nonFinite)}`, 520, 300),
     layer: [
       {
         name: 'points',

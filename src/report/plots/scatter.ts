@@ -28,7 +28,7 @@ export function scatterSpec(s: ReportScatter, set: ScatterSettings): PlotSpec {
     const [nx, ny] = set.grid ?? [80, 60];
     const b = bin2d(s.x, s.y, nx, ny, s.color);
     const what = s.color ? `colour: mean ${colorTitle} per cell` : 'colour: rows per cell';
-    const subtitle = `all ${formatCount(b.binned)} rows binned on a ${nx} × ${ny} grid${pre}; ${what}${nonFiniteNote(b.nonFinite)}`;
+    const subtitle = [`all ${formatCount(b.binned)} rows binned on a ${nx} × ${ny} grid${pre}${nonFiniteNote(b.nonFinite)}`, what];
     const values = b.cells.map((c) => ({ x0: c.x0, x1: c.x1, y0: c.y0, y1: c.y1, n: c.count, c: c.mean ?? c.count }));
     return {
       ...baseSpec(title, subtitle),
@@ -56,9 +56,8 @@ export function scatterSpec(s: ReportScatter, set: ScatterSettings): PlotSpec {
   const idx = sampleIndices(n, set.maxPoints, set.seed);
   const { rows, nonFinite } = finitePairs(s.x, s.y, idx);
   const values = rows.map((r) => ({ x: r.x, y: r.y, c: s.color ? s.color[r.i] : null }));
-  const subtitle = `${sampleNote(idx.length, n, set.seed)}${pre}${nonFiniteNote(nonFinite)}${
-    s.color ? `; colour: ${colorTitle}` : ''
-  }`;
+  const subtitle = [`${sampleNote(idx.length, n)}${pre}${nonFiniteNote(nonFinite)}`];
+  if (s.color) subtitle.push(`colour: ${colorTitle}`);
   const encoding: Record<string, unknown> = {
     x: { field: 'x', type: 'quantitative', title: s.xName, scale: { zero: false } },
     y: { field: 'y', type: 'quantitative', title: s.yName, scale: { zero: false } },
