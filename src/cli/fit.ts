@@ -1,14 +1,129 @@
+/**
+ * `surmise fit TABLE --target EXPR --terms "EXPR; EXPR; ..."`: least squares of the target on the
+ * given terms (Householder QR), with intervals, simplest rationals, held-out and cross-validated
+ * error. A thin shell over fitRelation (src/relate/fit.ts).
+ */
+import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
 import { SurmiseError } from '../errors.ts';
+import { readTable } from '../table/read.ts';
+import { parseDerive } from '../table/expr/derive.ts';
+import { fitRelation, type FitResult } from '../relate/fit.ts';
+import { splitRows } from '../relate/split-option.ts';
+import { alignTable, num, toJson } from '../relate/text.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerFit(program: Command, _io: CliIO): void {
+export interface FitOptions {
+  target: string;
+  terms: string;
+  intercept: boolean;
+  split?: string;
+  derive: string[];
+  seed: string;
+  folds: string;
+  level: string;
+  format?: string;
+  json?: boolean;
+}
+
+/** A non-negative integer option, or `relate.badOption` naming it. */
+export function intOption(name: string, text: string, min: number): number {
+  const v = Number(text);
+  if (text.trim() === '' || !Number.isInteger(v) || v < min)
+    throw new SurmiseError('relate.badOption', `expected ${name} to be an integer ≥ ${min}, got '${text}'`);
+  return v;
+}
+
+/** Split the --terms list at ';' (commas belong to function calls such as atan2(y, x)). */
+export function splitTerms(text: string): string[] {
+  const parts = text.split(';').map((t) => t.trim());
+  if (parts.length > 1 && parts[parts.length - 1] === '') parts.pop();
+  parts.forEach((t, i) => {
+    if (t === '') throw new SurmiseError('relate.emptyTerm', `--terms: term ${i + 1} is empty (terms are separated by ';')`);
+  });
+  return parts;
+}
+
+export function renderFit(r: FitResult): string {
+  const lines: string[] = [];
+  const drop = r.dropped.total > 0 ? `, ${r.dropped.total} of ${r.nRows} dropped (missing or non-finite values)` : '';
+  const nT = r.terms.length - (r.intercept ? 1 : 0);
+  lines.push(`least squares: ${r.target} on ${nT} term${nT === 1 ? '' : 's'}${r.intercept ? ' and an intercept' : ' (no intercept)'}, ${r.n} rows used${drop}`);
+  lines.push('');
+  const pct = `${Math.round(r.level * 100)}% interval`;
+  const rows: string[][] = [['term', 'estimate', 'std. error', pct, 'simplest rational in interval']];
+  for (const t of r.terms) {
+    rows.push([
+      t.term,
+      t.aliased ? 'aliased' : num(t.coef, 8),
+      num(t.se, 4),
+      t.aliased ? '' : `[${num(t.low, 6)}, ${num(t.high, 6)}]`,
+      t.rational ? t.rational.text : '—',
+    ]);
+  }
+  lines.push(alignTable(rows).trimEnd());
+  lines.push('');
+  const worst = r.maxAbsResidualRow;
+  const lab = Object.entries(worst.labels).map(([k, v]) => `${k}=${v}`).join(', ');
+  const where = `data row ${worst.row}${worst.line !== undefined ? ` (line ${worst.line})` : ''}${lab ? ` ${lab}` : ''}`;
+  const stats: string[][] = [
+    ['n', String(r.n)],
+    [r.centredR2 ? 'R²' : 'R² (uncentred, no intercept)', num(r.r2, 6)],
+    ['adjusted R²', num(r.adjR2, 6)],
+    ['RMSE', num(r.rmse, 6)],
+    ['residual SD', num(r.residualSD, 6)],
+    ['MAE', num(r.mae, 6)],
+    ['max |residual|', `${num(r.maxAbsResidual, 6)} at ${where}`],
+    ['AIC / BIC', `${num(r.aic, 8)} / ${num(r.bic, 8)}`],
+    [`${r.cvFolds}-fold CV RMSE`, `${num(r.cvRmse, 6)} (seed ${r.seed})`],
+    ['condition number', `${num(r.condition, 3)} (columns scaled to unit length)`],
+    ['rank', `${r.rank} of ${r.terms.length}`],
+  ];
+  if (r.heldOut) stats.push(['held-out RMSE', `${num(r.heldOut.rmse, 6)} on ${r.heldOut.n} rows (MAE ${num(r.heldOut.mae, 6)})`]);
+  lines.push(alignTable(stats).trimEnd());
+  if (r.warnings.length) {
+    lines.push('');
+    lines.push('warnings:');
+    for (const w of r.warnings) lines.push(`  - ${w}`);
+  }
+  lines.push('');
+  lines.push('Intervals assume independent errors of constant variance; this is evidence on this table, not a proof.');
+  return lines.join('\n') + '\n';
+}
+
+export function registerFit(program: Command, io: CliIO): void {
   program
     .command('fit')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'fit' command is not built yet");
+    .description('least squares of a target expression on given terms, with intervals and simplest rational constants')
+    .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
+    .requiredOption('--target <expr>', 'expression to predict, e.g. "re(lon/mer)"')
+    .requiredOption('--terms <list>', 'terms separated by ";", e.g. "sig; vol/inj^3"')
+    .option('--no-intercept', 'fit without the constant term (R² is then uncentred)')
+    .option('--split <spec>', 'fit on part of the rows and report the error on the rest: a fraction (0.8) or a train/test column')
+    .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
+    .option('--seed <n>', 'seed for the split and the cross-validation folds', '0')
+    .option('--folds <k>', 'cross-validation folds', '5')
+    .option('--level <p>', 'confidence level of the intervals', '0.95')
+    .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
+    .option('--json', 'print one JSON object')
+    .action(async (file: string, o: FitOptions) => {
+      const seed = intOption('--seed', o.seed, 0);
+      const folds = intOption('--folds', o.folds, 2);
+      const level = Number(o.level);
+      if (!(level > 0 && level < 1)) throw new SurmiseError('relate.badOption', `expected --level to lie strictly between 0 and 1, got '${o.level}'`);
+      const terms = splitTerms(o.terms);
+      const derive = o.derive.map((d) => {
+        const p = parseDerive(d);
+        return { name: p.name, expression: p.source };
+      });
+      const table = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
+      let split: { train: Int32Array; test: Int32Array } | undefined;
+      if (o.split !== undefined) {
+        const s = splitRows(table, o.split, seed);
+        split = { train: s.first, test: s.second };
+      }
+      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, derive, seed, folds, level, ...(split ? { split } : {}) });
+      if (o.json) io.stdout(toJson(r) + '\n');
+      else io.stdout(renderFit(r));
     });
 }

@@ -1,14 +1,142 @@
+/**
+ * `surmise search TABLE --target EXPR --from a,b,c`: which few terms built from the chosen columns
+ * predict the target? Chosen on a selection part of the rows, measured on a held-out part.
+ * A thin shell over searchRelations (src/relate/search.ts).
+ */
+import { resolve } from 'node:path';
 import type { Command } from 'commander';
+import cliProgress from 'cli-progress';
 import type { CliIO } from './io.ts';
 import { SurmiseError } from '../errors.ts';
+import { readTable } from '../table/read.ts';
+import { parseDerive } from '../table/expr/derive.ts';
+import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
+import { splitRows } from '../relate/split-option.ts';
+import { alignTable, num, toJson } from '../relate/text.ts';
+import { intOption } from './fit.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerSearch(program: Command, _io: CliIO): void {
+interface SearchOptions {
+  target: string;
+  from: string;
+  maxTerms: string;
+  powers: string;
+  split?: string;
+  top: string;
+  seed: string;
+  derive: string[];
+  format?: string;
+  json?: boolean;
+  progress: boolean;
+}
+
+/** `lo..hi` with integers, e.g. `-3..3`. */
+export function parsePowers(text: string): [number, number] {
+  const m = /^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$/.exec(text);
+  if (!m) throw new SurmiseError('relate.badPowers', `--powers ${text}: expected a range of integer powers lo..hi, e.g. -3..3`);
+  const lo = Number(m[1]);
+  const hi = Number(m[2]);
+  if (lo > hi) throw new SurmiseError('relate.badPowers', `--powers ${text}: the lower end ${lo} exceeds the upper end ${hi}`);
+  return [lo, hi];
+}
+
+function row(c: SearchCandidate, rank: number): string[] {
+  return [String(rank), String(c.complexity), num(c.selectionRmse, 4), num(c.heldOutRmse, 4), num(c.roundedHeldOutRmse, 4), c.roundedFormula, c.formula];
+}
+
+export function renderSearch(r: SearchResult): string {
+  const out: string[] = [];
+  const drop = r.dropped.total > 0 ? ` (${r.dropped.total} rows dropped for missing or non-finite values)` : '';
+  out.push(`formula search for ${r.target}: ${r.nCandidateTerms} candidate terms, ${r.nCandidatesTried} subsets tried (${r.mode})`);
+  out.push(`selection rows ${r.selectionRows}, held-out rows ${r.heldOutRows}${drop}`);
+  out.push('');
+  const head = ['#', 'complexity', 'selection RMSE', 'held-out RMSE', 'rounded held-out', 'rounded formula', 'fitted formula'];
+  out.push('best by selection BIC:');
+  out.push(alignTable([head, ...r.candidates.map((c, i) => row(c, i + 1))]).trimEnd());
+  out.push('');
+  out.push('Pareto front (complexity against held-out RMSE):');
+  out.push(alignTable([head, ...r.front.map((c, i) => row(c, i + 1))]).trimEnd());
+  const best = r.candidates[0];
+  if (best) {
+    out.push('');
+    out.push(`best candidate, coefficients with 95% intervals and the simplest rational inside each:`);
+    const rows: string[][] = [['term', 'estimate', 'std. error', '95% interval', 'rational']];
+    const ic = best.intercept;
+    rows.push(['1', num(ic.coef, 8), num(ic.se, 4), `[${num(ic.low)}, ${num(ic.high)}]`, ic.rational?.text ?? '—']);
+    best.terms.forEach((t, j) => rows.push([t, num(best.coefs[j]!, 8), num(best.se[j]!, 4), `[${num(best.low[j]!)}, ${num(best.high[j]!)}]`, best.rationals[j]?.text ?? '—']));
+    out.push(alignTable(rows).trimEnd());
+  }
+  if (r.skippedTerms.length) {
+    out.push('');
+    out.push(`skipped terms (${r.skippedTerms.length}):`);
+    for (const s of r.skippedTerms.slice(0, 12)) out.push(`  - ${s.name}: ${s.reason}`);
+    if (r.skippedTerms.length > 12) out.push(`  … and ${r.skippedTerms.length - 12} more (see --json)`);
+  }
+  out.push('');
+  for (const n of r.notes) out.push(n);
+  out.push('Complexity: 1 per column occurrence, + |power| − 1, + 1 per division, + 1 per function; the intercept is free.');
+  return out.join('\n') + '\n';
+}
+
+export function registerSearch(program: Command, io: CliIO): void {
   program
     .command('search')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'search' command is not built yet");
+    .description('search formulas target ≈ c0 + Σ c·term over terms built from chosen columns; chosen on one part of the rows, measured on another')
+    .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
+    .requiredOption('--target <expr>', 'expression to predict')
+    .requiredOption('--from <columns>', 'columns to build terms from, comma-separated')
+    .option('--max-terms <k>', 'largest number of terms besides the intercept', '2')
+    .option('--powers <lo..hi>', 'integer powers of each column', '-3..3')
+    .option('--split <spec>', 'selection part: a fraction (default 0.6) or a column with train/selection/1 marking it')
+    .option('--top <n>', 'candidates to list', '10')
+    .option('--seed <n>', 'seed for the split', '0')
+    .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
+    .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
+    .option('--json', 'print one JSON object')
+    .option('--no-progress', 'no progress output on stderr')
+    .action(async (file: string, o: SearchOptions) => {
+      const seed = intOption('--seed', o.seed, 0);
+      const maxTerms = intOption('--max-terms', o.maxTerms, 1);
+      const top = intOption('--top', o.top, 1);
+      const powers = parsePowers(o.powers);
+      const from = o.from.split(',').map((s) => s.trim());
+      from.forEach((c, i) => {
+        if (c === '') throw new SurmiseError('relate.badOption', `--from: column ${i + 1} of the list is empty (columns are separated by ',')`);
+      });
+      const derive = o.derive.map((d) => {
+        const p = parseDerive(d);
+        return { name: p.name, expression: p.source };
+      });
+      const table = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
+      let split: { selection: Int32Array; heldOut: Int32Array } | undefined;
+      if (o.split !== undefined) {
+        const s = splitRows(table, o.split, seed);
+        split = { selection: s.first, heldOut: s.second };
+      }
+      let bar: cliProgress.SingleBar | null = null;
+      let lastLine = Date.now();
+      const progress = (done: number, total: number): void => {
+        if (!o.progress) return;
+        if (io.isTTY) {
+          if (!bar) {
+            bar = new cliProgress.SingleBar(
+              { stream: { write: (s: string) => io.stderr(s) } as unknown as NodeJS.WritableStream, format: 'screening subsets [{bar}] {value}/{total}' },
+              cliProgress.Presets.legacy,
+            );
+            bar.start(total, 0);
+          }
+          bar.update(done);
+        } else if (Date.now() - lastLine > 5000) {
+          lastLine = Date.now();
+          io.stderr(`search: screened ${done} of ${total}\n`);
+        }
+      };
+      let r: SearchResult;
+      try {
+        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, derive, progress, ...(split ? { split } : {}) });
+      } finally {
+        (bar as cliProgress.SingleBar | null)?.stop();
+      }
+      if (o.json) io.stdout(toJson(r) + '\n');
+      else io.stdout(renderSearch(r));
     });
 }

@@ -7,6 +7,7 @@ import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
 import { evaluateExpression } from '../table/expr/evaluate.ts';
 import { exprError } from '../table/expr/caret.ts';
+import { deriveColumn } from '../table/expr/derive.ts';
 
 export interface DroppedRows {
   /** Rows dropped in all. */
@@ -76,18 +77,6 @@ export function completeRows(
   return { rows, dropped: { total: nRows - count, missing, nonFinite, byExpression } };
 }
 
-/** Split `NAME=EXPR` (a derived column). */
-export function parseDerivation(text: string): { name: string; expression: string } {
-  const m = /^\s*([A-Za-z_][A-Za-z0-9_.]*)\s*=(?!=)(.*)$/.exec(text);
-  if (!m || m[2]!.trim() === '') {
-    throw new SurmiseError(
-      'relate.badDerive',
-      `--derive expects NAME=EXPRESSION (e.g. slope=re(lon/mer)), got '${text}'`,
-    );
-  }
-  return { name: m[1]!, expression: m[2]!.trim() };
-}
-
 /** A shallow copy of `table` with derived columns appended (each may use the ones before it). */
 export function withDerived(table: Table, derive: Array<{ name: string; expression: string }>): Table {
   let t = table;
@@ -95,11 +84,7 @@ export function withDerived(table: Table, derive: Array<{ name: string; expressi
     if (t.columns.some((c) => c.name === d.name)) {
       throw new SurmiseError('relate.deriveExists', `--derive ${d.name}=...: the table already has a column '${d.name}'; choose another name`);
     }
-    const v = evaluateExpression(t, d.expression);
-    const col = v.im
-      ? { name: d.name, kind: 'complex' as const, re: v.re, im: v.im, missing: v.missing }
-      : { name: d.name, kind: 'real' as const, values: v.re, missing: v.missing };
-    t = { ...t, columns: [...t.columns, col] };
+    t = { ...t, columns: [...t.columns, deriveColumn(t, d.name, d.expression)] };
   }
   return t;
 }
