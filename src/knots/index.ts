@@ -1,0 +1,44 @@
+/** Knot and link invariants from PD codes, braid words and DT codes (exact arithmetic). */
+export { analysePD, writhe, linkingMatrix, canonicalLabels, type Crossing, type PDInfo } from './pd.ts';
+export { validateBraid, braidClosurePD, braidSeifertMatrix, burauAlexander, polyMatrixDet, type Braid } from './braid.ts';
+export { dtToPD, validateDT, MAX_DT_CROSSINGS } from './dt.ts';
+export { bareissDet, symmetricInertia, symmetricSignature, type Inertia } from './exact.ts';
+export {
+  pencilDeterminant,
+  interpolateIntegerNodes,
+  polyDivExact,
+  centre,
+  formatLaurent,
+  multiplyLaurent,
+  valueAtOne,
+  valueAtMinusOne,
+  isSymmetric,
+  type LaurentPolynomial,
+} from './poly.ts';
+export { gordonLitherland, checkerboard, type GordonLitherland } from './goeritz.ts';
+export { foxAlexander } from './fox.ts';
+export { levineTristram, alexanderUnitRoots, polynomialRoots, symmetricEigenvalues } from './levine.ts';
+export { naturalSlope } from './slope.ts';
+export { parseCode, detectKind, splitDiagramLines, DIAGRAM_KINDS, type DiagramKind, type ParsedCode, type DiagramSource } from './parse.ts';
+export { parseDiagram, diagramFrom, type Diagram } from './diagram.ts';
+export {
+  computeInvariants,
+  seifertCircles,
+  INVARIANT_NAMES,
+  DEFAULT_INVARIANTS,
+  type InvariantName,
+  type KnotInvariants,
+  type ComputeOptions,
+} from './invariants.ts';
+export {
+  randomBraid,
+  torusBraid,
+  fullTwists,
+  twistedBraid,
+  mirrorBraid,
+  braidConnectedSum,
+  mirrorPD,
+  pdConnectedSum,
+  addKink,
+  relabelPD,
+} from './generate.ts';

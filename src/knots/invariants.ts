@@ -1,0 +1,201 @@
+/**
+ * All invariants of one diagram, exactly.
+ *
+ * Conventions (see README.md): crossing signs right-handed = +1; writhe = Σ signs; signature
+ * σ = sign(V + Vᵀ) so that the right-handed trefoil has σ = −2; Alexander polynomial
+ * Conway-normalised, Δ(t) = det(t^{−1/2}V − t^{1/2}Vᵀ) for our V (so that the skein relation
+ * Δ(L₊) − Δ(L₋) = (t^{1/2} − t^{−1/2})Δ(L₀) holds: the positive Hopf link has t^{1/2} − t^{−1/2}),
+ * hence Δ(t) = Δ(t⁻¹) and Δ(1) = 1 for knots;
+ * determinant |Δ(−1)| = |det(V + Vᵀ)|.
+ *
+ * Braid words use the braid-form Seifert matrix V (signature exactly from V + Vᵀ) and the
+ * reduced Burau representation for Δ, whose sign is fixed by Δ(1) = 1 for knots and by
+ * Δ(−1) = (−i)^m det(V + Vᵀ) for links (t^{1/2} = i; exact BigInt det(V − tVᵀ) when
+ * det(V + Vᵀ) = 0).
+ * PD and DT codes use Gordon–Litherland (Goeritz matrix) for σ and the determinant and Fox
+ * calculus for Δ; for links given that way the sign of Δ is not fixed (we make the top coefficient
+ * positive and say so in `alexanderSignFixed`), and Levine–Tristram signatures other than
+ * ω = −1 need a Seifert matrix, which we build only for braids.
+ */
+import { braidSeifertMatrix, burauAlexander } from './braid.ts';
+import type { Diagram } from './diagram.ts';
+import { symmetricInertia } from './exact.ts';
+import { foxAlexander } from './fox.ts';
+import { gordonLitherland } from './goeritz.ts';
+import { alexanderUnitRoots, levineTristram } from './levine.ts';
+import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
+import { centre, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
+
+export const INVARIANT_NAMES = [
+  'crossings',
+  'writhe',
+  'components',
+  'signature',
+  'determinant',
+  'alexander',
+  'seifert_circles',
+  'genus_bound',
+  'linking',
+  'levine_tristram',
+  'jumps',
+] as const;
+export type InvariantName = (typeof INVARIANT_NAMES)[number];
+export const DEFAULT_INVARIANTS: readonly InvariantName[] = ['crossings', 'writhe', 'components', 'signature', 'determinant', 'alexander'];
+
+export interface KnotInvariants {
+  crossings: number;
+  writhe: number;
+  components: number;
+  signature?: number;
+  determinant?: number | string;
+  alexander?: LaurentPolynomial;
+  alexanderText?: string;
+  /** False for links read from PD/DT codes: Δ is then known only up to sign. */
+  alexanderSignFixed?: boolean;
+  seifertCircles?: number;
+  /** Seifert's-algorithm bound g ≤ (c − s + 1)/2, knots only. */
+  genusBound?: number;
+  /** Pairwise linking numbers lk(K_i, K_j), i < j (components numbered from 1). */
+  linking?: Array<{ i: number; j: number; lk: number }>;
+  /** σ_ω at ω = e^{2πi·omega}; undefined when no Seifert matrix is available. */
+  levineTristram?: number;
+  omega?: number;
+  /** x ∈ (0, 1/2] with Δ(e^{2πix}) = 0. */
+  jumps?: number[];
+}
+
+/** Number of Seifert circles: cycles of the oriented smoothing (plus free loops). */
+export function seifertCircles(info: PDInfo, freeLoops = 0): number {
+  const n = info.nCrossings;
+  // at each crossing the smoothing sends an incoming dart to the outgoing dart of the other strand
+  const seen = new Uint8Array(4 * n);
+  let circles = 0;
+  for (let d0 = 0; d0 < 4 * n; d0++) {
+    if (!info.out[d0] || seen[d0]) continue;
+    let d = d0;
+    while (!seen[d]) {
+      seen[d] = 1;
+      const inD = info.other[d]!; // incoming dart at the next crossing
+      const c = inD >> 2;
+      const s = inD & 3;
+      // incoming under (slot 0) continues on the over strand's outgoing slot; incoming over continues on slot 2
+      d = s === 0 ? (info.out[4 * c + 1] ? 4 * c + 1 : 4 * c + 3) : 4 * c + 2;
+    }
+    circles++;
+  }
+  return circles + freeLoops;
+}
+
+function bigToOut(b: bigint): number | string {
+  const a = b < 0n ? -b : b;
+  return a <= BigInt(Number.MAX_SAFE_INTEGER) ? Number(a) : a.toString();
+}
+
+/** Conway normalisation of an unnormalised Δ for a knot (Δ(1) = 1). */
+function normaliseKnot(p: bigint[]): LaurentPolynomial {
+  const c = centre(p);
+  const v = valueAtOne(c);
+  if (v === 1) return c;
+  if (v === -1) return centre(p, true);
+  throw new Error(`internal: Alexander polynomial of a knot has Δ(1) = ${v}`);
+}
+
+export interface ComputeOptions {
+  invariants?: readonly InvariantName[];
+  /** x in ω = e^{2πix} for the Levine–Tristram signature (default 0.5). */
+  omega?: number;
+}
+
+/** Compute the requested invariants of a diagram. */
+export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotInvariants {
+  const want = new Set<InvariantName>(opts.invariants ?? DEFAULT_INVARIANTS);
+  const info = d.info;
+  const components = info.nComponents + d.freeLoops;
+  const isKnot = components === 1;
+  const res: KnotInvariants = { crossings: info.nCrossings, writhe: writhe(info), components };
+  const needAlex = want.has('alexander') || want.has('jumps') || (d.braid && want.has('determinant'));
+  const needSig = want.has('signature') || want.has('determinant');
+  let V: number[][] | undefined;
+  if (d.braid) {
+    V = braidSeifertMatrix(d.braid);
+    const S = V.map((r, i) => r.map((x, j) => x + V![j]![i]!));
+    const inertia = needSig || needAlex ? symmetricInertia(S) : undefined;
+    if (inertia && want.has('signature')) res.signature = inertia.positive - inertia.negative;
+    if (needAlex) {
+      let alex: LaurentPolynomial;
+      const raw = burauAlexander(d.braid);
+      if (raw === undefined) {
+        // exact fallback: Δ = t^{-m/2} det(V − tVᵀ)
+        alex = centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V![j]![i]!))));
+      } else if (isKnot) alex = normaliseKnot(raw);
+      else {
+        alex = centre(raw);
+        const m = V.length;
+        if (alex.coefficients.length > 0) {
+          if (inertia!.zero === 0) {
+            // Δ(−1) = (−i)^m det(V + Vᵀ); sign det = (−1)^negative
+            const detSign = inertia!.negative % 2 === 0 ? 1 : -1;
+            const [re, im] = valueAtMinusOne(alex);
+            const r = (((-m) % 4) + 4) % 4; // (−i)^m = i^(−m)
+            const target = r === 0 ? [detSign, 0] : r === 1 ? [0, detSign] : r === 2 ? [-detSign, 0] : [0, -detSign];
+            const got = Math.sign(re) || Math.sign(im);
+            const want1 = target[0] || target[1];
+            if (got !== want1) alex = { ...alex, coefficients: alex.coefficients.map((x) => -x) };
+          } else {
+            alex = centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V![j]![i]!))));
+          }
+        }
+      }
+      res.alexander = alex;
+      res.alexanderText = formatLaurent(alex);
+      res.alexanderSignFixed = true;
+      if (want.has('determinant')) {
+        const [re, im] = valueAtMinusOne(alex);
+        res.determinant = Math.abs(re) + Math.abs(im);
+      }
+    }
+  } else {
+    if (needSig) {
+      const gl = gordonLitherland(info);
+      if (want.has('signature')) res.signature = gl.signature;
+      if (want.has('determinant')) res.determinant = d.freeLoops > 0 ? 0 : bigToOut(gl.determinant);
+    }
+    if (needAlex) {
+      const raw = foxAlexander(info, d.freeLoops);
+      let alex: LaurentPolynomial;
+      if (isKnot) alex = normaliseKnot(raw);
+      else {
+        alex = centre(raw);
+        const top = alex.coefficients[alex.coefficients.length - 1];
+        if (top !== undefined && top < 0) alex = { ...alex, coefficients: alex.coefficients.map((x) => -x) };
+      }
+      res.alexander = alex;
+      res.alexanderText = formatLaurent(alex);
+      res.alexanderSignFixed = isKnot;
+    }
+  }
+  if (!want.has('alexander')) {
+    const a = res.alexander;
+    delete res.alexander;
+    delete res.alexanderText;
+    delete res.alexanderSignFixed;
+    if (want.has('jumps') && a) res.jumps = alexanderUnitRoots(a);
+  } else if (want.has('jumps') && res.alexander) res.jumps = alexanderUnitRoots(res.alexander);
+  if (want.has('seifert_circles') || want.has('genus_bound')) {
+    const s = seifertCircles(info, d.freeLoops);
+    if (want.has('seifert_circles')) res.seifertCircles = s;
+    if (want.has('genus_bound') && isKnot) res.genusBound = (info.nCrossings - s + 1) / 2;
+  }
+  if (want.has('linking')) {
+    const lk = linkingMatrix(info, d.freeLoops);
+    res.linking = [];
+    for (let i = 0; i < lk.length; i++) for (let j = i + 1; j < lk.length; j++) res.linking.push({ i: i + 1, j: j + 1, lk: lk[i]![j]! });
+  }
+  if (want.has('levine_tristram')) {
+    const x = opts.omega ?? 0.5;
+    res.omega = x;
+    if (V) res.levineTristram = levineTristram(V, x);
+    else if (x - Math.floor(x) === 0.5) res.levineTristram = gordonLitherland(info).signature;
+  }
+  return res;
+}
