@@ -1,0 +1,99 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { mkdtempSync, writeFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runCli } from '../../src/cli/main.ts';
+import { memoryIO } from '../../src/cli/io.ts';
+import { generateCensus, PLANTED_BOUND_CONSTANT } from '../../src/demo/census.ts';
+
+let dir: string;
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'surmise-bound-'));
+  // x on [-1, 1] with x = 1 on row 3: |exp(x) - 1 - x| <= (e - 2) x^2, attained at x = 1 (from memory)
+  writeFileSync(join(dir, 'taylor.csv'), 'name,x\np1,0.5\np2,-1\np3,1\np4,0.25\np5,-0.5\np6,0.75\n');
+  writeFileSync(join(dir, 'bad.csv'), 'name,l,r\na,1,1\nb,2,0\nc,3,-1\nd,4,2\n');
+  writeFileSync(join(dir, 'census.csv'), generateCensus({ rows: 6000, seed: 7 }));
+});
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+async function run(args: string[]) {
+  const io = memoryIO(dir);
+  const code = await runCli(['bound', ...args], io);
+  return { code, out: io.out, err: io.err };
+}
+
+describe('surmise bound', () => {
+  it('--json prints one JSON object with the constant, witnesses, quantiles, strata and trend', async () => {
+    const { code, out, err } = await run(['taylor.csv', '--lhs', 'abs(exp(x) - 1 - x)', '--rhs', 'x^2', '--bins', '3', '--top', '2', '--json']);
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(j).toMatchObject({ lhs: 'abs(exp(x) - 1 - x)', by: null, n: 6, dropped: { total: 0 } });
+    const r = j.results[0];
+    expect(r.rhs).toBe('x^2');
+    expect(r.constant).toBeCloseTo(Math.E - 2, 12); // e − 2 at x = 1 (from memory)
+    expect(r.witnesses[0]).toMatchObject({ row: 3, line: 4, labels: { name: 'p3' } });
+    expect(r.witnesses).toHaveLength(2);
+    expect(r.quantiles.map((q: { p: number }) => q.p)).toEqual([0.5, 0.9, 0.99, 0.999]);
+    expect(r.strata).toHaveLength(3);
+    expect(Object.keys(r.strata[0]).sort()).toEqual(['centre', 'constant', 'high', 'low', 'n', 'row']);
+    expect(Object.keys(r.trend)).toEqual(expect.arrayContaining(['slope', 'low', 'high', 'verdict']));
+  });
+
+  it('refuses rhs ≤ 0 with exit 2 and one line naming the count and first rows', async () => {
+    const { code, out, err } = await run(['bad.csv', '--lhs', 'l', '--rhs', 'r']);
+    expect(code).toBe(2);
+    expect(out).toBe('');
+    expect(err.trimEnd().split('\n')).toHaveLength(1);
+    expect(err).toBe(
+      'surmise: bad.csv: 2 of 4 rows cannot be used for l ≤ c·(r) (2 with rhs ≤ 0); first: row 2, line 3: lhs = 2, rhs = 0; ' +
+        'row 3, line 4: lhs = 3, rhs = -1. Pass --skip-invalid to drop and count them [bound.badRhs]\n',
+    );
+    const skipped = await run(['bad.csv', '--lhs', 'l', '--rhs', 'r', '--skip-invalid', '--json']);
+    expect(skipped.code).toBe(0);
+    expect(JSON.parse(skipped.out).dropped).toEqual({ missing: 0, nonFinite: 0, rhsNonPositive: 2, total: 2 });
+  });
+
+  it('an unknown column is the expression error, exit 2', async () => {
+    const { code, err } = await run(['bad.csv', '--lhs', 'll', '--rhs', 'r']);
+    expect(code).toBe(2);
+    expect(err).toMatch(/^surmise: unknown column 'll'/);
+    expect(err).toMatch(/\[expr\.unknownColumn\]\n$/);
+  });
+
+  it('refuses --bins 0 and a missing table file with exit 2', async () => {
+    const b = await run(['bad.csv', '--lhs', 'l', '--rhs', 'r', '--bins', '0']);
+    expect(b.code).toBe(2);
+    expect(b.err).toMatch(/--bins/);
+    const f = await run(['nope.csv', '--lhs', 'l', '--rhs', 'r']);
+    expect(f.code).toBe(2);
+    expect(f.err.trimEnd().split('\n')).toHaveLength(1);
+  });
+
+  // The demo census's documented model (src/demo/census.ts; the project's own model, not an outside source):
+  // |2·sig − slope| ≤ 0.1·vol/inj on every row, while the naive bound by vol fails as inj → 0 on the twisted family.
+  it('on the demo census: the planted bound holds with no trend; the naive one grows as inj decreases', async () => {
+    const { code, out } = await run([
+      'census.csv', '--lhs', 'abs(2*sig - slope)', '--derive', 'slope=re(lon/mer)',
+      '--rhs', 'vol/inj', '--rhs', 'vol', '--by', 'inj', '--json',
+    ]);
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    const [planted, naive] = j.results;
+    expect(planted.constant).toBeLessThanOrEqual(PLANTED_BOUND_CONSTANT);
+    expect(planted.constant).toBeGreaterThan(0.9 * PLANTED_BOUND_CONSTANT);
+    expect(planted.trend.kind).toBe('bounded');
+    expect(naive.trend.verdict).toMatch(/^grows as inj decreases/);
+    expect(naive.extremeStratum).toBe('lowest');
+    expect(naive.witnesses[0].labels.family).toBe('twisted');
+  });
+
+  it('the text report compares the candidates side by side', async () => {
+    const { code, out } = await run([
+      'census.csv', '--lhs', 'abs(2*sig - natural_slope(lon, mer))', '--rhs', 'vol/inj', '--rhs', 'vol', '--by', 'inj', '--top', '2',
+    ]);
+    expect(code).toBe(0);
+    expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}vol\/inj .*bounded: no trend along inj\n {2}vol .*grows as inj decreases\n/);
+    expect(out).toMatch(/Hyndman & Fan \(1996\) type 7/);
+  });
+});
