@@ -1,14 +1,183 @@
+/**
+ * `surmise inspect TABLE`: read a table and print its profile — rows, duplicate rows, per column
+ * kind, missing and non-finite counts, min / max / mean / sample std, distinct counts, and the
+ * strongest Spearman rank correlations. `--derive NAME=EXPR` adds computed columns first.
+ */
 import type { Command } from 'commander';
+import { resolve } from 'node:path';
+import { statSync } from 'node:fs';
+import cliProgress from 'cli-progress';
 import type { CliIO } from './io.ts';
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, didYouMean } from '../errors.ts';
+import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
+import { COLUMN_KINDS } from '../table/columns.ts';
+import { profileTable, type ColumnProfile, type TableProfile } from '../table/profile.ts';
+import type { ColumnKind, Table } from '../table/types.ts';
+import { deriveColumn, parseDerive } from '../table/expr/index.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerInspect(program: Command, _io: CliIO): void {
+interface InspectOptions {
+  derive: string[];
+  kind: string[];
+  format?: string;
+  json?: boolean;
+  progress: boolean;
+}
+
+const collect = (v: string, prev: string[]) => [...prev, v];
+
+/** `--kind name=kind` values into a kinds record (errors name the option). */
+export function parseKindOptions(specs: string[]): Record<string, ColumnKind> {
+  const kinds: Record<string, ColumnKind> = {};
+  for (const s of specs) {
+    const eq = s.lastIndexOf('=');
+    const name = eq < 0 ? '' : s.slice(0, eq).trim();
+    const kind = eq < 0 ? '' : s.slice(eq + 1).trim();
+    if (eq < 0 || name === '')
+      throw new SurmiseError('cli.badKind', `--kind ${s}: expected NAME=KIND, e.g. --kind crossings=integer`);
+    if (!COLUMN_KINDS.includes(kind as ColumnKind))
+      throw new SurmiseError(
+        'cli.badKind',
+        `--kind ${s}: '${kind}' is not a column kind; expected one of ${COLUMN_KINDS.join(', ')}${didYouMean(kind, COLUMN_KINDS)}`,
+      );
+    kinds[name] = kind as ColumnKind;
+  }
+  return kinds;
+}
+
+/** Append `--derive` columns to a table, in order (later ones may use earlier ones). */
+export function applyDerives(table: Table, specs: string[]): Table {
+  let t = table;
+  for (const s of specs) {
+    const { name, source } = parseDerive(s);
+    if (t.columns.some((c) => c.name === name))
+      throw new SurmiseError('table.duplicateColumn', `--derive ${s}: a column '${name}' already exists in ${t.source}`);
+    const col = deriveColumn(t, name, source);
+    t = { ...t, columns: [...t.columns, col] };
+  }
+  return t;
+}
+
+function fmtNum(x: number | null | undefined): string {
+  if (x === null || x === undefined) return '';
+  if (Number.isNaN(x)) return 'nan';
+  if (!Number.isFinite(x)) return x > 0 ? 'inf' : '-inf';
+  if (Number.isInteger(x) && Math.abs(x) < 1e15) return String(x);
+  const a = Math.abs(x);
+  if (a !== 0 && (a < 1e-4 || a >= 1e7)) return x.toExponential(4);
+  return String(Number(x.toPrecision(6)));
+}
+
+function fmtStat(v: ColumnProfile['mean']): string {
+  if (v === null) return '';
+  if (typeof v === 'number') return fmtNum(v);
+  if (v.im === null) return fmtNum(v.re);
+  const im = fmtNum(v.im);
+  return `${fmtNum(v.re)}${im.startsWith('-') ? im : `+${im}`}i`;
+}
+
+/** The aligned text view of a profile. */
+export function formatProfile(p: TableProfile): string {
+  const lines: string[] = [];
+  lines.push(`${p.source}: ${p.rows.toLocaleString('en-US')} rows, ${p.columns.length} columns, ${p.duplicates} duplicate row${p.duplicates === 1 ? '' : 's'}`);
+  const head = ['column', 'kind', 'missing', 'non-finite', 'min', 'max', 'mean', 'std', 'distinct'];
+  const rows = p.columns.map((c) => [
+    c.name,
+    c.kind,
+    String(c.missing),
+    String(c.nonFinite),
+    fmtStat(c.min),
+    fmtStat(c.max),
+    fmtStat(c.mean),
+    fmtStat(c.std),
+    c.distinct === undefined ? '' : String(c.distinct),
+  ]);
+  const width = head.map((h, j) => Math.max(h.length, ...rows.map((r) => r[j]!.length)));
+  const right = new Set([2, 3, 4, 5, 6, 7, 8]);
+  const fmtRow = (r: string[]) => r.map((s, j) => (right.has(j) ? s.padStart(width[j]!) : s.padEnd(width[j]!))).join('  ').trimEnd();
+  lines.push('', fmtRow(head), fmtRow(width.map((w) => '-'.repeat(w))), ...rows.map(fmtRow));
+  lines.push('');
+  if (p.correlations.length === 0) lines.push('Spearman rank correlations: fewer than two non-constant numeric columns');
+  else {
+    lines.push(
+      `Strongest Spearman rank correlations (${p.correlationSampled ? `sample of ${p.correlationRows.toLocaleString('en-US')} rows` : 'all rows'}):`,
+    );
+    const w = Math.max(...p.correlations.map((c) => `${c.a} ~ ${c.b}`.length));
+    for (const c of p.correlations) lines.push(`  ${`${c.a} ~ ${c.b}`.padEnd(w)}  ${c.rho >= 0 ? ' ' : ''}${c.rho.toFixed(4)}`);
+  }
+  if (p.notes.length) {
+    lines.push('', 'Notes:');
+    for (const n of p.notes) lines.push(`  - ${n}`);
+  }
+  return lines.join('\n') + '\n';
+}
+
+function jsonSafe(p: TableProfile): unknown {
+  // JSON has no NaN/Infinity: write them as strings
+  return JSON.parse(
+    JSON.stringify(p, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? (Number.isNaN(v) ? 'nan' : v > 0 ? 'inf' : '-inf') : v)),
+  );
+}
+
+export function registerInspect(program: Command, io: CliIO): void {
   program
     .command('inspect')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'inspect' command is not built yet");
+    .description('Read a table (CSV, TSV, JSON, JSON Lines) and summarise its columns, duplicates and rank correlations')
+    .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
+    .option('--derive <name=expr>', 'add a computed column before profiling (repeatable), e.g. slope=re(lon/mer)', collect, [])
+    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [])
+    .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
+    .option('--json', 'print one JSON object instead of the text view')
+    .option('--no-progress', 'do not report reading progress on stderr')
+    .action(async (file: string, opts: InspectOptions) => {
+      const kinds = parseKindOptions(opts.kind);
+      if (opts.format !== undefined && !TABLE_FORMATS.includes(opts.format as TableFormat))
+        throw new SurmiseError(
+          'cli.badFormat',
+          `--format ${opts.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(opts.format, TABLE_FORMATS)}`,
+        );
+      const path = resolve(io.cwd, file);
+      let size = 0;
+      try {
+        size = statSync(path).size;
+      } catch {
+        /* readTable reports the unreadable file */
+      }
+      const big = size > 32 * 2 ** 20;
+      let bar: cliProgress.SingleBar | undefined;
+      let lastPct = -1;
+      const onProgress =
+        opts.progress && big
+          ? (bytes: number, total: number) => {
+              const pct = Math.floor((100 * bytes) / Math.max(1, total));
+              if (io.isTTY) {
+                if (!bar) {
+                  bar = new cliProgress.SingleBar(
+                    { stream: process.stderr, format: 'reading [{bar}] {percentage}%', hideCursor: false },
+                    cliProgress.Presets.legacy,
+                  );
+                  bar.start(100, 0);
+                }
+                bar.update(pct);
+              } else if (pct >= lastPct + 10) {
+                lastPct = pct - (pct % 10);
+                io.stderr(`reading ${file}: ${lastPct}%\n`);
+              }
+            }
+          : undefined;
+      let table: Table;
+      try {
+        table = await readTable(path, {
+          displayName: file,
+          kinds: Object.keys(kinds).length ? kinds : undefined,
+          format: opts.format as TableFormat | undefined,
+          onProgress,
+        });
+      } finally {
+        bar?.stop();
+      }
+      table = applyDerives(table, opts.derive);
+      const profile = profileTable(table);
+      if (opts.json) io.stdout(JSON.stringify(jsonSafe(profile)) + '\n');
+      else io.stdout(formatProfile(profile));
     });
 }

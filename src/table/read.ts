@@ -46,7 +46,7 @@ const EXTENSIONS: Record<string, TableFormat> = {
 };
 
 /** The format for `path` from its extension, or `table.unknownFormat`. */
-export function formatFromPath(path: string, override?: string): TableFormat {
+export function formatFromPath(path: string, override?: string, display = path): TableFormat {
   if (override !== undefined) {
     if (!TABLE_FORMATS.includes(override as TableFormat))
       throw new SurmiseError('table.unknownFormat', `--format ${override}: expected one of ${TABLE_FORMATS.join(', ')}`);
@@ -56,7 +56,7 @@ export function formatFromPath(path: string, override?: string): TableFormat {
   if (!f)
     throw new SurmiseError(
       'table.unknownFormat',
-      `cannot tell the format of ${path} from its extension (${Object.keys(EXTENSIONS).join(' ')}); give --format ${TABLE_FORMATS.join('|')}`,
+      `cannot tell the format of ${display} from its extension (${Object.keys(EXTENSIONS).join(' ')}); give --format ${TABLE_FORMATS.join('|')}`,
     );
   return f;
 }
@@ -64,7 +64,7 @@ export function formatFromPath(path: string, override?: string): TableFormat {
 /** Read a table file into typed columns. */
 export async function readTable(path: string, opts: ReadOptions = {}): Promise<Table> {
   const display = opts.displayName ?? path;
-  const format = formatFromPath(path, opts.format);
+  const format = formatFromPath(path, opts.format, display);
   if (opts.kinds)
     for (const [name, kind] of Object.entries(opts.kinds))
       if (!COLUMN_KINDS.includes(kind))
