@@ -8,3 +8,4 @@ export { fitConstant, type ConstantModel } from './constant.ts';
 export { fitRidge, selectRidge, RIDGE_GRID, type RidgeModel, type RidgeSelection } from './ridge.ts';
 export { r2, rmse, mae, accuracy, balancedAccuracy } from './metrics.ts';
 export { evaluate, type Evaluation, type Predictor } from './evaluate.ts';
+export { trainMany, type TrainJob, type TrainManyOptions, type TrainManyReport } from './many.ts';

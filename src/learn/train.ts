@@ -9,7 +9,7 @@ import { Rng, deriveSeed } from '../util/rng.ts';
 import { kahanSum } from '../util/sum.ts';
 import { ensureBackend } from './backend.ts';
 import { checkData, type TrainData } from './data.ts';
-import { backwardParams, disposeViews, forward, makeLayout, makeViews, type Layout, type Views } from './layers.ts';
+import { backwardParams, disposeViews, forward, makeLayout, viewsFromParams, type Layout, type Views } from './layers.ts';
 import { chooseTask, resolveNetworkOptions, type NetworkOptions, type Task } from './options.ts';
 import { networkFromJSON, type EpochRecord, type NetworkState, type TrainedNetwork } from './trained.ts';
 
@@ -96,6 +96,21 @@ function lossAndGrad(out: tf.Tensor2D, t: Float32Array, rows: number, K: number,
   return { sum, dOut: wantGrad ? (tf.mul(tf.sub(tf.exp(logp), Y), 1 / rows) as tf.Tensor2D) : null };
 }
 
+/**
+ * One Adam step in place (Kingma & Ba, ICLR 2015, Algorithm 1 with the bias corrections folded
+ * into the step size): m ← β₁m + (1−β₁)g; v ← β₂v + (1−β₂)g²; θ ← θ − α_t m/(√v + ε),
+ * α_t = α√(1−β₂ᵗ)/(1−β₁ᵗ). Plain loops over Float32Arrays: faster than tensor ops on wasm here.
+ */
+function adamStep(P: Float32Array, M: Float32Array, V: Float32Array, g: Float32Array, lr: number, t: number): void {
+  const at = (lr * Math.sqrt(1 - BETA2 ** t)) / (1 - BETA1 ** t);
+  for (let k = 0; k < P.length; k++) {
+    const gk = g[k]!;
+    const m = (M[k] = BETA1 * M[k]! + (1 - BETA1) * gk);
+    const v = (V[k] = BETA2 * V[k]! + (1 - BETA2) * gk * gk);
+    P[k] = P[k]! - (at * m) / (Math.sqrt(v) + EPS);
+  }
+}
+
 function toF32(x: Float32Array | Float64Array): Float32Array {
   return x instanceof Float32Array ? x : Float32Array.from(x);
 }
@@ -145,11 +160,11 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
   const xt = toF32(train.x);
   const xv = toF32(validation.x);
 
-  let P = tf.tensor1d(initParams(L, o.seed));
-  let M = tf.zeros([L.total]) as tf.Tensor1D;
-  let V = tf.zeros([L.total]) as tf.Tensor1D;
-  let views = makeViews(P, L);
-  let best = tf.clone(P);
+  const P = initParams(L, o.seed);
+  const M = new Float32Array(L.total);
+  const V = new Float32Array(L.total);
+  let views = viewsFromParams(P, L);
+  let best = P.slice();
   let bestLoss = Infinity;
   let bestEpoch = 0;
   let since = 0;
@@ -163,7 +178,7 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
   try {
     for (epoch = 1; epoch <= o.maxEpochs; epoch++) {
       const perm = shuffle.permutation(train.n);
-      let lossAcc = tf.scalar(0);
+      let lossSum = 0;
       for (let s = 0; s < train.n; s += B) {
         const rows = Math.min(B, train.n - s);
         for (let i = 0; i < rows; i++) {
@@ -172,28 +187,21 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
           tb[i] = prep.tTrain[r]!;
         }
         step++;
-        const lrT = (o.learningRate * Math.sqrt(1 - BETA2 ** step)) / (1 - BETA1 ** step);
-        const next = tf.tidy(() => {
-          const X = tf.tensor2d(rows === B ? xb : xb.subarray(0, rows * p), [rows, p]);
-          const fw = forward(X, views, o.activation, true);
-          const { sum, dOut } = lossAndGrad(fw.out, rows === B ? tb : tb.subarray(0, rows), rows, K, prep, o, true);
-          const G = backwardParams(dOut!, fw, views, o.activation);
-          // Adam: m ← β₁m + (1−β₁)g; v ← β₂v + (1−β₂)g²; θ ← θ − α_t m/(√v + ε̂)
-          const m = tf.add(tf.mul(M, BETA1), tf.mul(G, 1 - BETA1));
-          const v = tf.add(tf.mul(V, BETA2), tf.mul(tf.square(G), 1 - BETA2));
-          const np = tf.sub(P, tf.mul(tf.div(m, tf.add(tf.sqrt(v), EPS)), lrT));
-          return { m, v, np, acc: tf.add(lossAcc, sum) };
+        const v0 = views;
+        const res = tf.tidy(() => {
+          const X = tf.tensor2d(rows === B ? xb : xb.slice(0, rows * p), [rows, p]);
+          const fw = forward(X, v0, o.activation, true);
+          const { sum, dOut } = lossAndGrad(fw.out, rows === B ? tb : tb.slice(0, rows), rows, K, prep, o, true);
+          return { G: backwardParams(dOut!, fw, v0, o.activation), sum };
         });
-        tf.dispose([M, V, P, lossAcc]);
-        M = next.m as tf.Tensor1D;
-        V = next.v as tf.Tensor1D;
-        P = next.np as tf.Tensor1D;
-        lossAcc = next.acc as tf.Scalar;
+        const g = res.G.dataSync() as Float32Array;
+        lossSum += res.sum.dataSync()[0]!;
+        adamStep(P, M, V, g, o.learningRate, step);
+        tf.dispose([res.G, res.sum]);
         disposeViews(views);
-        views = makeViews(P, L);
+        views = viewsFromParams(P, L);
       }
-      const trainLoss = lossAcc.dataSync()[0]! / train.n;
-      lossAcc.dispose();
+      const trainLoss = lossSum / train.n;
       const valLoss = validationLoss(validation, xv, prep, views, o, K);
       const rec = { epoch, trainLoss, valLoss };
       history.push(rec);
@@ -204,13 +212,12 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
         bestLoss = valLoss;
         bestEpoch = epoch;
         since = 0;
-        best.dispose();
-        best = tf.clone(P);
+        best = P.slice();
       } else since++;
       onEpoch?.(rec);
       if (since > o.patience) break;
     }
-    const params = Array.from(best.dataSync());
+    const params = Array.from(best);
     return {
       format: 'surmise.network',
       version: 1,
@@ -231,6 +238,5 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
     };
   } finally {
     disposeViews(views);
-    tf.dispose([P, M, V, best]);
   }
 }
