@@ -145,7 +145,7 @@ export class ColumnBuilder {
       this.texts!.push(text);
       return;
     }
-    if (im === 0) {
+    if (im === 0 && 1 / im > 0) {
       this.n--;
       this.addNumber(re);
       if (this.texts) this.texts[this.texts.length - 1] = text;
@@ -165,9 +165,10 @@ export class ColumnBuilder {
 
   private setComplex(i: number, re: number, im: number): void {
     this.re[i] = re;
-    if (im !== 0) {
+    if (im !== 0 || 1 / im < 0) {
+      // a -0 imaginary part is kept (so it round-trips) but does not make the column complex
       if (!this.im) this.im = new Float64Array(this.cap);
-      this.nNonReal++;
+      if (im !== 0) this.nNonReal++;
     }
     if (this.im) this.im[i] = im;
     this.nNumeric++;

@@ -29,8 +29,9 @@ function labelNeedsQuote(s: string): boolean {
   return isMissingText(s) || (s.length > 0 && (s.trim() !== s));
 }
 
-function cellText(c: Column, i: number, sep: string): string {
-  if (c.missing[i]) return '';
+function cellText(c: Column, i: number, sep: string, single: boolean): string {
+  // a lone empty line would read as a blank line: a one-column table writes a missing cell as ""
+  if (c.missing[i]) return single ? '""' : '';
   if (c.kind === 'complex') return formatComplex(c.re[i]!, c.im[i]!);
   if (c.kind === 'label') {
     const s = c.values[i]!;
@@ -90,7 +91,7 @@ export async function writeTable(
       out(cols.map((c) => quoteField(c.name, sep)).join(sep) + '\n');
       for (let i = 0; i < n; i++) {
         let line = '';
-        for (let j = 0; j < cols.length; j++) line += (j ? sep : '') + cellText(cols[j]!, i, sep);
+        for (let j = 0; j < cols.length; j++) line += (j ? sep : '') + cellText(cols[j]!, i, sep, cols.length === 1);
         out(line + '\n');
       }
     } else {
