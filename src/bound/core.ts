@@ -1,4 +1,4 @@
-import { quantilesType7, QUANTILE_DEFINITION } from './quantile.ts';
+import { quantilesType7InPlace, QUANTILE_DEFINITION } from './quantile.ts';
 import { equalCountStrata, type Stratum } from './strata.ts';
 import { topK } from './topk.ts';
 import { slopeInterval } from './trend.ts';
@@ -69,7 +69,7 @@ export function boundArrays(
   const used = new Float64Array(n);
   for (let t = 0; t < n; t++) used[t] = ratio[rows[t]!]!;
   const ps = upper ? UPPER_PROBABILITIES : LOWER_PROBABILITIES;
-  const qv = quantilesType7(used, ps);
+  const qv = quantilesType7InPlace(used, ps); // `used` is our scratch copy
   const quantiles = ps.map((p, i) => ({ p, value: qv[i]! }));
   const notes: string[] = [];
   if (upper && constant <= 0) notes.push(`c* = ${constant} ≤ 0: lhs ≤ 0 on every row used, so lhs ≤ c·rhs holds for every c ≥ ${constant}`);

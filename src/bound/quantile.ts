@@ -13,9 +13,13 @@ export const QUANTILE_DEFINITION =
  * @example quantilesType7(new Float64Array([1, 2, 3, 4]), [0.5]) // [2.5]
  */
 export function quantilesType7(values: Float64Array, ps: readonly number[]): number[] {
-  const n = values.length;
+  return quantilesType7InPlace(Float64Array.from(values), ps);
+}
+
+/** As quantilesType7, but reorders `a` itself instead of a copy (for callers that own a scratch array). */
+export function quantilesType7InPlace(a: Float64Array, ps: readonly number[]): number[] {
+  const n = a.length;
   if (n === 0) throw new RangeError('quantiles of an empty sample');
-  const a = Float64Array.from(values);
   // process probabilities in increasing order so each selection narrows the next range
   const order = ps.map((p, i) => ({ p, i })).sort((u, v) => u.p - v.p);
   const out = new Array<number>(ps.length);
