@@ -2,7 +2,8 @@
  * Bridges to danfo.js DataFrames, for users who already hold one. danfo is imported lazily (it
  * takes about a second to load and pulls in a tfjs copy), so the CLI's start-up does not pay for it.
  * A complex column becomes two DataFrame columns `name.re` / `name.im`, which `fromDataFrame`
- * joins back (the 'auto' pair rule). Missing cells become NaN (numeric) or null (labels).
+ * joins back (the 'auto' pair rule). Missing cells become NaN (numeric) or null (labels); reading a
+ * DataFrame back, NaN and null are missing (danfo has no other missing marker for numbers).
  * Note: danfo keeps numbers as float32 in some operations; these bridges hand it plain JS
  * number arrays and read `.values` back, so no rounding happens here.
  */
@@ -67,8 +68,11 @@ export async function fromDataFrame(
       if (v === null || v === undefined || (typeof v === 'number' && Number.isNaN(v))) {
         missing[i] = 1;
         values[i] = NaN;
-      } else values[i] = Number(v);
-      (records[i] ??= {})[name] = v;
+        (records[i] ??= {})[name] = null;
+      } else {
+        values[i] = Number(v);
+        (records[i] ??= {})[name] = v;
+      }
     }
     let integral = true;
     for (let i = 0; i < n && integral; i++) if (!missing[i] && !Number.isInteger(values[i])) integral = false;
