@@ -1,0 +1,366 @@
+/**
+ * rankFeatures: which inputs predict the target. For every repeat (seed × fold) it standardizes the
+ * inputs on the training rows, trains the network with early stopping on validation rows, scores it
+ * and the two baselines (constant, ridge) on the held-out rows, and runs the asked attribution
+ * methods on (a seeded subsample of) those held-out rows. Each method's group scores are then
+ * aggregated over the repeats (normalised to sum 1, mean, bootstrap interval, Kendall τ-b), and the
+ * headline `ranking` is the consensus of the methods (each repeat's normalised scores averaged
+ * over methods; see consensusRanking). Free of CLI concerns: the CLI and the run stage call it.
+ */
+import type { Table } from '../table/types.ts';
+import { buildDataset, type Dataset, type DropReport } from '../table/dataset.ts';
+import { parseDerive } from '../table/expr/index.ts';
+import { SurmiseError } from '../errors.ts';
+import { deriveSeed, Rng } from '../util/rng.ts';
+import { trainNetwork } from '../learn/train.ts';
+import type { TrainedNetwork } from '../learn/trained.ts';
+import { chooseTask, type Task } from '../learn/options.ts';
+import { fitConstant } from '../learn/constant.ts';
+import { selectRidge } from '../learn/ridge.ts';
+import { evaluate } from '../learn/evaluate.ts';
+import type { TrainData } from '../learn/data.ts';
+import { ATTRIBUTION_METHODS, type AttributionMethod, type FeatureGroup, type RepeatScores } from './types.ts';
+import { attributeRepeat } from './repeat.ts';
+import { aggregateRepeats, consensusRanking, type MethodRanking } from './aggregate.ts';
+import { planRepeats, standardizeRows, type RepeatPlan } from './prepare.ts';
+
+export interface RankOptions {
+  /** Target column or expression. */
+  target: string;
+  features?: string[];
+  exclude?: string[];
+  /** `NAME=EXPR` derived columns, computed in order. */
+  derive?: string[];
+  /** Declared feature groups: name → member features or columns. */
+  groups?: Record<string, string[]>;
+  /** Methods to run; default all four. */
+  methods?: AttributionMethod[];
+  /** Network seeds per split. Default 3. */
+  seeds?: number;
+  /** 0: one random split per seed; K ≥ 2: K-fold. Default 0. */
+  folds?: number;
+  /** random | random:train,validation,test | kfold:K | where:EXPR. Default random (0.7, 0.1, 0.2). */
+  split?: string;
+  task?: Task;
+  /** Hidden layer widths. Default RANK_DEFAULTS.hidden. */
+  hidden?: number[];
+  /** Most training epochs (early stopping may end sooner). Default RANK_DEFAULTS.epochs. */
+  epochs?: number;
+  /** The one seed every other is derived from. Default 1. */
+  seed?: number;
+  /** Retrain without the K best groups and report the skill left. Default 0 (off). */
+  dropTop?: number;
+  /** Held-out rows used for attribution per repeat (seeded subsample). Default 2000. */
+  attributionRows?: number;
+  smoothGradSamples?: number;
+  smoothGradNoise?: number;
+  integratedSteps?: number;
+  permutationRepeats?: number;
+  /** Bootstrap resamples. Default 1000. */
+  resamples?: number;
+  onProgress?: (e: RankProgress) => void;
+}
+
+export interface RankProgress {
+  phase: 'train' | 'attribute' | 'ablation';
+  /** Units done and total (one unit per training epoch budget; see rankFeatures). */
+  done: number;
+  total: number;
+  /** e.g. "seed 2/3, fold 1/5, epoch 14" */
+  message: string;
+}
+
+/** Defaults: measured on the 20,000-row demo census to finish in < 60 s on 2 cores (bench/attribute.ts). */
+export const RANK_DEFAULTS = Object.freeze({
+  seeds: 3,
+  folds: 0,
+  hidden: [64, 64, 64] as readonly number[],
+  epochs: 60,
+  patience: 8,
+  batchSize: 256,
+  learningRate: 2e-3,
+  seed: 1,
+  attributionRows: 2000,
+  smoothGradSamples: 16,
+  smoothGradNoise: 0.15,
+  integratedSteps: 32,
+  permutationRepeats: 5,
+  resamples: 1000,
+});
+
+export interface RankEntry {
+  feature: string;
+  /** Mean normalised score (shares summing to 1 over groups). */
+  score: number;
+  low: number;
+  high: number;
+}
+
+export interface Skill {
+  metric: 'r2' | 'accuracy';
+  /** Mean over repeats, and per repeat. */
+  score: number;
+  perRepeat: number[];
+}
+
+export interface RankResult {
+  target: string;
+  task: Task;
+  features: string[];
+  groups: Array<{ name: string; members: string[] }>;
+  model: Skill & { baselines: { constant: Skill; ridge: Skill }; hidden: number[]; epochsRun: number[] };
+  /** The consensus of the methods run (or the one method), best first. */
+  ranking: RankEntry[];
+  rankingMethod: 'consensus' | AttributionMethod;
+  kendallTau: number | null;
+  methods: Partial<Record<AttributionMethod, { ranking: RankEntry[]; kendallTau: number | null; perRepeat: number[][]; rawPerRepeat: number[][] }>>;
+  /** Integrated gradients: completeness gap per repeat, relative to mean |f(x) − f(baseline)|. */
+  completeness?: Array<{ meanAbsGap: number; maxAbsGap: number; meanAbsDelta: number }>;
+  rows: DropReport;
+  seeds: number[];
+  folds: number;
+  split: string;
+  repeats: Array<{ seed: number; fold: number; train: number; validation: number; test: number; attributed: number }>;
+  interval: { level: number; resamples: number; resampledRows: boolean };
+  ablation?: Ablation;
+}
+
+export interface Ablation {
+  dropped: string[];
+  features: string[];
+  model: Skill;
+  ridge: Skill;
+  constant: Skill;
+  /** The full model's skill on the same repeats, for comparison. */
+  full: Skill;
+}
+
+function checkOptions(o: RankOptions): void {
+  const posInt = (name: string, v: number | undefined, min: number) => {
+    if (v !== undefined && !(Number.isInteger(v) && v >= min)) {
+      throw new SurmiseError('rank.badOption', `expected ${name} to be an integer ≥ ${min}, got ${v}`, { option: name });
+    }
+  };
+  posInt('seeds', o.seeds, 1);
+  posInt('folds', o.folds, 0);
+  if (o.folds === 1) throw new SurmiseError('rank.badOption', 'expected folds to be 0 (one random split) or at least 2, got 1', { option: 'folds' });
+  posInt('epochs', o.epochs, 1);
+  posInt('seed', o.seed, 0);
+  posInt('dropTop', o.dropTop, 0);
+  posInt('attributionRows', o.attributionRows, 2);
+  posInt('smoothGradSamples', o.smoothGradSamples, 1);
+  posInt('integratedSteps', o.integratedSteps, 1);
+  posInt('permutationRepeats', o.permutationRepeats, 1);
+  posInt('resamples', o.resamples, 10);
+  if (o.hidden && !o.hidden.every((h) => Number.isInteger(h) && h >= 1)) {
+    throw new SurmiseError('rank.badOption', `expected hidden to be positive integer layer widths, got ${o.hidden.join(',')}`, { option: 'hidden' });
+  }
+  if (o.smoothGradNoise !== undefined && !(Number.isFinite(o.smoothGradNoise) && o.smoothGradNoise >= 0)) {
+    throw new SurmiseError('rank.badOption', `expected smoothGradNoise to be a number ≥ 0, got ${o.smoothGradNoise}`, { option: 'smoothGradNoise' });
+  }
+  for (const m of o.methods ?? []) {
+    if (!ATTRIBUTION_METHODS.includes(m)) {
+      throw new SurmiseError('rank.unknownMethod', `unknown attribution method '${m}'; expected one of ${ATTRIBUTION_METHODS.join(', ')}`, { option: 'method' });
+    }
+  }
+}
+
+/** Row-major n×p matrix of the given rows and feature columns. */
+function gather(cols: readonly Float64Array[], rows: Int32Array, which: readonly number[]): Float64Array {
+  const p = which.length;
+  const out = new Float64Array(rows.length * p);
+  for (let i = 0; i < rows.length; i++) for (let j = 0; j < p; j++) out[i * p + j] = cols[which[j]!]![rows[i]!]!;
+  return out;
+}
+
+function pick(y: Float64Array, rows: Int32Array): Float64Array {
+  return Float64Array.from(rows, (r) => y[r]!);
+}
+
+function skill(metric: 'r2' | 'accuracy', perRepeat: number[]): Skill {
+  return { metric, score: perRepeat.reduce((a, b) => a + b, 0) / perRepeat.length, perRepeat };
+}
+
+interface RepeatData {
+  plan: RepeatPlan;
+  train: TrainData;
+  validation: TrainData;
+  test: TrainData;
+}
+
+/** Standardized train/validation/test data of one repeat on the feature columns `which`. */
+function repeatData(ds: Dataset, plan: RepeatPlan, which: readonly number[]): RepeatData {
+  const std = standardizeRows(ds.x, plan.train, which);
+  const make = (rows: Int32Array): TrainData => ({ x: std(rows), y: pick(ds.y, rows), n: rows.length, p: which.length });
+  return { plan, train: make(plan.train), validation: make(plan.validation), test: make(plan.test) };
+}
+
+/** Train, score and baseline one repeat. */
+async function fitRepeat(
+  d: RepeatData,
+  task: Task,
+  o: { hidden: number[]; epochs: number; seed: number },
+  onEpoch: (epoch: number) => void,
+): Promise<{ net: TrainedNetwork; score: number; constant: number; ridge: number; epochsRun: number }> {
+  const net = await trainNetwork(
+    d.train,
+    d.validation,
+    { hidden: o.hidden, maxEpochs: o.epochs, patience: RANK_DEFAULTS.patience, batchSize: RANK_DEFAULTS.batchSize, learningRate: RANK_DEFAULTS.learningRate, seed: o.seed, task },
+    (e) => onEpoch(e.epoch),
+  );
+  const score = evaluate(net, d.test).score;
+  const constant = evaluate(fitConstant(d.train.y, task), d.test).score;
+  const ridge = evaluate(selectRidge(d.train, d.validation, task).model, d.test).score;
+  return { net, score, constant, ridge, epochsRun: net.epochs };
+}
+
+/** Seeded subsample of at most `max` of the n held-out rows (all of them when n ≤ max), in row order. */
+function subsample(n: number, max: number, seed: number): Int32Array {
+  if (n <= max) return Int32Array.from({ length: n }, (_, i) => i);
+  return new Rng(seed).permutation(n).subarray(0, max).sort();
+}
+
+function entries(r: MethodRanking): RankEntry[] {
+  return r.order.map((k) => ({ feature: r.groups[k]!, score: r.mean[k]!, low: r.low[k]!, high: r.high[k]! }));
+}
+
+/** Rank the table's features as predictors of the target; see the module comment. */
+export async function rankFeatures(table: Table, options: RankOptions): Promise<RankResult> {
+  checkOptions(options);
+  const seed = options.seed ?? RANK_DEFAULTS.seed;
+  const nSeeds = options.seeds ?? RANK_DEFAULTS.seeds;
+  const folds = options.folds ?? RANK_DEFAULTS.folds;
+  const hidden = [...(options.hidden ?? RANK_DEFAULTS.hidden)];
+  const epochs = options.epochs ?? RANK_DEFAULTS.epochs;
+  const methods = options.methods && options.methods.length ? [...new Set(options.methods)] : [...ATTRIBUTION_METHODS];
+  const attributionRows = options.attributionRows ?? RANK_DEFAULTS.attributionRows;
+  const resamples = options.resamples ?? RANK_DEFAULTS.resamples;
+  const dropTop = options.dropTop ?? 0;
+
+  const ds = buildDataset(table, {
+    target: options.target,
+    features: options.features,
+    exclude: options.exclude,
+    derive: (options.derive ?? []).map((d) => parseDerive(d)),
+    groups: options.groups,
+  });
+  const n = ds.y.length;
+  const p = ds.featureNames.length;
+  if (p === 0) throw new SurmiseError('rank.noFeatures', `no numeric feature columns are left to predict '${options.target}' from`);
+  const groups: FeatureGroup[] = ds.groups.map((g) => ({ name: g.name, members: [...g.members] }));
+  const task: Task = options.task ?? chooseTask(ds.y, ds.targetKind);
+  if (dropTop >= groups.length) {
+    throw new SurmiseError('rank.badOption', `--drop-top ${dropTop} would drop every one of the ${groups.length} feature groups; use at most ${groups.length - 1}`, { option: 'dropTop' });
+  }
+
+  const plans = planRepeats(table, ds, { seed, seeds: nSeeds, folds, split: options.split });
+  const R = plans.length;
+  const all = Array.from({ length: p }, (_, j) => j);
+  const unitsPerRepeat = epochs;
+  const total = R * unitsPerRepeat * (dropTop > 0 ? 2 : 1);
+  const report = (phase: RankProgress['phase'], done: number, message: string) => options.onProgress?.({ phase, done: Math.min(done, total), total, message });
+
+  const byMethod = new Map<AttributionMethod, RepeatScores[]>(methods.map((m) => [m, []]));
+  const netScores: number[] = [];
+  const constScores: number[] = [];
+  const ridgeScores: number[] = [];
+  const epochsRun: number[] = [];
+  const completeness: RankResult['completeness'] = [];
+  const repeatsInfo: RankResult['repeats'] = [];
+  const metric: 'r2' | 'accuracy' = task === 'regression' ? 'r2' : 'accuracy';
+  for (let r = 0; r < R; r++) {
+    const plan = plans[r]!;
+    const d = repeatData(ds, plan, all);
+    const label = plan.label;
+    const fit = await fitRepeat(d, task, { hidden, epochs, seed: plan.seed }, (e) => report('train', r * unitsPerRepeat + e, `${label}, epoch ${e}`));
+    try {
+      netScores.push(fit.score);
+      constScores.push(fit.constant);
+      ridgeScores.push(fit.ridge);
+      epochsRun.push(fit.epochsRun);
+      report('attribute', (r + 1) * unitsPerRepeat, `${label}: attributing`);
+      const rows = subsample(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
+      const xa = new Float64Array(rows.length * p);
+      const ya = new Float64Array(rows.length);
+      rows.forEach((i, k) => {
+        xa.set(d.test.x.subarray(i * p, (i + 1) * p), k * p);
+        ya[k] = d.test.y[i]!;
+      });
+      const att = attributeRepeat(fit.net, xa, ya, rows.length, groups, {
+        methods,
+        seed: deriveSeed(plan.seed, 'attribution'),
+        smoothGradSamples: options.smoothGradSamples ?? RANK_DEFAULTS.smoothGradSamples,
+        smoothGradNoise: options.smoothGradNoise ?? RANK_DEFAULTS.smoothGradNoise,
+        integratedSteps: options.integratedSteps ?? RANK_DEFAULTS.integratedSteps,
+        permutationRepeats: options.permutationRepeats ?? RANK_DEFAULTS.permutationRepeats,
+      });
+      for (const m of methods) byMethod.get(m)!.push(att.scores[m]!);
+      if (att.completeness) completeness.push(att.completeness);
+      repeatsInfo.push({ seed: plan.seed, fold: plan.fold, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length });
+    } finally {
+      fit.net.dispose();
+    }
+  }
+
+  const names = groups.map((g) => g.name);
+  const aggSeed = deriveSeed(seed, 'bootstrap');
+  const perMethod = methods.map((m) => aggregateRepeats(m, names, byMethod.get(m)!, { seed: aggSeed, resamples }));
+  const consensus = methods.length > 1 ? consensusRanking(names, methods.map((m) => byMethod.get(m)!), { seed: aggSeed, resamples }) : perMethod[0]!;
+
+  const result: RankResult = {
+    target: ds.targetName,
+    task,
+    features: [...ds.featureNames],
+    groups: groups.map((g) => ({ name: g.name, members: g.members.map((j) => ds.featureNames[j]!) })),
+    model: {
+      ...skill(metric, netScores),
+      baselines: { constant: skill(metric, constScores), ridge: skill(metric, ridgeScores) },
+      hidden,
+      epochsRun,
+    },
+    ranking: entries(consensus),
+    rankingMethod: methods.length > 1 ? 'consensus' : methods[0]!,
+    kendallTau: consensus.kendallTau,
+    methods: Object.fromEntries(
+      perMethod.map((r) => [r.method, { ranking: entries(r), kendallTau: r.kendallTau, perRepeat: r.perRepeat, rawPerRepeat: r.rawPerRepeat }]),
+    ),
+    rows: ds.drops,
+    seeds: [...new Set(plans.map((q) => q.seed))],
+    folds,
+    split: plans[0]!.spec,
+    repeats: repeatsInfo,
+    interval: { level: consensus.level, resamples: consensus.resamples, resampledRows: consensus.resampledRows },
+  };
+  if (completeness.length) result.completeness = completeness;
+
+  if (dropTop > 0) {
+    const dropped = consensus.order.slice(0, dropTop).map((k) => groups[k]!);
+    const gone = new Set(dropped.flatMap((g) => g.members));
+    const keep = all.filter((j) => !gone.has(j));
+    const s: number[] = [];
+    const c: number[] = [];
+    const rr: number[] = [];
+    for (let r = 0; r < R; r++) {
+      const plan = plans[r]!;
+      const d = repeatData(ds, plan, keep);
+      const base = R * unitsPerRepeat + r * unitsPerRepeat;
+      const fit = await fitRepeat(d, task, { hidden, epochs, seed: deriveSeed(plan.seed, 'ablation') }, (e) =>
+        report('ablation', base + e, `without ${dropped.map((g) => g.name).join(', ')}: ${plan.label}, epoch ${e}`),
+      );
+      fit.net.dispose();
+      s.push(fit.score);
+      c.push(fit.constant);
+      rr.push(fit.ridge);
+    }
+    result.ablation = {
+      dropped: dropped.map((g) => g.name),
+      features: keep.map((j) => ds.featureNames[j]!),
+      model: skill(metric, s),
+      ridge: skill(metric, rr),
+      constant: skill(metric, c),
+      full: skill(metric, netScores),
+    };
+  }
+  report('attribute', total, 'done');
+  return result;
+}
