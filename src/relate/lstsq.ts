@@ -1,11 +1,12 @@
 /**
  * Linear least squares min ‖y − Xβ‖₂ by Householder QR with column pivoting (qr.ts), with the
- * statistics a reader of a regression table expects. Columns are scaled to unit 2-norm before the
- * factorization (column equilibration, Golub & Van Loan §3.5.2): it changes no estimate, only the
- * pivoting and the conditioning the rank test sees; estimates are scaled back afterwards.
+ * statistics a reader of a regression table expects. With an intercept the other columns are
+ * centred; all columns are scaled to unit 2-norm before the factorization. Neither changes the
+ * fitted model; both are undone in the estimates and standard errors, and the condition number
+ * reported is that of the centred, scaled design (the one whose conditioning limits the digits).
  */
 import { kahanSum } from '../util/sum.ts';
-import { pivotedHouseholderQR, backSubstitute, invertUpper, singularValues } from './qr.ts';
+import { pivotedHouseholderQR, backSubstitute, invertUpper, singularValues, tailNorm } from './qr.ts';
 import { studentTQuantile } from './special.ts';
 
 export interface LstsqOptions {
@@ -66,7 +67,7 @@ export interface LstsqResult {
   /** AIC = 2k − 2ℓ, BIC = k ln n − 2ℓ with k = rank + 1 (coefficients and σ²) (Akaike 1974; Schwarz 1978). */
   aic: number;
   bic: number;
-  /** 2-norm condition number σ_max/σ_min of the column-scaled design (singular values of R by Jacobi). */
+  /** 2-norm condition number σ_max/σ_min of the centred (with an intercept), column-scaled design (singular values of R by Jacobi). */
   condition: number;
   illConditioned: boolean;
   collinear: Collinearity[];
@@ -89,18 +90,22 @@ export function lstsq(columns: Float64Array[], y: Float64Array, opts: LstsqOptio
   const p = raw.length;
   for (const c of raw) if (c.length !== n) throw new RangeError('lstsq: every column must have the length of y');
   if (p === 0) throw new RangeError('lstsq: no columns');
-  // column equilibration: unit 2-norm
+  // With an intercept, centre the other columns first: [1, X] and [1, X − 1x̄ᵀ] span the same
+  // space, so the fit is unchanged, but a polynomial or offset column loses its collinearity with
+  // the constant (e.g. Seber & Lee, "Linear Regression Analysis", 2nd ed., §3.11). Then scale
+  // every column to unit 2-norm (column equilibration, Golub & Van Loan §3.5.2).
+  const mean = new Float64Array(p);
   const scale = new Float64Array(p);
   const work: Float64Array[] = raw.map((c, j) => {
-    let m = 0;
-    for (let i = 0; i < n; i++) m = Math.max(m, Math.abs(c[i]!));
-    let s = 0;
-    if (m > 0) for (let i = 0; i < n; i++) { const v = c[i]! / m; s += v * v; }
-    const norm = m * Math.sqrt(s);
-    scale[j] = norm > 0 ? norm : 1;
+    const isOne = intercept && j === 0;
+    const m = intercept && !isOne ? kahanSum(c) / n : 0;
+    mean[j] = m;
     const out = new Float64Array(n);
+    for (let i = 0; i < n; i++) out[i] = c[i]! - m;
+    const norm = tailNorm(out, 0, n);
+    scale[j] = norm > 0 ? norm : 1;
     const f = 1 / scale[j]!;
-    for (let i = 0; i < n; i++) out[i] = c[i]! * f;
+    for (let i = 0; i < n; i++) out[i] = out[i]! * f;
     return out;
   });
   const qr = pivotedHouseholderQR(work, [Float64Array.from(y)], opts.rankTol);
@@ -112,6 +117,8 @@ export function lstsq(columns: Float64Array[], y: Float64Array, opts: LstsqOptio
   const coef = new Float64Array(p);
   const aliased = new Array<boolean>(p).fill(false);
   for (let k = 0; k < rank; k++) coef[piv[k]!] = z[k]! / scale[piv[k]!]!;
+  // undo the centring: β₀ = β₀ᶜ − Σ_j β_j x̄_j
+  if (intercept) for (let j = 1; j < p; j++) coef[0] = coef[0]! - coef[j]! * mean[j]!;
   const collinear: Collinearity[] = [];
   for (let k = rank; k < p; k++) {
     aliased[piv[k]!] = true;
@@ -120,10 +127,19 @@ export function lstsq(columns: Float64Array[], y: Float64Array, opts: LstsqOptio
     for (let i = 0; i < rank; i++) rhs[i] = r[i * p + k]!;
     const w = backSubstitute(r, p, rank, rhs);
     const of: Array<{ term: string; coef: number }> = [];
+    // x_k − x̄_k = Σ_i w'_i (x_i − x̄_i) with w'_i = w_i s_k / s_i; the constant collects the means
+    const jk = piv[k]!;
+    let constant = mean[jk]!;
     for (let i = 0; i < rank; i++) {
-      const c = (w[i]! * scale[piv[k]!]!) / scale[piv[i]!]!;
-      if (Math.abs(w[i]!) > 1e-8) of.push({ term: names[piv[i]!]!, coef: c });
+      const ji = piv[i]!;
+      const c = (w[i]! * scale[jk]!) / scale[ji]!;
+      if (intercept && ji === 0) constant += c;
+      else {
+        constant -= c * mean[ji]!;
+        if (Math.abs(w[i]!) > 1e-8) of.push({ term: names[ji]!, coef: c });
+      }
     }
+    if (intercept && Math.abs(constant) > 1e-8 * Math.max(1, Math.abs(mean[jk]!))) of.unshift({ term: '1', coef: constant });
     collinear.push({ term: names[piv[k]!]!, of });
   }
   if (collinear.length > 0) {
@@ -159,14 +175,25 @@ export function lstsq(columns: Float64Array[], y: Float64Array, opts: LstsqOptio
   const rss = kahanSum(sq);
   const df = n - rank;
   const sigma2 = df > 0 ? rss / df : NaN;
-  // covariance diagonal: σ̂² Σ_k (R⁻¹)_{jk}² on the scaled, pivoted columns
+  // standard errors: β = A z with z the coefficients of the scaled, centred, pivoted columns, and
+  // Cov(z) = σ̂² R⁻¹R⁻ᵀ, so Var(β_j) = σ̂² ‖R⁻ᵀ a_j‖² (a_j the row of A for β_j)
   const se = new Float64Array(p).fill(NaN);
   if (rank > 0) {
-    const rinv = invertUpper(r, p, rank);
-    for (let i = 0; i < rank; i++) {
-      let s = 0;
-      for (let k = i; k < rank; k++) s += rinv[i * rank + k]! ** 2;
-      se[piv[i]!] = Math.sqrt(sigma2 * s) / scale[piv[i]!]!;
+    const g = invertUpper(r, p, rank);
+    const posOf = new Int32Array(p).fill(-1);
+    for (let k = 0; k < rank; k++) posOf[piv[k]!] = k;
+    for (let j = 0; j < p; j++) {
+      if (posOf[j]! < 0) continue;
+      const a = new Float64Array(rank);
+      a[posOf[j]!] = 1 / scale[j]!;
+      if (intercept && j === 0) for (let i = 1; i < p; i++) if (posOf[i]! >= 0) a[posOf[i]!] = a[posOf[i]!]! - mean[i]! / scale[i]!;
+      let s2 = 0;
+      for (let l = 0; l < rank; l++) {
+        let t = 0;
+        for (let k = 0; k <= l; k++) t += g[k * rank + l]! * a[k]!;
+        s2 += t * t;
+      }
+      se[j] = Math.sqrt(sigma2 * s2);
     }
   }
   const tq = df > 0 ? studentTQuantile((1 + level) / 2, df) : NaN;

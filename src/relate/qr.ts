@@ -33,25 +33,23 @@ export function pivotedHouseholderQR(cols: Float64Array[], rhs: Float64Array[], 
   for (let j = 0; j < p; j++) piv[j] = j;
   const a = cols.slice();
   const r = new Float64Array(p * p);
-  const norms = new Float64Array(p);
+  // column norms of the trailing part, downdated after each step and recomputed when
+  // cancellation threatens (LAPACK xLAQP2; Drmač & Bujanović, SIAM J. Matrix Anal. Appl. 29, 2008)
+  const vn1 = new Float64Array(p);
+  const vn2 = new Float64Array(p);
+  for (let j = 0; j < p; j++) vn1[j] = vn2[j] = tailNorm(a[j]!, 0, n);
+  const tol3z = Math.sqrt(2.220446049250313e-16);
   let r00 = 0;
   let rank = p;
   for (let k = 0; k < p; k++) {
-    // pivot: the remaining column with the largest norm below row k (recomputed: p is small)
+    // pivot: the remaining column with the largest trailing norm
     let best = k;
-    let bestNorm = -1;
-    for (let j = k; j < p; j++) {
-      const col = a[j]!;
-      let scale = 0;
-      for (let i = k; i < n; i++) scale = Math.max(scale, Math.abs(col[i]!));
-      let s = 0;
-      if (scale > 0) for (let i = k; i < n; i++) { const v = col[i]! / scale; s += v * v; }
-      norms[j] = scale * Math.sqrt(s);
-      if (norms[j]! > bestNorm) { bestNorm = norms[j]!; best = j; }
-    }
+    for (let j = k + 1; j < p; j++) if (vn1[j]! > vn1[best]!) best = j;
     if (best !== k) {
       [a[k], a[best]] = [a[best]!, a[k]!];
       [piv[k], piv[best]] = [piv[best]!, piv[k]!];
+      [vn1[k], vn1[best]] = [vn1[best]!, vn1[k]!];
+      [vn2[k], vn2[best]] = [vn2[best]!, vn2[k]!];
       for (let i = 0; i < k; i++) {
         const t = r[i * p + k]!;
         r[i * p + k] = r[i * p + best]!;
@@ -59,7 +57,7 @@ export function pivotedHouseholderQR(cols: Float64Array[], rhs: Float64Array[], 
       }
     }
     const v = a[k]!;
-    const normK = bestNorm;
+    const normK = tailNorm(v, k, n); // exact norm of the pivot column (the downdated one only chose it)
     if (k === 0) r00 = normK;
     if (normK <= tol * r00 || normK === 0) {
       if (rank === p) rank = k;
@@ -82,10 +80,34 @@ export function pivotedHouseholderQR(cols: Float64Array[], rhs: Float64Array[], 
       for (let i = k; i < n; i++) w[i] = w[i]! - f * v[i]!;
       return w[k]!;
     };
-    for (let j = k + 1; j < p; j++) r[k * p + j] = apply(a[j]!);
+    for (let j = k + 1; j < p; j++) {
+      const rkj = apply(a[j]!);
+      r[k * p + j] = rkj;
+      if (vn1[j]! !== 0) {
+        let t = 1 - (Math.abs(rkj) / vn1[j]!) ** 2;
+        t = Math.max(t, 0);
+        const t2 = t * (vn1[j]! / vn2[j]!) ** 2;
+        if (t2 <= tol3z) {
+          vn1[j] = vn2[j] = tailNorm(a[j]!, k + 1, n);
+        } else vn1[j] = vn1[j]! * Math.sqrt(t);
+      }
+    }
     for (const y of rhs) apply(y);
   }
   return { n, p, r, piv, qty: rhs, rank, rankTol: tol };
+}
+
+/** ‖col[from:to]‖₂, by a plain sum of squares, rescaled only when it over- or underflows. */
+export function tailNorm(col: Float64Array, from: number, to: number): number {
+  let s = 0;
+  for (let i = from; i < to; i++) s += col[i]! * col[i]!;
+  if (s > 1e-280 && s < 1e280) return Math.sqrt(s);
+  let scale = 0;
+  for (let i = from; i < to; i++) scale = Math.max(scale, Math.abs(col[i]!));
+  if (scale === 0 || !Number.isFinite(scale)) return scale;
+  s = 0;
+  for (let i = from; i < to; i++) { const w = col[i]! / scale; s += w * w; }
+  return scale * Math.sqrt(s);
 }
 
 /** Solve R[0:m,0:m] z = b[0:m] by back substitution (R row-major p×p). */
