@@ -1,14 +1,18 @@
 import type { Command } from 'commander';
+import { resolve } from 'node:path';
 import type { CliIO } from './io.ts';
-import { SurmiseError } from '../errors.ts';
+import { readRunResults } from '../run/rerun.ts';
+import { compareRuns, formatComparison } from '../run/compare.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerCompare(program: Command, _io: CliIO): void {
+export function registerCompare(program: Command, io: CliIO): void {
   program
     .command('compare')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'compare' command is not built yet");
+    .description('show side by side how rankings, fitted coefficients and bound constants moved between two runs')
+    .argument('<run-a>', 'the earlier run folder')
+    .argument('<run-b>', 'the later run folder')
+    .option('--json', 'print the comparison as one JSON object')
+    .action((a: string, b: string, o: { json?: boolean }) => {
+      const c = compareRuns(readRunResults(resolve(io.cwd, a)), readRunResults(resolve(io.cwd, b)));
+      io.stdout(o.json ? JSON.stringify(c) + '\n' : formatComparison(c));
     });
 }

@@ -1,14 +1,32 @@
 import type { Command } from 'commander';
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import type { CliIO } from './io.ts';
-import { SurmiseError } from '../errors.ts';
+import { loadConfig } from '../run/config.ts';
+import { runWithProgress } from './run-shared.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerDemo(program: Command, _io: CliIO): void {
+/** The bundled configuration; its table is the bundled demo census. */
+export const DEMO_CONFIG = fileURLToPath(new URL('../../configs/demo.yaml', import.meta.url));
+
+/** A fresh folder name: `base`, else `base-2`, `base-3`, … (the demo never replaces anything). */
+function freshFolder(base: string): string {
+  if (!existsSync(base)) return base;
+  for (let k = 2; ; k++) if (!existsSync(`${base}-${k}`)) return `${base}-${k}`;
+}
+
+export function registerDemo(program: Command, io: CliIO): void {
   program
     .command('demo')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'demo' command is not built yet");
+    .description('run configs/demo.yaml on the bundled demo census and print the path of the report')
+    .option('--out <dir>', 'run folder (default: a new surmise-demo folder in the current directory)')
+    .option('--force', 'replace an existing --out folder')
+    .option('--json', 'print the run folder and files as one JSON object')
+    .option('--no-progress', 'no progress on stderr')
+    .action(async (o: { out?: string; force?: boolean; json?: boolean; progress: boolean }) => {
+      const loaded = loadConfig(DEMO_CONFIG);
+      loaded.path = 'configs/demo.yaml';
+      const out = o.out ? resolve(io.cwd, o.out) : freshFolder(resolve(io.cwd, 'surmise-demo'));
+      await runWithProgress(io, loaded, { ...o, out });
     });
 }

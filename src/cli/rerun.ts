@@ -1,14 +1,25 @@
 import type { Command } from 'commander';
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
 import type { CliIO } from './io.ts';
-import { SurmiseError } from '../errors.ts';
+import { rerunFromFolder } from '../run/rerun.ts';
+import { runWithProgress } from './run-shared.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerRerun(program: Command, _io: CliIO): void {
+export function registerRerun(program: Command, io: CliIO): void {
   program
     .command('rerun')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'rerun' command is not built yet");
+    .description("repeat a run's resolved configuration (same seeds, same analysis) on a new table")
+    .argument('<run-dir>', 'an earlier run folder')
+    .requiredOption('--table <file>', 'the new table')
+    .option('--out <dir>', 'run folder (default: <run-dir>-rerun, or -rerun-2, … if taken)')
+    .option('--force', 'replace an existing --out folder')
+    .option('--json', 'print the run folder and files as one JSON object')
+    .option('--no-progress', 'no progress on stderr')
+    .action(async (runDir: string, o: { table: string; out?: string; force?: boolean; json?: boolean; progress: boolean }) => {
+      const dir = resolve(io.cwd, runDir);
+      const loaded = rerunFromFolder(dir, o.table, io.cwd);
+      let out = o.out ? resolve(io.cwd, o.out) : `${dir.replace(/[\\/]+$/, '')}-rerun`;
+      if (!o.out) for (let k = 2; existsSync(out); k++) out = `${dir.replace(/[\\/]+$/, '')}-rerun-${k}`;
+      await runWithProgress(io, loaded, { ...o, out });
     });
 }

@@ -1,14 +1,21 @@
 import type { Command } from 'commander';
+import { resolve } from 'node:path';
 import type { CliIO } from './io.ts';
-import { SurmiseError } from '../errors.ts';
+import { loadConfig } from '../run/config.ts';
+import { runWithProgress } from './run-shared.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerRun(program: Command, _io: CliIO): void {
+export function registerRun(program: Command, io: CliIO): void {
   program
     .command('run')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'run' command is not built yet");
+    .description('run the whole analysis described by a configuration file and write a run folder')
+    .argument('<config>', 'YAML configuration (see the README for every key)')
+    .option('--out <dir>', 'run folder (default: the configuration\'s output)')
+    .option('--force', 'replace an existing run folder')
+    .option('--json', 'print the run folder and files as one JSON object')
+    .option('--no-progress', 'no progress on stderr')
+    .action(async (config: string, o: { out?: string; force?: boolean; json?: boolean; progress: boolean }) => {
+      const loaded = loadConfig(resolve(io.cwd, config));
+      loaded.path = config;
+      await runWithProgress(io, loaded, { ...o, ...(o.out ? { out: resolve(io.cwd, o.out) } : {}) });
     });
 }

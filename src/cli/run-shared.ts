@@ -1,0 +1,31 @@
+import type { CliIO } from './io.ts';
+import type { LoadedConfig } from '../run/config.ts';
+import { executeRun, type RunOutcome } from '../run/run.ts';
+import { makeProgress } from './progress.ts';
+
+/** Run with stage lines and a training progress bar on stderr; print the report's path on stdout. */
+export async function runWithProgress(
+  io: CliIO,
+  loaded: LoadedConfig,
+  o: { out?: string; force?: boolean; progress: boolean; json?: boolean },
+): Promise<RunOutcome> {
+  const bar = makeProgress(io, 'training', o.progress);
+  const outcome = await executeRun(loaded, {
+    ...(o.out ? { out: o.out } : {}),
+    force: o.force ?? false,
+    onStage: (m) => {
+      bar.stop();
+      if (o.progress) io.stderr(`surmise: ${m}\n`);
+    },
+    onRankProgress: (e) => bar.update(e.done, e.total, e.message),
+  });
+  bar.stop();
+  const t = outcome.results.timings;
+  if (o.json) {
+    io.stdout(JSON.stringify({ outDir: outcome.outDir, report: `${outcome.outDir}/report.html`, files: outcome.files, timings: t }) + '\n');
+  } else {
+    io.stdout(`${outcome.outDir}/report.html\n`);
+    if (o.progress) io.stderr(`surmise: done in ${t.total} s (report also as report.md; everything in results.json)\n`);
+  }
+  return outcome;
+}

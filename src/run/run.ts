@@ -1,0 +1,366 @@
+/**
+ * The whole analysis from one configuration: read the table, derive columns, rank the inputs,
+ * fit and search relations, test bounds, render the report, and write the run folder (staged and
+ * renamed into place, so an interrupted run leaves nothing half-written).
+ */
+import { createHash } from 'node:crypto';
+import { createReadStream, readFileSync } from 'node:fs';
+import { stringify } from 'yaml';
+import { SurmiseError } from '../errors.ts';
+import { VERSION } from '../version.ts';
+import { deriveColumn, evaluateExpression, readTable, type Table } from '../table/index.ts';
+import { rankFeatures, type RankProgress, type RankResult } from '../attribute/rank.ts';
+import { fitRelation, type FitResult } from '../relate/fit.ts';
+import { searchRelations, type SearchResult } from '../relate/search.ts';
+import { findBound, type BoundResult } from '../bound/find.ts';
+import { renderReport, sampleIndices, type ReportInput } from '../report/index.ts';
+import type { RunConfig, LoadedConfig } from './config.ts';
+import { checkRunFolder, writeRunFolder, type OutputFile } from './folder.ts';
+
+/** Points drawn in a scatter plot at most (a seeded sample beyond that; the plot says so). */
+const MAX_POINTS = 5_000;
+
+export interface RunOptions {
+  /** Run folder; default the configuration's `output`. */
+  out?: string;
+  force?: boolean;
+  /** Stage messages ("reading table", …). */
+  onStage?: (message: string) => void;
+  /** Training/attribution progress. */
+  onRankProgress?: (e: RankProgress) => void;
+  /** Called when the search screens subsets. */
+  onSearchProgress?: (done: number, total: number) => void;
+}
+
+export interface RunResults {
+  format: 'surmise-run';
+  formatVersion: 1;
+  tool: { name: 'surmise'; version: string };
+  node: string;
+  dependencies: Record<string, string>;
+  createdAt: string;
+  configFile: string;
+  config: RunConfig;
+  input: { path: string; sha256: string; bytes: number; rows: number; columns: string[] };
+  rows: RankResult['rows'] | null;
+  seeds: { seed: number; networks: number[] };
+  timings: Record<string, number>;
+  rank: RankResult | null;
+  fits: FitResult[];
+  search: SearchResult | null;
+  bounds: BoundResult[];
+  evidence: string;
+}
+
+export interface RunOutcome {
+  outDir: string;
+  results: RunResults;
+  files: string[];
+}
+
+/** SHA-256 of a file, streamed. */
+export async function sha256File(path: string): Promise<{ sha256: string; bytes: number }> {
+  const h = createHash('sha256');
+  let bytes = 0;
+  await new Promise<void>((resolveP, reject) => {
+    createReadStream(path)
+      .on('data', (c) => {
+        bytes += (c as Buffer).length;
+        h.update(c);
+      })
+      .on('error', reject)
+      .on('end', () => resolveP());
+  });
+  return { sha256: h.digest('hex'), bytes };
+}
+
+const DEPENDENCIES = ['@tensorflow/tfjs', '@tensorflow/tfjs-backend-wasm', 'vega', 'vega-lite', '@resvg/resvg-js', 'yaml', 'zod', 'commander', 'papaparse', 'danfojs-node'];
+
+function dependencyVersions(): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const d of DEPENDENCIES) {
+    try {
+      const url = new URL(`../../node_modules/${d}/package.json`, import.meta.url);
+      out[d] = (JSON.parse(readFileSync(url, 'utf8')) as { version: string }).version;
+    } catch {
+      out[d] = 'unknown';
+    }
+  }
+  return out;
+}
+
+function seconds(t0: number): number {
+  return Math.round((performance.now() - t0) / 10) / 100;
+}
+
+/** Values of an expression on the given rows, real part (NaN where missing). */
+function realValues(table: Table, source: string): Float64Array {
+  const v = evaluateExpression(table, source);
+  const out = new Float64Array(v.re.length);
+  for (let i = 0; i < out.length; i++) out[i] = v.missing[i] ? NaN : v.re[i]!;
+  return out;
+}
+
+/** Expression for a ranked feature group: a complex column is plotted through its real part. */
+function featureExpression(table: Table, name: string): string | null {
+  const col = table.columns.find((c) => c.name === name);
+  if (!col || col.kind === 'label') return null;
+  const q = /^[A-Za-z_][A-Za-z0-9_.]*$/.test(name) ? name : `\`${name.replace(/`/g, '')}\``;
+  return col.kind === 'complex' ? `abs(${q})` : q;
+}
+
+function pick(values: Float64Array, idx: Int32Array): number[] {
+  return Array.from(idx, (i) => values[i]!);
+}
+
+/** Finite rows of all arrays, then a seeded sample of at most MAX_POINTS of them. */
+function finiteSample(arrays: Float64Array[], seed: number): { idx: Int32Array; from: number } {
+  const n = arrays[0]!.length;
+  const ok: number[] = [];
+  for (let i = 0; i < n; i++) if (arrays.every((a) => Number.isFinite(a[i]!))) ok.push(i);
+  if (ok.length <= MAX_POINTS) return { idx: Int32Array.from(ok), from: ok.length };
+  const s = sampleIndices(ok.length, MAX_POINTS, seed);
+  return { idx: Int32Array.from(s, (k) => ok[k]!), from: ok.length };
+}
+
+function buildReportInput(
+  results: RunResults,
+  table: Table,
+  configText: string,
+): ReportInput {
+  const { config, rank, fits, search, bounds } = results;
+  const input: ReportInput = {
+    title: `surmise: what predicts ${config.target}`,
+    createdAt: results.createdAt,
+    tool: { name: 'surmise', version: VERSION },
+    input: { path: results.input.path, sha256: results.input.sha256, rows: results.input.rows },
+    configText,
+  };
+  if (rank) {
+    input.drops = rank.rows;
+    const methods: NonNullable<ReportInput['rank']>['methods'] = {};
+    for (const [m, r] of Object.entries(rank.methods)) {
+      if (r) methods[m] = { ranking: r.ranking, kendallTau: r.kendallTau ?? NaN };
+    }
+    input.rank = {
+      target: rank.target,
+      task: rank.task,
+      model: { metric: rank.model.metric, score: rank.model.score, baselines: { constant: rank.model.baselines.constant.score, ridge: rank.model.baselines.ridge.score } },
+      methods,
+      ranking: rank.ranking,
+    };
+    const preds = (rank as RankResult & { predictions?: { actual: number[]; predicted: number[] } }).predictions;
+    if (preds) input.rank.predictions = preds;
+    // target against the top feature, coloured by the second
+    const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
+    if (top.length >= 1) {
+      const y = realValues(table, config.target);
+      const x = realValues(table, top[0]!);
+      const c = top.length >= 2 ? realValues(table, top[1]!) : null;
+      const { idx, from } = finiteSample(c ? [x, y, c] : [x, y], config.seed);
+      input.scatter = {
+        x: pick(x, idx),
+        y: pick(y, idx),
+        xName: top[0]!,
+        yName: config.target,
+        ...(c ? { color: pick(c, idx), colorName: top[1]! } : {}),
+        ...(from > idx.length ? { sampledFrom: from } : {}),
+      };
+    }
+  }
+  if (fits.length) {
+    input.fits = fits.map((f) => {
+      const termCols = f.terms.filter((t) => t.term !== '1').map((t) => ({ term: t.term, v: realValues(table, t.term) }));
+      const y = realValues(table, f.target);
+      const resid = new Float64Array(y.length);
+      const icpt = f.terms.find((t) => t.term === '1')?.coef ?? 0;
+      for (let i = 0; i < y.length; i++) {
+        let s = icpt;
+        for (const tc of termCols) s += f.terms.find((t) => t.term === tc.term)!.coef * tc.v[i]!;
+        resid[i] = y[i]! - s;
+      }
+      const { idx } = finiteSample([resid, ...termCols.map((t) => t.v)], config.seed);
+      return {
+        target: f.target,
+        n: f.n,
+        r2: f.r2,
+        rmse: f.rmse,
+        cvRmse: f.cvRmse,
+        terms: f.terms.map((t) => ({ term: t.term, coef: t.coef, se: t.se, low: t.low, high: t.high, rational: t.rational ? { text: t.rational.text } : null })),
+        warnings: f.warnings,
+        residuals: { byTerm: termCols.map((t) => ({ term: t.term, x: pick(t.v, idx) })), residual: pick(resid, idx) },
+      };
+    });
+  }
+  if (search) {
+    const conv = (c: SearchResult['candidates'][number]) => ({ terms: c.terms, coefs: c.coefs, heldOutRmse: c.heldOutRmse, complexity: c.complexity });
+    input.search = { candidates: search.candidates.map(conv), front: search.front.map(conv), mode: search.mode };
+  }
+  if (bounds.length) {
+    input.bounds = bounds.map((b) => {
+      const lhs = realValues(table, b.lhs);
+      return {
+        lhs: b.lhs,
+        ...(b.by ? { by: b.by } : {}),
+        results: b.results.map((r) => {
+          const rhs = realValues(table, r.rhs);
+          const by = realValues(table, r.by);
+          const ratio = new Float64Array(lhs.length);
+          for (let i = 0; i < ratio.length; i++) ratio[i] = rhs[i]! > 0 ? lhs[i]! / rhs[i]! : NaN;
+          const { idx } = finiteSample([ratio, by], config.seed);
+          const quantiles: Record<string, number> = {};
+          for (const q of r.quantiles) quantiles[`${Number((q.p * 100).toPrecision(4))}%`] = q.value;
+          return {
+            rhs: r.rhs,
+            constant: r.constant,
+            witnesses: r.witnesses.map((w) => ({
+              row: w.row,
+              lhs: w.lhs,
+              rhs: w.rhs,
+              ratio: w.ratio,
+              labels: Object.fromEntries(Object.entries(w.labels).map(([k, v]) => [k, v === null ? '' : String(v)])),
+            })),
+            quantiles,
+            strata: r.strata.map((s) => ({ low: s.low, high: s.high, n: s.n, constant: s.constant })),
+            trend: r.trend && r.trend.slope !== null && r.trend.low !== null && r.trend.high !== null
+              ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, verdict: r.trend.verdict }
+              : null,
+            points: { by: pick(by, idx), ratio: pick(ratio, idx) },
+          };
+        }),
+      };
+    });
+  }
+  return input;
+}
+
+function parsePowers(s: string): [number, number] {
+  const [a, b] = s.split('..').map(Number);
+  if (!Number.isInteger(a) || !Number.isInteger(b) || a! > b!) {
+    throw new SurmiseError('config.badValue', `search.powers: expected a range lo..hi with lo ≤ hi, got '${s}'`);
+  }
+  return [a!, b!];
+}
+
+/** Run every stage of `loaded` and write the run folder. */
+export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): Promise<RunOutcome> {
+  const { config } = loaded;
+  const outDir = opts.out ?? config.output;
+  checkRunFolder(outDir, opts.force ?? false);
+  const stage = opts.onStage ?? (() => {});
+  const timings: Record<string, number> = {};
+  const tAll = performance.now();
+
+  stage(`reading ${config.table}`);
+  let t0 = performance.now();
+  const table = await readTable(config.table, {
+    ...(config.format ? { format: config.format } : {}),
+    kinds: config.kinds,
+  });
+  const { sha256, bytes } = await sha256File(config.table);
+  const inputColumns = table.columns.map((c) => c.name);
+  for (const [name, source] of Object.entries(config.derive)) {
+    if (table.columns.some((c) => c.name === name)) {
+      throw new SurmiseError('config.badValue', `derive.${name}: the table already has a column '${name}'`);
+    }
+    table.columns.push(deriveColumn(table, name, source));
+  }
+  timings.read = seconds(t0);
+
+  stage('learning and attribution');
+  t0 = performance.now();
+  const rank = await rankFeatures(table, {
+    target: config.target,
+    ...(config.features ? { features: config.features } : {}),
+    exclude: config.exclude,
+    groups: config.groups,
+    methods: config.attribution.methods,
+    seeds: config.attribution.seeds,
+    folds: config.attribution.folds,
+    split: config.split,
+    ...(config.network.task !== 'auto' ? { task: config.network.task } : {}),
+    hidden: config.network.hidden,
+    epochs: config.network.epochs,
+    seed: config.seed,
+    dropTop: config.attribution.dropTop,
+    ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
+  });
+  timings.rank = seconds(t0);
+
+  stage('fitting relations');
+  t0 = performance.now();
+  const fits = config.fits.map((f) => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed }));
+  timings.fit = seconds(t0);
+
+  let search: SearchResult | null = null;
+  if (config.search) {
+    stage('searching formulas');
+    t0 = performance.now();
+    search = searchRelations(table, {
+      target: config.search.target,
+      from: config.search.from,
+      maxTerms: config.search.maxTerms,
+      powers: parsePowers(config.search.powers),
+      top: config.search.top,
+      seed: config.seed,
+      ...(opts.onSearchProgress ? { progress: opts.onSearchProgress } : {}),
+    });
+    timings.search = seconds(t0);
+  }
+
+  stage('testing bounds');
+  t0 = performance.now();
+  const bounds = config.bounds.map((b) =>
+    findBound(table, { lhs: b.lhs, rhs: b.rhs, ...(b.by ? { by: b.by } : {}), bins: b.bins, top: b.top, skipInvalid: b.skipInvalid }),
+  );
+  timings.bound = seconds(t0);
+
+  const configText = stringify({ ...config, table: config.table, output: outDir });
+  const results: RunResults = {
+    format: 'surmise-run',
+    formatVersion: 1,
+    tool: { name: 'surmise', version: VERSION },
+    node: process.version,
+    dependencies: dependencyVersions(),
+    createdAt: new Date().toISOString(),
+    configFile: loaded.path,
+    config,
+    input: { path: config.table, sha256, bytes, rows: table.nRows, columns: inputColumns },
+    rows: rank.rows,
+    seeds: { seed: config.seed, networks: rank.seeds },
+    timings,
+    rank,
+    fits,
+    search,
+    bounds,
+    evidence: 'These findings are statistical evidence on this table, not a proof.',
+  };
+
+  stage('rendering the report');
+  t0 = performance.now();
+  const reportInput = buildReportInput(results, table, configText);
+  const rendered = await renderReport(reportInput);
+  timings.report = seconds(t0);
+  timings.total = seconds(tAll);
+
+  const files: OutputFile[] = [
+    { path: 'results.json', data: JSON.stringify(results, jsonReplacer, 2) + '\n' },
+    { path: 'report.html', data: rendered.html },
+    { path: 'report.md', data: rendered.markdown },
+    { path: 'config.yaml', data: configText },
+  ];
+  for (const p of rendered.plots) {
+    files.push({ path: `plots/${p.name}.svg`, data: p.svg });
+    if (p.png.length) files.push({ path: `plots/${p.name}.png`, data: p.png });
+  }
+  stage(`writing ${outDir}`);
+  writeRunFolder(outDir, files, opts.force ?? false);
+  return { outDir, results, files: files.map((f) => f.path) };
+}
+
+/** JSON has no NaN or ±Infinity: write them as strings so nothing is silently turned into null. */
+export function jsonReplacer(_key: string, value: unknown): unknown {
+  if (typeof value === 'number' && !Number.isFinite(value)) return String(value);
+  if (ArrayBuffer.isView(value) && !(value instanceof DataView)) return Array.from(value as unknown as ArrayLike<number>);
+  return value;
+}
