@@ -2,7 +2,7 @@ import type { Block, Inline } from './doc.ts';
 import type { ReportInput, Interval } from './types.ts';
 import type { PlotPlan } from './plan.ts';
 import { formatCount, formatInterval, formatNumber } from './format.ts';
-import { candidateEquation, equation, metricDirection, metricLabel, trendGrows } from './words.ts';
+import { candidateExpression, equation, metricDirection, metricLabel, trendGrows } from './words.ts';
 import { attributionSpec } from './plots/attribution.ts';
 import { scatterSpec } from './plots/scatter.ts';
 import { predictionSpec } from './plots/predictions.ts';
@@ -163,7 +163,7 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
       ]),
       numeric: [false, true, true, false, false],
     });
-    if (f.warnings.length > 0) out.push({ kind: 'list', items: f.warnings.map((w) => [{ text: 'Warning: ', strong: true }, w]) });
+    if (f.warnings.length > 0) out.push({ kind: 'list', items: f.warnings.map((w) => [{ text: 'Warning:', strong: true }, ' ', w]) });
     const res = f.residuals;
     if (res) {
       res.byTerm.forEach((bt, k) => {
@@ -178,7 +178,6 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
     }
   });
   if (search) {
-    const target = input.rank?.target ?? fits[0]?.target ?? 'target';
     out.push({ kind: 'heading', level: 3, text: 'Formula search' });
     out.push({
       kind: 'paragraph',
@@ -191,12 +190,22 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
     const front = [...search.front].sort((a, b) => a.complexity - b.complexity || a.heldOutRmse - b.heldOutRmse);
     out.push({
       kind: 'table',
-      header: ['complexity', 'held-out RMSE', 'formula'],
-      rows: front.map((c) => [String(c.complexity), n4(c.heldOutRmse), { text: candidateEquation(target, c.terms, c.coefs), code: true }]),
+      header: ['complexity', 'held-out RMSE', 'fitted right-hand side'],
+      rows: front.map((c) => [String(c.complexity), n4(c.heldOutRmse), { text: candidateExpression(c.terms, c.coefs), code: true }]),
       numeric: [true, true, false],
     });
   }
   return out;
+}
+
+/**
+ * Quantile entries in increasing order of level when every key is a number (an object's integer
+ * keys such as '1' would otherwise come first), else in the order given.
+ */
+function orderQuantiles(q: Record<string, number>): Array<[string, number]> {
+  const e = Object.entries(q);
+  const level = (k: string) => Number(k.replace(/^[qp]/i, '').replace(/%$/, ''));
+  return e.every(([k]) => Number.isFinite(level(k))) ? e.sort((a, b) => level(a[0]) - level(b[0])) : e;
 }
 
 /** Each bound: constant, quantiles, strata, trend, witness rows and the ratio plot. */
@@ -216,7 +225,7 @@ export function boundsSection(input: ReportInput, plan: PlotPlan, set: SectionSe
           '.',
         ],
       });
-      const q = Object.entries(r.quantiles);
+      const q = orderQuantiles(r.quantiles);
       if (q.length > 0) {
         out.push({ kind: 'paragraph', parts: ['Quantiles of the ratio over the rows:'] });
         out.push({ kind: 'table', header: ['quantile', 'ratio'], rows: q.map(([k, v]) => [k, n4(v)]), numeric: [false, true] });

@@ -1,7 +1,7 @@
 import type { Block, Inline } from './doc.ts';
 import type { ReportInput } from './types.ts';
 import { formatInterval, formatNumber } from './format.ts';
-import { compareScore, equation, metricDirection, metricLabel, trendGrows, witnessLabels } from './words.ts';
+import { candidateExpression, compareScore, equation, metricDirection, metricLabel, trendGrows, witnessLabels } from './words.ts';
 
 /** The sentence every report carries after its summary. */
 export const EVIDENCE_SENTENCE = 'These findings are statistical evidence on this table, not a proof.';
@@ -27,11 +27,8 @@ export function summaryBlocks(input: ReportInput): Block[] {
       parts.push('.');
       if (top.length > 1) {
         const rest = Math.max(...top.slice(1).map((f) => f.high));
-        parts.push(
-          top[0]!.low > rest
-            ? ` ${top[0]!.feature} is clearly ahead: its interval lies above every other one.`
-            : ` The intervals of the leading quantities overlap, so their order is not settled.`,
-        );
+        if (top[0]!.low > rest) parts.push(' ', { text: top[0]!.feature, code: true }, ' is clearly ahead: its interval lies above every other one.');
+        else parts.push(' The intervals of the leading quantities overlap, so their order is not settled.');
       }
       items.push(parts);
     }
@@ -59,13 +56,10 @@ export function summaryBlocks(input: ReportInput): Block[] {
   }
   if (byTarget.size === 0 && input.search && input.search.front.length > 0) {
     const best = [...input.search.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse)[0]!;
-    const t = input.rank?.target ?? 'target';
     items.push([
       'Best formula on the search front: ',
-      { text: best.terms.join(' + '), code: true },
-      ` (held-out RMSE ${formatNumber(best.heldOutRmse)}, complexity ${best.complexity}) for `,
-      { text: t, code: true },
-      '.',
+      { text: candidateExpression(best.terms, best.coefs), code: true },
+      ` (held-out RMSE ${formatNumber(best.heldOutRmse)}, complexity ${best.complexity}).`,
     ]);
   }
   (input.bounds ?? []).forEach((b, i) => {

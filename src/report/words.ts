@@ -69,7 +69,8 @@ export function equation(target: string, terms: readonly ReportFitTerm[], ration
       sign = t.coef < 0 ? -1 : 1;
       mag = formatNumber(Math.abs(t.coef));
     }
-    const body = isIntercept(t.term) ? mag : mag === '1' ? t.term : `${mag}·${wrap(t.term)}`;
+    const factor = /[/\s]/.test(mag) ? `(${mag})` : mag;
+    const body = isIntercept(t.term) ? mag : mag === '1' ? t.term : `${factor}·${wrap(t.term)}`;
     parts.push({ sign, body });
   }
   if (parts.length === 0) return `${target} ≈ 0`;
@@ -79,13 +80,14 @@ export function equation(target: string, terms: readonly ReportFitTerm[], ration
   return `${target} ≈ ${rhs}`;
 }
 
-/** A search candidate as an equation with 4-figure coefficients. */
-export function candidateEquation(target: string, terms: readonly string[], coefs: readonly number[]): string {
-  return equation(
-    target,
+/** A search candidate's fitted right-hand side with 4-figure coefficients, e.g. `2·sig + 4e-4·vol`. */
+export function candidateExpression(terms: readonly string[], coefs: readonly number[]): string {
+  const eq = equation(
+    '',
     terms.map((term, k) => ({ term, coef: coefs[k] ?? NaN, se: NaN, low: NaN, high: NaN, rational: null })),
     false,
   )!;
+  return eq.replace(/^ ≈ /, '');
 }
 
 function wrap(term: string): string {

@@ -23,7 +23,7 @@ export function predictionSpec(
   if (!(lo <= hi)) { lo = 0; hi = 1; }
   const subtitle = [`held-out rows: ${sampleNote(idx.length, p.actual.length)}${nonFiniteNote(nonFinite)}`, 'dashed line: predicted = actual'];
   return {
-    ...baseSpec(`Network prediction of ${target} against the actual value`, subtitle, 420, 420),
+    ...baseSpec(`Predicted against actual ${target}`, subtitle, 420, 420),
     layer: [
       {
         name: 'points',
