@@ -22,7 +22,7 @@ import type { TrainData } from '../learn/data.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod, type FeatureGroup, type RepeatScores } from './types.ts';
 import { attributeRepeat } from './repeat.ts';
 import { aggregateRepeats, consensusRanking, type MethodRanking } from './aggregate.ts';
-import { planRepeats, standardizeRows, type RepeatPlan } from './prepare.ts';
+import { planRepeats, repeatData, type RepeatData } from './prepare.ts';
 
 export interface RankOptions {
   /** Target column or expression. */
@@ -39,7 +39,7 @@ export interface RankOptions {
   seeds?: number;
   /** 0: one random split per seed; K ≥ 2: K-fold. Default 0. */
   folds?: number;
-  /** random | random:train,validation,test | kfold:K | where:EXPR. Default random (0.7, 0.1, 0.2). */
+  /** random | random:train,validation,test | kfold:K | where:EXPR (EXPR true → training side). Default random (70/15/15). */
   split?: string;
   task?: Task;
   /** Hidden layer widths. Default RANK_DEFAULTS.hidden. */
@@ -117,10 +117,12 @@ export interface RankResult {
   /** Integrated gradients: completeness gap per repeat, relative to mean |f(x) − f(baseline)|. */
   completeness?: Array<{ meanAbsGap: number; maxAbsGap: number; meanAbsDelta: number }>;
   rows: DropReport;
+  /** Seed indices 1..N, and the one seed they derive from. */
   seeds: number[];
+  seed: number;
   folds: number;
   split: string;
-  repeats: Array<{ seed: number; fold: number; train: number; validation: number; test: number; attributed: number }>;
+  repeats: Array<{ seed: number; fold: number; split: string; train: number; validation: number; test: number; attributed: number; constantFeatures: string[] }>;
   interval: { level: number; resamples: number; resampledRows: boolean };
   ablation?: Ablation;
 }
@@ -165,34 +167,17 @@ function checkOptions(o: RankOptions): void {
   }
 }
 
-/** Row-major n×p matrix of the given rows and feature columns. */
-function gather(cols: readonly Float64Array[], rows: Int32Array, which: readonly number[]): Float64Array {
-  const p = which.length;
-  const out = new Float64Array(rows.length * p);
-  for (let i = 0; i < rows.length; i++) for (let j = 0; j < p; j++) out[i * p + j] = cols[which[j]!]![rows[i]!]!;
-  return out;
-}
-
-function pick(y: Float64Array, rows: Int32Array): Float64Array {
-  return Float64Array.from(rows, (r) => y[r]!);
-}
-
 function skill(metric: 'r2' | 'accuracy', perRepeat: number[]): Skill {
   return { metric, score: perRepeat.reduce((a, b) => a + b, 0) / perRepeat.length, perRepeat };
 }
 
-interface RepeatData {
-  plan: RepeatPlan;
-  train: TrainData;
-  validation: TrainData;
-  test: TrainData;
-}
-
-/** Standardized train/validation/test data of one repeat on the feature columns `which`. */
-function repeatData(ds: Dataset, plan: RepeatPlan, which: readonly number[]): RepeatData {
-  const std = standardizeRows(ds.x, plan.train, which);
-  const make = (rows: Int32Array): TrainData => ({ x: std(rows), y: pick(ds.y, rows), n: rows.length, p: which.length });
-  return { plan, train: make(plan.train), validation: make(plan.validation), test: make(plan.test) };
+/**
+ * Groups restricted to the columns a repeat's network sees: member indices become positions in
+ * `kept`; a group with no kept member keeps an empty member list (its score is 0).
+ */
+function groupsOnKept(groups: readonly FeatureGroup[], kept: readonly number[]): FeatureGroup[] {
+  const pos = new Map(kept.map((j, k) => [j, k]));
+  return groups.map((g) => ({ name: g.name, members: g.members.filter((j) => pos.has(j)).map((j) => pos.get(j)!) }));
 }
 
 /** Train, score and baseline one repeat. */
@@ -253,7 +238,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     throw new SurmiseError('rank.badOption', `--drop-top ${dropTop} would drop every one of the ${groups.length} feature groups; use at most ${groups.length - 1}`, { option: 'dropTop' });
   }
 
-  const plans = planRepeats(table, ds, { seed, seeds: nSeeds, folds, split: options.split });
+  const { plans, spec } = planRepeats(table, ds, { seed, seeds: nSeeds, folds, split: options.split });
   const R = plans.length;
   const all = Array.from({ length: p }, (_, j) => j);
   const unitsPerRepeat = epochs;
@@ -272,6 +257,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const plan = plans[r]!;
     const d = repeatData(ds, plan, all);
     const label = plan.label;
+    const pk = d.kept.length;
     const fit = await fitRepeat(d, task, { hidden, epochs, seed: plan.seed }, (e) => report('train', r * unitsPerRepeat + e, `${label}, epoch ${e}`));
     try {
       netScores.push(fit.score);
@@ -280,13 +266,13 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       epochsRun.push(fit.epochsRun);
       report('attribute', (r + 1) * unitsPerRepeat, `${label}: attributing`);
       const rows = subsample(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
-      const xa = new Float64Array(rows.length * p);
+      const xa = new Float64Array(rows.length * pk);
       const ya = new Float64Array(rows.length);
       rows.forEach((i, k) => {
-        xa.set(d.test.x.subarray(i * p, (i + 1) * p), k * p);
+        xa.set(d.test.x.subarray(i * pk, (i + 1) * pk), k * pk);
         ya[k] = d.test.y[i]!;
       });
-      const att = attributeRepeat(fit.net, xa, ya, rows.length, groups, {
+      const att = attributeRepeat(fit.net, xa, ya, rows.length, groupsOnKept(groups, d.kept), {
         methods,
         seed: deriveSeed(plan.seed, 'attribution'),
         smoothGradSamples: options.smoothGradSamples ?? RANK_DEFAULTS.smoothGradSamples,
@@ -296,7 +282,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       });
       for (const m of methods) byMethod.get(m)!.push(att.scores[m]!);
       if (att.completeness) completeness.push(att.completeness);
-      repeatsInfo.push({ seed: plan.seed, fold: plan.fold, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length });
+      repeatsInfo.push({ seed: plan.seed, fold: plan.fold, split: plan.description, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length, constantFeatures: d.constant });
     } finally {
       fit.net.dispose();
     }
@@ -325,9 +311,10 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       perMethod.map((r) => [r.method, { ranking: entries(r), kendallTau: r.kendallTau, perRepeat: r.perRepeat, rawPerRepeat: r.rawPerRepeat }]),
     ),
     rows: ds.drops,
-    seeds: [...new Set(plans.map((q) => q.seed))],
+    seeds: Array.from({ length: nSeeds }, (_, k) => k + 1),
+    seed,
     folds,
-    split: plans[0]!.spec,
+    split: spec,
     repeats: repeatsInfo,
     interval: { level: consensus.level, resamples: consensus.resamples, resampledRows: consensus.resampledRows },
   };
