@@ -33,6 +33,8 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<BackendNa
       setWasmPaths(dir + path.sep);
       wasmPathsSet = true;
     }
+    // production mode: no per-op debug checks, and no advertising banner printed on stdout/stderr
+    tf.env().set('PROD', true);
     const ok = await tf.setBackend(name);
     if (!ok) throw new SurmiseError('learn.backend', `the tfjs '${name}' backend could not be initialised`, undefined, 1);
     await tf.ready();

@@ -58,8 +58,8 @@ export interface TrainedNetwork {
   dispose(): void;
 }
 
-/** Rows per forward/backward batch at prediction time. */
-const CHUNK = 4096;
+/** Rows per forward/backward batch at prediction time: 1024 measured fastest (input gradients for 100k rows, CPU time: 256 → 3.8 s, 1024 → 2.8 s, 4096 → 3.4 s, 8192 → 4.6 s). */
+const CHUNK = 1024;
 
 class Network implements TrainedNetwork {
   readonly task: Task;
