@@ -26,13 +26,16 @@ export function validRows(n: number, used: UsedColumn[]): { keep: Uint8Array; dr
         continue;
       }
       let bad: 0 | 1 | 2 = 0;
-      for (const p of col.parts) {
-        const v = p[i]!;
-        if (Number.isNaN(v)) {
-          bad = 1;
-          break;
+      for (let q = 0; q < col.parts.length; q++) {
+        const v = col.parts[q]![i]!;
+        if (v - v !== 0) {
+          // NaN or ±Infinity (v − v is NaN for both)
+          if (Number.isNaN(v)) {
+            bad = 1;
+            break;
+          }
+          bad = 2;
         }
-        if (v === Infinity || v === -Infinity) bad = 2;
       }
       if (bad === 1) nan++;
       else if (bad === 2) inf++;
@@ -73,27 +76,37 @@ export type KeyColumn = ({ numbers: Float64Array } | { strings: string[] }) & { 
  */
 export function dropDuplicates(keep: Uint8Array, keys: KeyColumn[]): number {
   const n = keep.length;
-  const buckets = new Map<number, number[]>();
+  // first row seen per hash; rows with the same hash but different values go to `more`
+  const first = new Map<number, number>();
+  const more = new Map<number, number[]>();
   let dups = 0;
+  const nums = keys.filter((k): k is { numbers: Float64Array } & { missing?: Uint8Array } => 'numbers' in k).map((k) => k.numbers);
+  const strs = keys.filter((k): k is { strings: string[] } & { missing?: Uint8Array } => 'strings' in k).map((k) => k.strings);
+  const masks = keys.map((k) => k.missing).filter((m): m is Uint8Array => m !== undefined);
   const same = (a: number, b: number): boolean => {
-    for (const k of keys) {
-      if ('numbers' in k) {
-        if (k.numbers[a] !== k.numbers[b]) return false;
-      } else if (k.strings[a] !== k.strings[b]) return false;
-    }
+    for (let c = 0; c < nums.length; c++) if (nums[c]![a] !== nums[c]![b]) return false;
+    for (let c = 0; c < strs.length; c++) if (strs[c]![a] !== strs[c]![b]) return false;
     return true;
   };
-  for (let i = 0; i < n; i++) {
+  rows: for (let i = 0; i < n; i++) {
     if (!keep[i]) continue;
-    if (keys.some((k) => k.missing?.[i])) continue;
+    for (let c = 0; c < masks.length; c++) if (masks[c]![i]) continue rows;
     let h = 0x9e3779b9;
-    for (const k of keys) h = 'numbers' in k ? mixNumber(h, k.numbers[i]!) : mixString(h, k.strings[i] ?? '\u0000missing');
-    const list = buckets.get(h);
-    if (!list) {
-      buckets.set(h, [i]);
+    for (let c = 0; c < nums.length; c++) h = mixNumber(h, nums[c]![i]!);
+    for (let c = 0; c < strs.length; c++) h = mixString(h, strs[c]![i] ?? '');
+    const j = first.get(h);
+    if (j === undefined) {
+      first.set(h, i);
       continue;
     }
-    if (list.some((j) => same(i, j))) {
+    if (same(i, j)) {
+      keep[i] = 0;
+      dups++;
+      continue;
+    }
+    const list = more.get(h);
+    if (list === undefined) more.set(h, [i]);
+    else if (list.some((m) => same(i, m))) {
       keep[i] = 0;
       dups++;
     } else list.push(i);

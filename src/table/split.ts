@@ -170,8 +170,16 @@ export function evaluateCondition(dataset: Dataset, table: Table, condition: str
     const tc = table.columns.find((c) => c.name === name);
     const base = /^(.*)\.(re|im)$/.exec(name);
     const complexBase = base ? table.columns.find((c) => c.name === base[1] && c.kind === 'complex') : undefined;
-    const pick = (v: Float64Array): Float64Array => Float64Array.from(dataset.rows, (i) => v[i]!);
-    const pickMask = (v: Uint8Array): Uint8Array => Uint8Array.from(dataset.rows, (i) => v[i]!);
+    const pick = (v: Float64Array): Float64Array => {
+      const o = new Float64Array(m);
+      for (let k = 0; k < m; k++) o[k] = v[dataset.rows[k]!]!;
+      return o;
+    };
+    const pickMask = (v: Uint8Array): Uint8Array => {
+      const o = new Uint8Array(m);
+      for (let k = 0; k < m; k++) o[k] = v[dataset.rows[k]!]!;
+      return o;
+    };
     if (tc) {
       if (tc.kind === 'label') cols.push({ ...tc, values: Array.from(dataset.rows, (i) => tc.values[i]!), missing: pickMask(tc.missing) });
       else if (tc.kind === 'complex') cols.push({ ...tc, re: pick(tc.re), im: pick(tc.im), missing: pickMask(tc.missing) });
