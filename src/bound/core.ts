@@ -133,11 +133,11 @@ function undetermined(reason: string, basis: Trend['basis']): Trend {
   return { slope: null, low: null, high: null, level: 0.95, basis, kind: 'undetermined', direction: null, verdict: `undetermined: ${reason}` };
 }
 
-/** Short numeric display: 4 significant figures. */
-export function fmt(x: number): string {
+/** Short numeric display: `digits` significant figures (default 4). */
+export function fmt(x: number, digits = 4): string {
   if (!Number.isFinite(x)) return String(x);
   if (x === 0) return '0';
   const a = Math.abs(x);
-  if (a >= 1e-3 && a < 1e6) return String(Number(x.toPrecision(4)));
-  return x.toExponential(3);
+  if (a >= 1e-3 && a < 1e6) return String(Number(x.toPrecision(digits)));
+  return x.toExponential(digits - 1);
 }

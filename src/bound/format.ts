@@ -35,7 +35,7 @@ export function formatBound(res: BoundResult): string {
       out.push(
         ...table(
           [`${r.by} from`, 'to', 'median', 'n', 'c*', 'row'],
-          r.strata.map((s) => [fmt(s.low), fmt(s.high), fmt(s.centre), String(s.n), fmt(s.constant), String(s.row)]),
+          r.strata.map((s) => [fmt(s.low, 6), fmt(s.high, 6), fmt(s.centre, 6), String(s.n), fmt(s.constant), String(s.row)]),
           '    ',
         ),
       );

@@ -88,6 +88,16 @@ describe('surmise bound', () => {
     expect(naive.witnesses[0].labels.family).toBe('twisted');
   });
 
+  it('--lower gives the smallest ratio; --id chooses the columns beside the witnesses', async () => {
+    // the smallest ratio of |exp(x) − 1 − x|/x² on [−1, 1] is at x = −1: e⁻¹ (from the formula)
+    const { code, out } = await run(['taylor.csv', '--lhs', 'abs(exp(x) - 1 - x)', '--rhs', 'x^2', '--lower', '--id', 'x,name', '--top', '1', '--json']);
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(j.form).toBe('lower');
+    expect(j.results[0].constant).toBeCloseTo(1 / Math.E, 12);
+    expect(j.results[0].witnesses[0].labels).toEqual({ x: -1, name: 'p2' });
+  });
+
   it('the text report compares the candidates side by side', async () => {
     const { code, out } = await run([
       'census.csv', '--lhs', 'abs(2*sig - natural_slope(lon, mer))', '--rhs', 'vol/inj', '--rhs', 'vol', '--by', 'inj', '--top', '2',
