@@ -164,11 +164,19 @@ export function buildDataset(table: Table, spec: DatasetSpec): Dataset {
       features.push(...featuresOf(col).filter((f) => !excluded(f)));
     }
   }
-  const seen = new Set<string>();
+  const seen = new Map<string, Feature>();
   features = features.filter((f) => {
-    if (seen.has(f.name)) return false; // listed twice: keep once
-    seen.add(f.name);
-    return true;
+    const before = seen.get(f.name);
+    if (before === undefined) {
+      seen.set(f.name, f);
+      return true;
+    }
+    if (before.source === f.source) return false; // listed twice: keep once
+    throw new SurmiseError(
+      'dataset.nameClash',
+      `two features would be called '${f.name}': a part of complex column '${(before.source.kind === 'complex' ? before : f).source.name}' and the column '${f.name}'; rename one of them`,
+      { column: f.name },
+    );
   });
   if (features.length === 0) {
     throw new SurmiseError(

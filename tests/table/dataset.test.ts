@@ -148,6 +148,8 @@ describe('buildDataset', () => {
     expect(err(() => buildDataset(knots(), { target: 'sig', dedupe: 'key' })).code).toBe('dataset.badSpec');
     expect(err(() => buildDataset(knots(), { target: 'sig', groups: { g: ['vol'], h: ['vol'] } })).code).toBe('dataset.badGroup');
     expect(err(() => buildDataset(knots(), { target: 'vol + nope' })).code).toBe('expr.unknownColumn');
+    const clash: Table = { source: 't', nRows: 2, columns: [cplx('z', [1, 2], [3, 4]), real('z.re', [5, 6]), real('y', [1, 2])] };
+    expect(err(() => buildDataset(clash, { target: 'y' })).code).toBe('dataset.nameClash');
   });
   it('refuses to return an empty dataset, with the drop report in the message', () => {
     const t: Table = { source: 't', nRows: 2, columns: [real('a', [NaN, NaN]), real('y', [1, 2])] };
