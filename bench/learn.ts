@@ -49,12 +49,12 @@ const small = table(quick ? 1024 : 2048, 1);
 await initBackend('cpu');
 await trainNetwork(table(256, 2), table(64, 3), NET).then((m) => m.dispose());
 const cpuRate = await samplesPerSecond(small);
+const cpuPerCpu = lastPerCpu;
 await initBackend('wasm');
 await trainNetwork(table(256, 2), table(64, 3), NET).then((m) => m.dispose());
 const wasmRate = await samplesPerSecond(small);
 const wasmPerCpu = lastPerCpu;
 line('cpu backend training, samples/s', cpuRate.toFixed(0), '(comparison only)');
-const cpuPerCpu = lastPerCpu;
 line('wasm backend training, samples/s', wasmRate.toFixed(0), '(comparison only)');
 console.log(`   per CPU-second: cpu ${cpuPerCpu.toFixed(0)}, wasm ${wasmPerCpu.toFixed(0)}`);
 

@@ -24,6 +24,8 @@ export interface TrainManyOptions {
   workers?: number;
   /** called as each job finishes (in completion order) */
   onJobDone?: (index: number, state: NetworkState) => void;
+  /** the worker's entry module (default: ./worker-boot.mjs beside this file); tests point it elsewhere to exercise the fallback */
+  workerModule?: URL;
 }
 
 export interface TrainManyReport {
@@ -99,7 +101,7 @@ export async function trainMany(jobs: TrainJob[], opts: TrainManyOptions = {}): 
     return { states, ranIn: 'in-process' };
   }
   const shared = shareArrays(resolved);
-  const result = await runWorkers(shared, Math.min(nWorkers, jobs.length), states, opts.onJobDone);
+  const result = await runWorkers(shared, Math.min(nWorkers, jobs.length), states, opts.onJobDone, opts.workerModule ?? WORKER_URL);
   if (result.failed) {
     // workers could not start: run what is left here
     const todo = resolved.map((_, i) => i).filter((i) => states[i] === undefined);
@@ -109,7 +111,7 @@ export async function trainMany(jobs: TrainJob[], opts: TrainManyOptions = {}): 
   return { states, ranIn: 'workers' };
 }
 
-function runWorkers(jobs: Resolved[], n: number, states: NetworkState[], onJobDone?: TrainManyOptions['onJobDone']): Promise<{ failed?: string }> {
+function runWorkers(jobs: Resolved[], n: number, states: NetworkState[], onJobDone: TrainManyOptions['onJobDone'], url: URL): Promise<{ failed?: string }> {
   return new Promise((resolve, reject) => {
     let next = 0;
     let done = 0;
@@ -135,7 +137,7 @@ function runWorkers(jobs: Resolved[], n: number, states: NetworkState[], onJobDo
     for (let k = 0; k < n; k++) {
       let w: Worker;
       try {
-        w = new Worker(WORKER_URL);
+        w = new Worker(url);
       } catch (e) {
         finish(null, `worker threads unavailable: ${e instanceof Error ? e.message : String(e)}`);
         return;

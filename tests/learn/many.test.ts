@@ -37,6 +37,17 @@ describe('trainMany', () => {
     net.dispose();
   });
 
+  it('falls back to this thread when workers cannot start, with the same result', async () => {
+    const tr = data(300, 3);
+    const va = data(100, 4);
+    const jobs = [1, 2].map((seed) => ({ train: tr, validation: va, options: { hidden: [8], maxEpochs: 3, seed } }));
+    const missing = new URL('./no-such-worker-module.mjs', import.meta.url);
+    const fell = await trainMany(jobs, { workers: 2, workerModule: missing });
+    expect(fell.ranIn).toBe('in-process');
+    expect(fell.fallbackReason).toMatch(/worker/);
+    expect(fell.states).toEqual((await trainMany(jobs, { workers: 0 })).states);
+  });
+
   it('reports a bad job before anything runs, naming the job and the option', async () => {
     const tr = data(50, 1);
     await expect(trainMany([{ train: tr, validation: tr, options: {} }, { train: tr, validation: tr, options: { patience: -1 } }])).rejects.toThrow(
