@@ -238,7 +238,9 @@ export class ColumnBuilder {
   /** The finished column (after decideKind and, for labels, text recovery). */
   finish(kind: ColumnKind): Column {
     const n = this.n;
-    const missing = this.missing.length === n ? this.missing : this.missing.slice(0, n);
+    // keep the buffer when little is wasted (the size estimate is usually within a few percent)
+    const fit = <T extends Float64Array | Uint8Array>(a: T): T => (a.length === n ? a : a.length <= n * 1.25 + 64 ? (a.subarray(0, n) as T) : (a.slice(0, n) as T));
+    const missing = fit(this.missing);
     if (kind === 'label') {
       const texts = this.texts ?? [];
       const values = new Array<string>(n);
@@ -250,9 +252,9 @@ export class ColumnBuilder {
       }
       return { name: this.name, kind: 'label', values, missing };
     }
-    const re = this.re.length === n ? this.re : this.re.slice(0, n);
+    const re = fit(this.re);
     if (kind === 'complex') {
-      const im = this.im ? (this.im.length === n ? this.im : this.im.slice(0, n)) : new Float64Array(n);
+      const im = this.im ? fit(this.im) : new Float64Array(n);
       for (let i = 0; i < n; i++) if (missing[i]) im[i] = NaN;
       return { name: this.name, kind: 'complex', re, im, missing };
     }

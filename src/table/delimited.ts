@@ -7,6 +7,7 @@
  * per-row objects. Physical line numbers (1-based) are tracked for messages.
  */
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
+import { StringDecoder } from 'node:string_decoder';
 import { SurmiseError } from '../errors.ts';
 
 export interface DelimitedHandler {
@@ -27,6 +28,7 @@ export interface ScanInfo {
 }
 
 const CHUNK = 1 << 22;
+const REPLACEMENT = Buffer.from([0xef, 0xbf, 0xbd]);
 const QUOTE = 34;
 const CR = 13;
 const LF = 10;
@@ -72,7 +74,10 @@ export function readTextChunks(
   opts: { onFirst?: (text: string, fileBytes: number) => void; onProgress?: (bytes: number, total: number) => void; stop?: () => boolean } = {},
 ): number {
   const { fd, size } = openForReading(path, display);
-  const decoder = new TextDecoder('utf-8', { fatal: true });
+  // StringDecoder is ~3x faster than a fatal TextDecoder here; invalid bytes become U+FFFD, so a
+  // chunk holding U+FFFD is re-checked strictly (a file may also contain U+FFFD legitimately).
+  const decoder = new StringDecoder('utf8');
+  let tail = Buffer.alloc(0);
   const buf = Buffer.allocUnsafe(CHUNK);
   let carry = '';
   let total = 0;
@@ -87,12 +92,19 @@ export function readTextChunks(
       }
       total += n;
       const final = n === 0;
-      let piece: string;
-      try {
-        piece = final ? decoder.decode() : decoder.decode(buf.subarray(0, n), { stream: true });
-      } catch {
-        throw new SurmiseError('table.badEncoding', `cannot read ${display}: it is not UTF-8 text (near byte ${total})`);
+      let piece = final ? decoder.end() : decoder.write(buf.subarray(0, n));
+      if (piece.indexOf('\ufffd') >= 0 || (final && piece.length > 0)) {
+        // count U+FFFD written in the file (bytes EF BF BD, possibly begun in the previous chunk's tail)
+        const bytes = Buffer.concat([tail, buf.subarray(0, n)]);
+        let written = 0;
+        for (let at = bytes.indexOf(REPLACEMENT); at >= 0; at = bytes.indexOf(REPLACEMENT, at + 3)) written++;
+        let decoded = 0;
+        for (let at = piece.indexOf('\ufffd'); at >= 0; at = piece.indexOf('\ufffd', at + 1)) decoded++;
+        if (decoded > written)
+          throw new SurmiseError('table.badEncoding', `cannot read ${display}: it is not UTF-8 text (invalid bytes before byte ${total})`);
       }
+      if (n >= 2) tail = Buffer.from(buf.subarray(n - 2, n));
+      if (first && piece.charCodeAt(0) === 0xfeff) piece = piece.slice(1);
       const text = carry.length > 0 ? carry + piece : piece;
       if (first && text.length > 0) {
         opts.onFirst?.(text, size);

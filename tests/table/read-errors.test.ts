@@ -177,3 +177,22 @@ describe('bad input through the CLI: exit code 2, one line on stderr, no stack t
       expect(io.err).not.toMatch(/\n\s+at /);
     });
 });
+
+describe('encoding', () => {
+  it('a U+FFFD written in the file is text, not an encoding error (Unicode: EF BF BD is valid UTF-8, from memory)', async () => {
+    const p = put(dir, 'fffd.csv', Buffer.from([0x61, 0x0a, 0xef, 0xbf, 0xbd, 0x0a]));
+    const t = await readTable(p);
+    expect((t.columns[0] as { values: string[] }).values).toEqual(['\ufffd']);
+  });
+
+  it('a truncated multi-byte character at the end is table.badEncoding', async () => {
+    const p = put(dir, 'trunc.csv', Buffer.from([0x61, 0x0a, 0xe2, 0x82]));
+    const err = (await readTable(p, { displayName: 'trunc.csv' }).catch((e) => e)) as SurmiseError;
+    expect(err.code).toBe('table.badEncoding');
+  });
+
+  it('a byte-order mark before the header is not part of the first name (common practice)', async () => {
+    const p = put(dir, 'bom.csv', Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from('vol,c\n1,2\n')]));
+    expect((await readTable(p)).columns.map((c) => c.name)).toEqual(['vol', 'c']);
+  });
+});
