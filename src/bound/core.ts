@@ -80,12 +80,12 @@ export function boundArrays(
   let extremeStratum: ArrayBound['extremeStratum'] = null;
   if (by) {
     strata = equalCountStrata(by, ratio, rows, opts.bins, upper);
-    if (strata.length < opts.bins) {
-      notes.push(
-        n < opts.bins
-          ? `only ${n} rows: ${strata.length} strata instead of ${opts.bins}`
-          : `${byName} has tied values, which are never split between strata: ${strata.length} strata instead of ${opts.bins}, of unequal size`,
-      );
+    const k = strata.length;
+    const kWord = `${k} ${k === 1 ? 'stratum' : 'strata'}`;
+    if (k < Math.min(opts.bins, n)) {
+      notes.push(`${byName} has tied values, which are never split between strata: ${kWord} instead of ${Math.min(opts.bins, n)}${k > 1 ? ', of unequal size' : ''}`);
+    } else if (n < opts.bins) {
+      notes.push(`only ${n} rows: ${kWord} instead of ${opts.bins}`);
     }
     let byMin = Infinity;
     for (let t = 0; t < n; t++) byMin = Math.min(byMin, by[rows[t]!]!);
@@ -106,7 +106,7 @@ export function boundArrays(
 }
 
 function fitTrend(strata: Stratum[], basis: Trend['basis'], upper: boolean, byName: string): Trend {
-  if (strata.length < 3) return undetermined(`${strata.length} strata: at least 3 are needed for a slope interval`, basis);
+  if (strata.length < 3) return undetermined(`only ${strata.length} ${strata.length === 1 ? 'stratum' : 'strata'}: at least 3 are needed for a slope interval`, basis);
   const bad = strata.filter((s) => !(s.constant > 0)).length;
   if (bad > 0) return undetermined(`${bad} strata have a constant ≤ 0, so log(constant) is undefined`, basis);
   const x = strata.map((s, i) => Math.log(basis === 'median' ? s.centre : i + 1));
