@@ -49,7 +49,12 @@ export function formatCount(n: number): string {
   return n < 0 ? `-${s}` : s;
 }
 
-/** "low to high" with both ends formatted. @example formatInterval(0.1, 0.25) // '0.1 to 0.25' */
-export function formatInterval(low: number, high: number, digits = 4): string {
-  return `${formatNumber(low, digits)} to ${formatNumber(high, digits)}`;
+/** "low to high" with both ends formatted; a missing end is '—'. @example formatInterval(0.1, 0.25) // '0.1 to 0.25' */
+export function formatInterval(low: number | null, high: number | null, digits = 4): string {
+  return `${formatMaybe(low, digits)} to ${formatMaybe(high, digits)}`;
+}
+
+/** formatNumber, or '—' for null (a value the stage could not determine). */
+export function formatMaybe(x: number | null | undefined, digits = 4): string {
+  return x === null || x === undefined ? '—' : formatNumber(x, digits);
 }

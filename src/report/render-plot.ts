@@ -1,6 +1,6 @@
 import * as vega from 'vega';
 import * as vl from 'vega-lite';
-import { Resvg } from '@resvg/resvg-js';
+import { Resvg, renderAsync } from '@resvg/resvg-js';
 
 /** A vega-lite specification (kept loose: the plot builders own its shape). */
 export type PlotSpec = Record<string, unknown>;
@@ -52,13 +52,22 @@ export function prefixIds(svg: string, prefix: string): string {
  * on white, at `scale` times the SVG's own size.
  */
 export function svgToPng(svg: string, scale = 2): Uint8Array {
-  const r = new Resvg(svg, {
-    fitTo: { mode: 'zoom', value: scale },
+  const png = new Resvg(svg, pngOptions(scale)).render().asPng();
+  return new Uint8Array(png.buffer, png.byteOffset, png.byteLength);
+}
+
+/** svgToPng off the main thread (resvg's thread pool), so several plots render in parallel. */
+export async function svgToPngAsync(svg: string, scale = 2): Promise<Uint8Array> {
+  const png = (await renderAsync(svg, pngOptions(scale))).asPng();
+  return new Uint8Array(png.buffer, png.byteOffset, png.byteLength);
+}
+
+function pngOptions(scale: number) {
+  return {
+    fitTo: { mode: 'zoom' as const, value: scale },
     background: 'white',
     font: { loadSystemFonts: true, defaultFontFamily: 'DejaVu Sans', sansSerifFamily: 'DejaVu Sans' },
-  });
-  const png = r.render().asPng();
-  return new Uint8Array(png.buffer, png.byteOffset, png.byteLength);
+  };
 }
 
 /** Versions of the plotting libraries, for the reproducibility section. */

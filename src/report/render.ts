@@ -11,7 +11,7 @@ import {
   relationsSection,
   reproducibilitySection,
 } from './sections.ts';
-import { specToSvg, svgToPng } from './render-plot.ts';
+import { specToSvg, svgToPngAsync } from './render-plot.ts';
 import { renderHtml } from './html.ts';
 import { renderMarkdown } from './markdown.ts';
 
@@ -42,12 +42,11 @@ export function planReport(input: ReportInput, opts?: ReportOptions): { blocks: 
 export async function renderReport(input: ReportInput, opts?: ReportOptions): Promise<RenderedReport> {
   const o = resolveOptions(opts);
   const { blocks, plan } = planReport(input, opts);
-  const plots: RenderedPlot[] = [];
-  for (const item of plan.items) {
-    const svg = await specToSvg(item.spec, `p-${item.name}`);
-    const png = o.png ? svgToPng(svg, o.pngScale) : new Uint8Array(0);
-    plots.push({ name: item.name, title: item.title, svg, png });
-  }
+  const svgList: string[] = [];
+  for (const item of plan.items) svgList.push(await specToSvg(item.spec, `p-${item.name}`));
+  // PNGs in resvg's thread pool, all at once: the SVG work above is single-threaded JavaScript.
+  const pngs = await Promise.all(svgList.map((svg) => (o.png ? svgToPngAsync(svg, o.pngScale) : Promise.resolve(new Uint8Array(0)))));
+  const plots: RenderedPlot[] = plan.items.map((item, k) => ({ name: item.name, title: item.title, svg: svgList[k]!, png: pngs[k]! }));
   const svgs = new Map(plots.map((p) => [p.name, p.svg]));
   return { html: renderHtml(input.title, blocks, svgs), markdown: renderMarkdown(blocks), plots };
 }

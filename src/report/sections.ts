@@ -1,7 +1,7 @@
 import type { Block, Inline } from './doc.ts';
 import type { ReportInput, Interval } from './types.ts';
 import type { PlotPlan } from './plan.ts';
-import { formatCount, formatInterval, formatNumber } from './format.ts';
+import { formatCount, formatInterval, formatMaybe, formatNumber } from './format.ts';
 import { candidateExpression, equation, metricDirection, metricLabel, trendGrows } from './words.ts';
 import { attributionSpec } from './plots/attribution.ts';
 import { scatterSpec } from './plots/scatter.ts';
@@ -115,7 +115,11 @@ export function attributionSection(input: ReportInput, plan: PlotPlan, set: Sect
       out.push({ kind: 'heading', level: 3, text: `Method: ${method}` });
       out.push({
         kind: 'paragraph',
-        parts: [`Kendall τ between this method’s order and the combined order: `, { text: formatNumber(m.kendallTau, 3) }, '.'],
+        parts: [
+          `Agreement between this method’s repeats (Kendall τ): `,
+          { text: formatMaybe(m.kendallTau, 3) },
+          m.kendallTau === null ? ' (not defined: a single repeat or all ties).' : '.',
+        ],
       });
       const title = `Attribution by ${method}`;
       const name = plan.add(`attribution-${method}`, title, attributionSpec(method, m.ranking));
@@ -245,7 +249,7 @@ export function boundsSection(input: ReportInput, plan: PlotPlan, set: SectionSe
           kind: 'paragraph',
           tone: grows ? 'flag' : undefined,
           parts: [
-            `Trend of the per-stratum constant along ${b.by ?? 'the strata'}: slope ${formatNumber(r.trend.slope)} (interval ${formatInterval(r.trend.low, r.trend.high)}); verdict: `,
+            `Trend of the per-stratum constant along ${b.by ?? 'the strata'}: slope ${formatMaybe(r.trend.slope)} (interval ${formatInterval(r.trend.low, r.trend.high)}); verdict: `,
             { text: r.trend.verdict, strong: true },
             grows
               ? '. The constant changes systematically along this quantity and grows towards one end: no fixed constant may hold on the whole family.'

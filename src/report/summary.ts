@@ -1,6 +1,6 @@
 import type { Block, Inline } from './doc.ts';
 import type { ReportInput } from './types.ts';
-import { formatInterval, formatNumber } from './format.ts';
+import { formatInterval, formatMaybe, formatNumber } from './format.ts';
 import { candidateExpression, compareScore, equation, metricDirection, metricLabel, trendGrows, witnessLabels } from './words.ts';
 
 /** The sentence every report carries after its summary. */
@@ -89,7 +89,7 @@ export function summaryBlocks(input: ReportInput): Block[] {
         flags.push([
           'The constant of ',
           { text: `${b.lhs} ≤ c · (${res.rhs})`, code: true },
-          ` is not stable along ${by}:${span} trend slope ${formatNumber(res.trend.slope)} (interval ${formatInterval(res.trend.low, res.trend.high)}), verdict: ${res.trend.verdict}. It grows towards one end, so no fixed constant may hold on the whole family there.`,
+          ` is not stable along ${by}:${span} trend slope ${formatMaybe(res.trend.slope)} (interval ${formatInterval(res.trend.low, res.trend.high)}), verdict: ${res.trend.verdict}. It grows towards one end, so no fixed constant may hold on the whole family there.`,
         ]);
       }
     });

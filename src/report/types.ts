@@ -23,7 +23,8 @@ export interface ReportRank {
   target: string;
   task: 'regression' | 'classification';
   model: { metric: string; score: number; baselines: { constant: number; ridge: number } };
-  methods: Record<string, { ranking: Interval[]; kendallTau: number }>;
+  /** kendallTau: agreement (Kendall τ) between the method's repeats; null when not defined (one repeat, all ties). */
+  methods: Record<string, { ranking: Interval[]; kendallTau: number | null }>;
   ranking: Interval[];
   /** Held-out rows, possibly sampled. */
   predictions?: { actual: number[]; predicted: number[] };
@@ -87,7 +88,8 @@ export interface ReportBoundResult {
   witnesses: ReportWitness[];
   quantiles: Record<string, number>;
   strata: Array<{ low: number; high: number; n: number; constant: number }>;
-  trend: { slope: number; low: number; high: number; verdict: string } | null;
+  /** Trend of the per-stratum constant along `by`; slope and interval may be null when undetermined. */
+  trend: { slope: number | null; low: number | null; high: number | null; verdict: string } | null;
   points?: { by: number[]; ratio: number[] };
 }
 

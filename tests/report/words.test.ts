@@ -46,5 +46,8 @@ describe('trend flags', () => {
     expect(trendGrows({ slope: 0.1, low: -0.2, high: 0.4, verdict: 'flat' })).toBe(false);
     expect(trendGrows({ slope: 0.1, low: -0.2, high: 0.4, verdict: 'grows' })).toBe(true);
     expect(trendGrows(null)).toBe(false);
+    expect(trendGrows({ slope: null, low: null, high: null, verdict: 'undetermined: too few strata' })).toBe(false);
+    expect(trendGrows({ slope: 0.01, low: -0.1, high: 0.12, verdict: 'bounded: no trend along inj (interval contains 0)' })).toBe(false);
+    expect(trendGrows({ slope: -0.9, low: null, high: null, verdict: 'unbounded: grows as inj decreases' })).toBe(true);
   });
 });
