@@ -168,6 +168,25 @@ describe('network', () => {
     expect(tf.memory().numTensors).toBe(before);
   });
 
+  it('the cpu and wasm backends compute the same network (to float32 rounding)', async () => {
+    const d = friedman(300, 51);
+    const net = await trainNetwork(d, friedman(100, 52), { hidden: [32, 32], activation: 'gelu', maxEpochs: 2, seed: 4 });
+    const state = net.toJSON();
+    const onWasm = net.predict(d.x, d.n);
+    const gWasm = net.inputGradients(d.x.subarray(0, 200), 20);
+    net.dispose();
+    expect(await initBackend('cpu')).toBe('cpu');
+    const again = networkFromJSON(state);
+    const onCpu = again.predict(d.x, d.n);
+    const gCpu = again.inputGradients(d.x.subarray(0, 200), 20);
+    again.dispose();
+    expect(await initBackend('wasm')).toBe('wasm');
+    expect(await initBackend('wasm')).toBe('wasm'); // idempotent
+    // common practice: float32 results of two implementations agree to ~1e-5 relative
+    for (let i = 0; i < d.n; i++) expect(Math.abs(onCpu[i]! - onWasm[i]!)).toBeLessThan(1e-4 * (1 + Math.abs(onWasm[i]!)));
+    for (let k = 0; k < gCpu.length; k++) expect(Math.abs(gCpu[k]! - gWasm[k]!)).toBeLessThan(1e-3 * (1 + Math.abs(gWasm[k]!)));
+  });
+
   it('rejects bad options and bad data with typed errors naming the place', async () => {
     const tr = friedman(50, 1);
     await expect(trainNetwork(tr, tr, { batchSize: 0 })).rejects.toThrow('expected batchSize to be a positive integer, got 0');
