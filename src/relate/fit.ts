@@ -119,8 +119,10 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
       `only ${trainRows.length} usable rows for ${p} coefficients (${dropped.total} of ${table.nRows} rows dropped for missing or non-finite values)`,
     );
   }
-  const cols = terms.map((t) => gather(t.values, trainRows));
-  const y = gather(target.values, trainRows);
+  // every row used, in order: no copies needed
+  const all = trainRows.length === table.nRows && trainRows.every((r, i) => r === i);
+  const cols = terms.map((t) => (all ? t.values : gather(t.values, trainRows)));
+  const y = all ? target.values : gather(target.values, trainRows);
   const fit = lstsq(cols, y, { intercept, names: spec.terms, level });
   warnings.push(...fit.warnings);
   const fitTerms: FitTerm[] = fit.names.map((term, j) => ({

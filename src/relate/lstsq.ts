@@ -160,19 +160,20 @@ export function lstsq(columns: Float64Array[], y: Float64Array, opts: LstsqOptio
     for (let i = 0; i < n; i++) fitted[i] = fitted[i]! + b * c[i]!;
   }
   const residuals = new Float64Array(n);
-  const sq = new Float64Array(n);
-  const ab = new Float64Array(n);
+  const tmp = new Float64Array(n); // scratch for compensated sums
   let maxAbs = 0;
   let maxRow = -1;
   for (let i = 0; i < n; i++) {
     const e = y[i]! - fitted[i]!;
     residuals[i] = e;
-    sq[i] = e * e;
-    ab[i] = Math.abs(e);
-    if (ab[i]! > maxAbs || maxRow < 0) { maxAbs = ab[i]!; maxRow = i; }
+    tmp[i] = e * e;
+    const a = Math.abs(e);
+    if (a > maxAbs || maxRow < 0) { maxAbs = a; maxRow = i; }
   }
-  // RSS from the tail of Qᵀy (exact to rounding in the factorization) agrees with Σe²; use Σe²
-  const rss = kahanSum(sq);
+  // RSS as the compensated Σe² of the residuals recomputed from the original columns
+  const rss = kahanSum(tmp);
+  for (let i = 0; i < n; i++) tmp[i] = Math.abs(residuals[i]!);
+  const sumAbs = kahanSum(tmp);
   const df = n - rank;
   const sigma2 = df > 0 ? rss / df : NaN;
   // standard errors: β = A z with z the coefficients of the scaled, centred, pivoted columns, and
@@ -206,20 +207,18 @@ export function lstsq(columns: Float64Array[], y: Float64Array, opts: LstsqOptio
   // R²
   let tss: number;
   if (intercept) {
-    const mean = kahanSum(y) / n;
-    const d = new Float64Array(n);
-    for (let i = 0; i < n; i++) d[i] = (y[i]! - mean) ** 2;
-    tss = kahanSum(d);
+    const ybar = kahanSum(y) / n;
+    for (let i = 0; i < n; i++) tmp[i] = (y[i]! - ybar) ** 2;
+    tss = kahanSum(tmp);
   } else {
-    const d = new Float64Array(n);
-    for (let i = 0; i < n; i++) d[i] = y[i]! ** 2;
-    tss = kahanSum(d);
+    for (let i = 0; i < n; i++) tmp[i] = y[i]! ** 2;
+    tss = kahanSum(tmp);
   }
   const r2 = tss > 0 ? 1 - rss / tss : NaN;
   const i0 = intercept ? 1 : 0;
   const adjR2 = df > 0 ? 1 - ((1 - r2) * (n - i0)) / df : NaN;
   const rmse = Math.sqrt(rss / n);
-  const mae = kahanSum(ab) / n;
+  const mae = sumAbs / n;
   // Gaussian log-likelihood at σ² = RSS/n (e.g. Burnham & Anderson, "Model Selection and
   // Multimodel Inference", 2nd ed., §2.2): ℓ = −n/2 (ln 2π + ln(RSS/n) + 1)
   const logLik = -0.5 * n * (Math.log(2 * Math.PI) + Math.log(rss / n) + 1);

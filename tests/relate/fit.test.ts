@@ -1,8 +1,9 @@
 import { describe, it, expect } from 'vitest';
 import { createRequire } from 'node:module';
+import { Matrix, QrDecomposition } from 'ml-matrix';
 import { fitRelation } from '../../src/relate/fit.ts';
 import { crossValidatedRmse } from '../../src/relate/crossval.ts';
-import { Rng } from '../../src/util/rng.ts';
+import { Rng, deriveSeed } from '../../src/util/rng.ts';
 import { SurmiseError } from '../../src/errors.ts';
 import { makeTable } from './helpers.ts';
 
@@ -98,5 +99,25 @@ describe('crossValidatedRmse', () => {
       press += ((ys[i]! - b0 - b1 * xs[i]!) / (1 - h)) ** 2;
     }
     expect(cv.rmse).toBeCloseTo(Math.sqrt(press / n), 12);
+  });
+  it('the per-fold QR blocks give the same fold fits as refitting each training part with ml-matrix QrDecomposition (general-purpose library)', () => {
+    const rng = new Rng(77);
+    const n = 503;
+    const a = Float64Array.from({ length: n }, () => 100 + rng.normal());
+    const b = Float64Array.from({ length: n }, () => rng.uniform(0, 5));
+    const y = Float64Array.from(a, (v, i) => 0.3 * v - b[i]! ** 2 + rng.normal());
+    const bsq = b.map((v) => v * v);
+    const cv = crossValidatedRmse([a, bsq], y, { k: 5, seed: 3 });
+    // reference: the same folds (fold f = rows whose squared error the fit must reproduce), refitted directly
+    const perm = new Rng(deriveSeed(3, 'cv')).permutation(n);
+    let sse = 0;
+    for (let f = 0; f < 5; f++) {
+      const lo = Math.floor((f * n) / 5), hi = Math.floor(((f + 1) * n) / 5);
+      const train = [...perm.slice(0, lo), ...perm.slice(hi)];
+      const X = new Matrix(train.map((i) => [1, a[i]!, bsq[i]!]));
+      const beta = new QrDecomposition(X).solve(Matrix.columnVector(train.map((i) => y[i]!)));
+      for (const i of perm.slice(lo, hi)) sse += (y[i]! - beta.get(0, 0) - beta.get(1, 0) * a[i]! - beta.get(2, 0) * bsq[i]!) ** 2;
+    }
+    expect(cv.rmse).toBeCloseTo(Math.sqrt(sse / n), 10);
   });
 });
