@@ -27,3 +27,5 @@ export {
 export { toDataFrame, fromDataFrame } from './danfo.ts';
 export * from './expr/index.ts';
 export * from './dataset.ts';
+export * from './standardize.ts';
+export * from './split.ts';
