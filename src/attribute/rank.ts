@@ -20,7 +20,7 @@ import { selectRidge } from '../learn/ridge.ts';
 import { evaluate } from '../learn/evaluate.ts';
 import type { TrainData } from '../learn/data.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod, type FeatureGroup, type RepeatScores } from './types.ts';
-import { attributeRepeat } from './repeat.ts';
+import { attributeRepeat, type ClassificationLoss } from './repeat.ts';
 import { aggregateRepeats, consensusRanking, type MethodRanking } from './aggregate.ts';
 import { planRepeats, repeatData, type RepeatData } from './prepare.ts';
 
@@ -56,6 +56,8 @@ export interface RankOptions {
   smoothGradNoise?: number;
   integratedSteps?: number;
   permutationRepeats?: number;
+  /** Classification loss for permutation importance: 'error' (drop in accuracy, default) or 'cross-entropy'. */
+  permutationLoss?: ClassificationLoss;
   /** Bootstrap resamples. Default 1000. */
   resamples?: number;
   onProgress?: (e: RankProgress) => void;
@@ -160,6 +162,9 @@ function checkOptions(o: RankOptions): void {
   if (o.smoothGradNoise !== undefined && !(Number.isFinite(o.smoothGradNoise) && o.smoothGradNoise >= 0)) {
     throw new SurmiseError('rank.badOption', `expected smoothGradNoise to be a number ≥ 0, got ${o.smoothGradNoise}`, { option: 'smoothGradNoise' });
   }
+  if (o.permutationLoss !== undefined && o.permutationLoss !== 'error' && o.permutationLoss !== 'cross-entropy') {
+    throw new SurmiseError('rank.badOption', `expected permutationLoss to be 'error' or 'cross-entropy', got ${String(o.permutationLoss)}`, { option: 'permutationLoss' });
+  }
   for (const m of o.methods ?? []) {
     if (!ATTRIBUTION_METHODS.includes(m)) {
       throw new SurmiseError('rank.unknownMethod', `unknown attribution method '${m}'; expected one of ${ATTRIBUTION_METHODS.join(', ')}`, { option: 'method' });
@@ -180,6 +185,15 @@ function groupsOnKept(groups: readonly FeatureGroup[], kept: readonly number[]):
   return groups.map((g) => ({ name: g.name, members: g.members.filter((j) => pos.has(j)).map((j) => pos.get(j)!) }));
 }
 
+/**
+ * Mini-batch size: RANK_DEFAULTS.batchSize, shrunk on small tables so an epoch has at least about
+ * 8 steps (a power of two, at least 8): 90 training rows give batches of 8, 14,000 give 256.
+ */
+export function batchSizeFor(nTrain: number): number {
+  const b = 2 ** Math.floor(Math.log2(Math.max(1, nTrain / 8)));
+  return Math.max(8, Math.min(RANK_DEFAULTS.batchSize, b));
+}
+
 /** Train, score and baseline one repeat. */
 async function fitRepeat(
   d: RepeatData,
@@ -190,7 +204,7 @@ async function fitRepeat(
   const net = await trainNetwork(
     d.train,
     d.validation,
-    { hidden: o.hidden, maxEpochs: o.epochs, patience: RANK_DEFAULTS.patience, batchSize: RANK_DEFAULTS.batchSize, learningRate: RANK_DEFAULTS.learningRate, seed: o.seed, task },
+    { hidden: o.hidden, maxEpochs: o.epochs, patience: RANK_DEFAULTS.patience, batchSize: batchSizeFor(d.train.n), learningRate: RANK_DEFAULTS.learningRate, seed: o.seed, task },
     (e) => onEpoch(e.epoch),
   );
   const score = evaluate(net, d.test).score;
@@ -279,6 +293,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
         smoothGradNoise: options.smoothGradNoise ?? RANK_DEFAULTS.smoothGradNoise,
         integratedSteps: options.integratedSteps ?? RANK_DEFAULTS.integratedSteps,
         permutationRepeats: options.permutationRepeats ?? RANK_DEFAULTS.permutationRepeats,
+        classificationLoss: options.permutationLoss ?? 'error',
       });
       for (const m of methods) byMethod.get(m)!.push(att.scores[m]!);
       if (att.completeness) completeness.push(att.completeness);
