@@ -50,19 +50,16 @@ export function validRows(n: number, used: UsedColumn[]): { keep: Uint8Array; dr
   return { keep, dropped, invalidRows };
 }
 
-const f64 = new Float64Array(1);
-const u32 = new Uint32Array(f64.buffer);
-
-function mixNumber(h: number, v: number): number {
-  f64[0] = v + 0; // -0 and 0 hash alike, as they compare equal
-  h = Math.imul(h ^ u32[0]!, 0x85ebca6b);
-  h = Math.imul(h ^ (h >>> 13) ^ u32[1]!, 0xc2b2ae35);
-  return h ^ (h >>> 16);
+/** Mix one 32-bit word into a running hash (the 32-bit finalizer steps of MurmurHash3, A. Appleby). */
+function mix(h: number, w: number): number {
+  h = Math.imul(h ^ w, 0xcc9e2d51);
+  h = (h << 15) | (h >>> 17);
+  return Math.imul(h, 0x1b873593);
 }
 
 function mixString(h: number, s: string): number {
   for (let k = 0; k < s.length; k++) h = Math.imul(h ^ s.charCodeAt(k), 0x01000193);
-  return Math.imul(h ^ 0xff, 0x27d4eb2d);
+  return mix(h, s.length);
 }
 
 /** One key column for duplicate detection: numbers (values compared with ===) or strings. */
@@ -76,40 +73,55 @@ export type KeyColumn = ({ numbers: Float64Array } | { strings: string[] }) & { 
  */
 export function dropDuplicates(keep: Uint8Array, keys: KeyColumn[]): number {
   const n = keep.length;
-  // first row seen per hash; rows with the same hash but different values go to `more`
-  const first = new Map<number, number>();
-  const more = new Map<number, number[]>();
-  let dups = 0;
   const nums = keys.filter((k): k is { numbers: Float64Array } & { missing?: Uint8Array } => 'numbers' in k).map((k) => k.numbers);
   const strs = keys.filter((k): k is { strings: string[] } & { missing?: Uint8Array } => 'strings' in k).map((k) => k.strings);
   const masks = keys.map((k) => k.missing).filter((m): m is Uint8Array => m !== undefined);
+  // rows taking part: kept, with every key cell present
+  const active = keep.slice();
+  for (const m of masks) for (let i = 0; i < n; i++) if (m[i]) active[i] = 0;
+  // hash column by column over the bit patterns (0 and -0 hash alike, as they compare equal)
+  const hash = new Int32Array(n).fill(0x2f1b3c4d);
+  for (const col of nums) {
+    const words = new Uint32Array(col.buffer, col.byteOffset, col.length * 2);
+    for (let i = 0; i < n; i++) {
+      if (!active[i]) continue;
+      const zero = col[i] === 0;
+      hash[i] = mix(mix(hash[i]!, zero ? 0 : words[2 * i]!), zero ? 0 : words[2 * i + 1]!);
+    }
+  }
+  for (const col of strs) for (let i = 0; i < n; i++) if (active[i]) hash[i] = mixString(hash[i]!, col[i] ?? '');
   const same = (a: number, b: number): boolean => {
     for (let c = 0; c < nums.length; c++) if (nums[c]![a] !== nums[c]![b]) return false;
     for (let c = 0; c < strs.length; c++) if (strs[c]![a] !== strs[c]![b]) return false;
     return true;
   };
-  rows: for (let i = 0; i < n; i++) {
-    if (!keep[i]) continue;
-    for (let c = 0; c < masks.length; c++) if (masks[c]![i]) continue rows;
-    let h = 0x9e3779b9;
-    for (let c = 0; c < nums.length; c++) h = mixNumber(h, nums[c]![i]!);
-    for (let c = 0; c < strs.length; c++) h = mixString(h, strs[c]![i] ?? '');
-    const j = first.get(h);
-    if (j === undefined) {
-      first.set(h, i);
-      continue;
+  // open addressing with linear probing; slot holds the first row of each distinct key
+  let count = 0;
+  for (let i = 0; i < n; i++) count += active[i]!;
+  let cap = 16;
+  while (cap < 2 * count) cap *= 2;
+  const mask = cap - 1;
+  const slot = new Int32Array(cap).fill(-1);
+  const slotHash = new Int32Array(cap);
+  let dups = 0;
+  for (let i = 0; i < n; i++) {
+    if (!active[i]) continue;
+    const h = hash[i]!;
+    let s = (h ^ (h >>> 16)) & mask;
+    for (;;) {
+      const j = slot[s]!;
+      if (j < 0) {
+        slot[s] = i;
+        slotHash[s] = h;
+        break;
+      }
+      if (slotHash[s] === h && same(i, j)) {
+        keep[i] = 0;
+        dups++;
+        break;
+      }
+      s = (s + 1) & mask;
     }
-    if (same(i, j)) {
-      keep[i] = 0;
-      dups++;
-      continue;
-    }
-    const list = more.get(h);
-    if (list === undefined) more.set(h, [i]);
-    else if (list.some((m) => same(i, m))) {
-      keep[i] = 0;
-      dups++;
-    } else list.push(i);
   }
   return dups;
 }

@@ -24,12 +24,17 @@ export function columnMean(x: Float64Array, rows?: Int32Array): number {
  */
 export function sampleStd(x: Float64Array, mean: number, rows?: Int32Array): number {
   const n = rows ? rows.length : x.length;
-  const d = new Float64Array(n);
+  // Neumaier's compensated sum of the squared deviations, inline (no scratch array)
+  let sum = 0;
+  let c = 0;
   for (let k = 0; k < n; k++) {
     const v = x[rows ? rows[k]! : k]! - mean;
-    d[k] = v * v;
+    const t = v * v;
+    const u = sum + t;
+    c += Math.abs(sum) >= t ? sum - u + t : t - u + sum;
+    sum = u;
   }
-  return Math.sqrt(kahanSum(d) / (n - 1));
+  return Math.sqrt((sum + c) / (n - 1));
 }
 
 /**

@@ -375,6 +375,11 @@ function evalCall(ctx: Ctx, e: CallNode): Val {
   if (!info) {
     throw exprError('expr.unknownFunction', `unknown function '${e.name}'${didYouMean(e.name, FUNCTION_NAMES)}`, ctx.source, e.pos, e.end);
   }
+  // re(a / b) is the real part of a quotient: compute only that (no imaginary array)
+  const inner = e.args[0]!;
+  if (e.name === 're' && inner.type === 'binary' && inner.op === '/') {
+    return naturalSlope(ctx, evalNode(ctx, inner.left), evalNode(ctx, inner.right));
+  }
   const args = e.args.map((a) => evalNode(ctx, a));
   const arg = args[0]!;
   if (info.realOnly) {
