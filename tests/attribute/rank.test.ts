@@ -79,6 +79,24 @@ describe('rankFeatures', () => {
     }
   }, 120_000);
 
+  it('k-fold: seeds × folds repeats whose held-out rows partition the kept rows (definition of k-fold)', async () => {
+    const r = await rankFeatures(table, { target: 'y', ...SMALL, epochs: 3, methods: ['saliency'], seeds: 2, folds: 3 });
+    expect(r.repeats).toHaveLength(6);
+    expect(r.split).toBe('kfold:3');
+    for (const s of [0, 3]) expect(r.repeats.slice(s, s + 3).reduce((a, q) => a + q.test, 0)).toBe(1500);
+    expect(r.methods.saliency!.perRepeat).toHaveLength(6);
+  }, 120_000);
+
+  it('where: split holds out exactly the rows where the condition is false; declared groups score as one', async () => {
+    const x1 = (table.columns[0] as { values: Float64Array }).values;
+    const outside = x1.filter((v) => !(v < 0.8)).length;
+    const r = await rankFeatures(table, { target: 'y', ...SMALL, epochs: 3, methods: ['saliency', 'permutation'], seeds: 1, split: 'where:x1 < 0.8', groups: { pair: ['x1', 'x2'] } });
+    expect(r.repeats[0]!.test).toBe(outside);
+    expect(r.groups.find((g) => g.name === 'pair')!.members).toEqual(['x1', 'x2']);
+    expect(r.ranking.map((e) => e.feature)).toContain('pair');
+    expect(r.ranking.map((e) => e.feature)).not.toContain('x1');
+  }, 120_000);
+
   it('refuses bad options with the option named', async () => {
     await expect(rankFeatures(table, { target: 'y', seeds: 0 })).rejects.toThrow(/expected seeds to be an integer ≥ 1, got 0/);
     await expect(rankFeatures(table, { target: 'y', folds: 1 })).rejects.toThrow(SurmiseError);
