@@ -135,14 +135,23 @@ export function thresholdSplit(
   opts: { seed: number; label: string; validation?: number },
 ): Split {
   const share = opts.validation ?? DEFAULT_VALIDATION_SHARE;
-  const tr: number[] = [];
-  const te: number[] = [];
-  const un: number[] = [];
+  let nTr = 0;
+  let nTe = 0;
+  let nUn = 0;
   for (let i = 0; i < condition.length; i++) {
     const c = condition[i]!;
-    if (Number.isNaN(c)) un.push(i);
-    else if (c !== 0) tr.push(i);
-    else te.push(i);
+    if (Number.isNaN(c)) nUn++;
+    else if (c !== 0) nTr++;
+    else nTe++;
+  }
+  const tr = new Int32Array(nTr);
+  const te = new Int32Array(nTe);
+  const un = new Int32Array(nUn);
+  for (let i = 0, a = 0, b = 0, u = 0; i < condition.length; i++) {
+    const c = condition[i]!;
+    if (Number.isNaN(c)) un[u++] = i;
+    else if (c !== 0) tr[a++] = i;
+    else te[b++] = i;
   }
   if (tr.length === 0 || te.length === 0) {
     throw new SurmiseError(
@@ -151,11 +160,11 @@ export function thresholdSplit(
       { condition: opts.label, train: tr.length, test: te.length, unassigned: un.length },
     );
   }
-  const { train, validation } = carveValidation(Int32Array.from(tr), share, deriveSeed(opts.seed, 'split', 'where'));
+  const { train, validation } = carveValidation(tr, share, deriveSeed(opts.seed, 'split', 'where'));
   const description =
     `train where ${opts.label} (${tr.length} rows: ${train.length} train, ${validation.length} validation), test on the other ${te.length} rows` +
     (un.length ? `; ${un.length} rows left out because the condition could not be decided (missing values)` : '');
-  return { train, validation, test: Int32Array.from(te), description, ...(un.length ? { unassigned: Int32Array.from(un) } : {}) };
+  return { train, validation, test: te, description, ...(un.length ? { unassigned: un } : {}) };
 }
 
 /**
