@@ -111,6 +111,13 @@ describe('complex pairs and kinds', () => {
     expect(Array.from(x.values)).toEqual([NaN, Infinity, NaN, NaN, -Infinity]);
   });
 
+  it('a CSV column that turns to labels after numeric cells keeps their text as written (second pass)', async () => {
+    const p = put(dir, 'late.csv', 'id,v\n1.50,1\n"007",2\n1e3,3\nK3a1,4\nK4a1,5\n');
+    const t = await readTable(p);
+    expect((getColumn(t, 'id') as LabelColumn).values).toEqual(['1.50', '007', '1e3', 'K3a1', 'K4a1']);
+    expect(t.notes).toEqual(["column 'id' read as labels: 2 of 5 cells are not numbers (first: line 5, 'K3a1')"]);
+  });
+
   it('getColumn suggests the nearest name (table.unknownColumn)', () => {
     const t = tableFromRecords([{ volume: 1, slope: 2 }], 'mem');
     expect(() => getColumn(t, 'slop')).toThrowError("no column 'slop' in mem (did you mean 'slope'?); columns: volume, slope");
