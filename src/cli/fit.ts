@@ -11,6 +11,7 @@ import { readTable } from '../table/read.ts';
 import { parseDerive } from '../table/expr/derive.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { splitRows } from '../relate/split-option.ts';
+import { withDerived } from '../relate/rows.ts';
 import { alignTable, num, toJson } from '../relate/text.ts';
 
 export interface FitOptions {
@@ -76,10 +77,11 @@ export function renderFit(r: FitResult): string {
     ['max |residual|', `${num(r.maxAbsResidual, 6)} at ${where}`],
     ['AIC / BIC', `${num(r.aic, 8)} / ${num(r.bic, 8)}`],
     [`${r.cvFolds}-fold CV RMSE`, `${num(r.cvRmse, 6)} (seed ${r.seed})`],
-    ['condition number', `${num(r.condition, 3)} (columns scaled to unit length)`],
+    ['condition number', `${num(r.condition, 3)} (centred, unit-length columns)`],
     ['rank', `${r.rank} of ${r.terms.length}`],
   ];
   if (r.heldOut) stats.push(['held-out RMSE', `${num(r.heldOut.rmse, 6)} on ${r.heldOut.n} rows (MAE ${num(r.heldOut.mae, 6)})`]);
+  if (r.split) stats.push(['split', r.split]);
   lines.push(alignTable(stats).trimEnd());
   if (r.warnings.length) {
     lines.push('');
@@ -99,7 +101,7 @@ export function registerFit(program: Command, io: CliIO): void {
     .requiredOption('--target <expr>', 'expression to predict, e.g. "re(lon/mer)"')
     .requiredOption('--terms <list>', 'terms separated by ";", e.g. "sig; vol/inj^3"')
     .option('--no-intercept', 'fit without the constant term (R² is then uncentred)')
-    .option('--split <spec>', 'fit on part of the rows and report the error on the rest: a fraction (0.8) or a train/test column')
+    .option('--split <spec>', 'fit on one part and report the error on another: random:TRAIN,VALIDATION,TEST (fit on train, measure on test) or where:CONDITION')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
     .option('--seed <n>', 'seed for the split and the cross-validation folds', '0')
     .option('--folds <k>', 'cross-validation folds', '5')
@@ -116,13 +118,14 @@ export function registerFit(program: Command, io: CliIO): void {
         const p = parseDerive(d);
         return { name: p.name, expression: p.source };
       });
-      const table = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
-      let split: { train: Int32Array; test: Int32Array } | undefined;
+      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
+      const table = withDerived(table0, derive);
+      let split: { train: Int32Array; test: Int32Array; description: string } | undefined;
       if (o.split !== undefined) {
         const s = splitRows(table, o.split, seed);
-        split = { train: s.first, test: s.second };
+        split = { train: s.first, test: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
-      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, derive, seed, folds, level, ...(split ? { split } : {}) });
+      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, seed, folds, level, ...(split ? { split } : {}) });
       if (o.json) io.stdout(toJson(r) + '\n');
       else io.stdout(renderFit(r));
     });

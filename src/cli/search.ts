@@ -12,6 +12,7 @@ import { readTable } from '../table/read.ts';
 import { parseDerive } from '../table/expr/derive.ts';
 import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
 import { splitRows } from '../relate/split-option.ts';
+import { withDerived } from '../relate/rows.ts';
 import { alignTable, num, toJson } from '../relate/text.ts';
 import { intOption } from './fit.ts';
 
@@ -47,7 +48,7 @@ export function renderSearch(r: SearchResult): string {
   const out: string[] = [];
   const drop = r.dropped.total > 0 ? ` (${r.dropped.total} rows dropped for missing or non-finite values)` : '';
   out.push(`formula search for ${r.target}: ${r.nCandidateTerms} candidate terms, ${r.nCandidatesTried} subsets tried (${r.mode})`);
-  out.push(`selection rows ${r.selectionRows}, held-out rows ${r.heldOutRows}${drop}`);
+  out.push(`selection rows ${r.selectionRows}, held-out rows ${r.heldOutRows}${drop}: ${r.split}`);
   out.push('');
   const head = ['#', 'complexity', 'selection RMSE', 'held-out RMSE', 'rounded held-out', 'rounded formula', 'fitted formula'];
   out.push('best by selection BIC:');
@@ -86,7 +87,7 @@ export function registerSearch(program: Command, io: CliIO): void {
     .requiredOption('--from <columns>', 'columns to build terms from, comma-separated')
     .option('--max-terms <k>', 'largest number of terms besides the intercept', '2')
     .option('--powers <lo..hi>', 'integer powers of each column', '-3..3')
-    .option('--split <spec>', 'selection part: a fraction (default 0.6) or a column with train/selection/1 marking it')
+    .option('--split <spec>', 'selection and held-out parts: random:TRAIN,VALIDATION,TEST (select on train, measure on test) or where:CONDITION; default a random 60/40 split')
     .option('--top <n>', 'candidates to list', '10')
     .option('--seed <n>', 'seed for the split', '0')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
@@ -106,11 +107,12 @@ export function registerSearch(program: Command, io: CliIO): void {
         const p = parseDerive(d);
         return { name: p.name, expression: p.source };
       });
-      const table = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
-      let split: { selection: Int32Array; heldOut: Int32Array } | undefined;
+      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
+      const table = withDerived(table0, derive);
+      let split: { selection: Int32Array; heldOut: Int32Array; description: string } | undefined;
       if (o.split !== undefined) {
         const s = splitRows(table, o.split, seed);
-        split = { selection: s.first, heldOut: s.second };
+        split = { selection: s.first, heldOut: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
       let bar: cliProgress.SingleBar | null = null;
       let lastLine = Date.now();
@@ -132,7 +134,7 @@ export function registerSearch(program: Command, io: CliIO): void {
       };
       let r: SearchResult;
       try {
-        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, derive, progress, ...(split ? { split } : {}) });
+        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, progress, ...(split ? { split } : {}) });
       } finally {
         (bar as cliProgress.SingleBar | null)?.stop();
       }

@@ -19,7 +19,7 @@ export interface FitSpec {
   /** Derived columns `{name, expression}` added before anything else is evaluated. */
   derive?: Array<{ name: string; expression: string }>;
   /** Row indices (0-based) of a training and a held-out part; the fit uses `train` only. */
-  split?: { train: ArrayLike<number>; test: ArrayLike<number> };
+  split?: { train: ArrayLike<number>; test: ArrayLike<number>; description?: string };
   /** Seed of the cross-validation folds (default 0). */
   seed?: number;
   /** Number of cross-validation folds (default 5). */
@@ -70,6 +70,8 @@ export interface FitResult {
   rank: number;
   level: number;
   heldOut: { n: number; rmse: number; mae: number } | null;
+  /** How the rows were split, or null when every usable row was fitted. */
+  split: string | null;
   seed: number;
   warnings: string[];
 }
@@ -170,6 +172,7 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
     rank: fit.rank,
     level,
     heldOut,
+    split: spec.split ? spec.split.description ?? `${trainRows.length} rows fitted, ${testRows?.length ?? 0} held out` : null,
     seed,
     warnings,
   };

@@ -25,7 +25,7 @@ export interface SearchSpec {
   /** Integer powers [lo, hi] (default [−3, 3]). */
   powers?: [number, number];
   /** Row indices of the selection and held-out parts; default a seeded 60/40 split of the usable rows. */
-  split?: { selection: ArrayLike<number>; heldOut: ArrayLike<number> };
+  split?: { selection: ArrayLike<number>; heldOut: ArrayLike<number>; description?: string };
   /** Number of candidates to report (default 10). */
   top?: number;
   seed?: number;
@@ -68,6 +68,8 @@ export interface SearchResult {
   nCollinearSkipped: number;
   selectionRows: number;
   heldOutRows: number;
+  /** How the usable rows were divided. */
+  split: string;
   dropped: DroppedRows;
   skippedTerms: SkippedTerm[];
   /** Best first by selection BIC. */
@@ -302,7 +304,9 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   if (mode === 'greedy') notes.push(`greedy forward selection: ${total} subsets would be needed for an exhaustive search (limit ${maxExhaustive}); the best subset may be missed.`);
   return {
     target: spec.target, mode, nCandidateTerms: m, nCandidatesTried: tried, nCollinearSkipped: collinear,
-    selectionRows: sel.length, heldOutRows: held.length, dropped, skippedTerms: skipped,
+    selectionRows: sel.length, heldOutRows: held.length,
+    split: spec.split ? spec.split.description ?? 'given split' : `random 60/40 split of the ${rows.length} usable rows (seed ${seed})`,
+    dropped, skippedTerms: skipped,
     candidates, front, seed, notes,
   };
 }

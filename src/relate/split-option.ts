@@ -1,37 +1,52 @@
 /**
- * The `--split` option of fit and search: `FRACTION` (e.g. 0.8, the share of usable rows in the
- * first part; the rest is held out), drawn by a seeded permutation, or `COLUMN` naming an integer
- * or label column whose rows equal to `train`/`selection`/`1` form the first part and the others
- * the held-out part.
+ * The `--split` option of fit and search, in the project's split syntax (src/table/split.ts):
+ * `random[:TRAIN,VALIDATION,TEST]` fits (or selects) on the training part and measures on the test
+ * part (validation rows are left unused and counted); `where:CONDITION` fits where the condition
+ * holds and measures where it does not (an undecidable condition leaves the row out, counted).
+ * `kfold:K` is not a single split: fit and search refuse it and point to --folds.
  */
 import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
-import { Rng, deriveSeed } from '../util/rng.ts';
+import { parseSplitSpec, randomSplit } from '../table/split.ts';
+import { evaluateExpression } from '../table/expr/evaluate.ts';
 
-export function splitRows(table: Table, spec: string, seed: number): { first: Int32Array; second: Int32Array; description: string } {
-  const s = spec.trim();
-  const f = Number(s);
-  if (s !== '' && Number.isFinite(f)) {
-    if (!(f > 0 && f < 1)) throw new SurmiseError('relate.badSplit', `--split ${spec}: expected a fraction strictly between 0 and 1 (e.g. 0.8), or a column name`);
-    const perm = new Rng(deriveSeed(seed, 'split')).permutation(table.nRows);
-    const cut = Math.round(f * table.nRows);
-    return { first: perm.slice(0, cut).sort(), second: perm.slice(cut).sort(), description: `random ${Math.round(f * 100)}/${Math.round((1 - f) * 100)} split (seed ${seed})` };
+export interface RowSplit {
+  /** Table rows of the fitting (selection) part, ascending. */
+  first: Int32Array;
+  /** Table rows of the held-out part, ascending. */
+  second: Int32Array;
+  /** Rows in neither part (validation share, or an undecidable condition). */
+  unused: number;
+  description: string;
+}
+
+export function splitRows(table: Table, spec: string, seed: number): RowSplit {
+  const s = parseSplitSpec(spec);
+  if (s.kind === 'kfold') {
+    throw new SurmiseError('relate.badSplit', `--split ${spec}: a k-fold split is not one fitting part and one held-out part; use --folds ${s.k} for cross-validation`);
   }
-  const col = table.columns.find((c) => c.name === s);
-  if (!col) {
-    throw new SurmiseError(
-      'relate.badSplit',
-      `--split ${spec}: not a fraction in (0, 1) and no column of ${table.source} has that name; columns: ${table.columns.map((c) => c.name).join(', ')}`,
-    );
+  if (s.kind === 'random') {
+    const r = randomSplit(table.nRows, { train: s.train, validation: s.validation, test: s.test, seed });
+    return { first: r.train, second: r.test, unused: r.validation.length, description: r.description };
   }
-  if (col.kind === 'complex' || col.kind === 'real') throw new SurmiseError('relate.badSplit', `--split ${spec}: the column must hold labels or integers (train/test or 1/0), it holds ${col.kind} values`);
-  const first: number[] = [];
-  const second: number[] = [];
+  const v = evaluateExpression(table, s.condition);
+  if (v.im) throw new SurmiseError('relate.badSplit', `--split where:${s.condition}: the condition has complex values; compare re(…) or abs(…)`);
+  const a: number[] = [];
+  const b: number[] = [];
+  let unused = 0;
   for (let i = 0; i < table.nRows; i++) {
-    if (col.missing[i]) continue;
-    const v = String(col.values[i]).toLowerCase();
-    if (v === 'train' || v === 'selection' || v === '1') first.push(i);
-    else second.push(i);
+    const c = v.re[i]!;
+    if (Number.isNaN(c) || v.missing[i]) unused++;
+    else if (c !== 0) a.push(i);
+    else b.push(i);
   }
-  return { first: Int32Array.from(first), second: Int32Array.from(second), description: `split by column '${s}' (train/selection/1 against the rest)` };
+  if (a.length === 0 || b.length === 0) {
+    throw new SurmiseError('relate.badSplit', `--split where:${s.condition}: ${a.length} rows satisfy the condition and ${b.length} do not; both parts must be non-empty`);
+  }
+  return {
+    first: Int32Array.from(a),
+    second: Int32Array.from(b),
+    unused,
+    description: `fit where ${s.condition} (${a.length} rows), held out where not (${b.length} rows)${unused ? `; ${unused} rows undecidable` : ''}`,
+  };
 }

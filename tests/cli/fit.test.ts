@@ -83,16 +83,20 @@ describe('surmise fit (CLI)', () => {
     expect(await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'x;;x'], io2)).toBe(2);
     expect(io2.err).toMatch(/--terms: term 2 is empty/);
     const io3 = memoryIO(dir);
-    expect(await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'x', '--split', '1.5'], io3)).toBe(2);
-    expect(io3.err).toMatch(/--split 1\.5: expected a fraction/);
+    expect(await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'x', '--split', 'kfold:3'], io3)).toBe(2);
+    expect(io3.err).toMatch(/--split kfold:3: a k-fold split is not one fitting part and one held-out part; use --folds 3/);
+    const io4 = memoryIO(dir);
+    expect(await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'x', '--split', 'random:0.5,0.6,0.1'], io4)).toBe(2);
+    expect(io4.err).toMatch(/\[split\.badSpec\]/);
   });
   it('--split reports a held-out RMSE and --derive adds a column', async () => {
     const io = memoryIO(dir);
-    const code = await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'u', '--derive', 'u=x/2', '--split', '0.8', '--folds', '2', '--json'], io);
+    const code = await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'u', '--derive', 'u=x/2', '--split', 'where:x <= 11', '--folds', '2', '--json'], io);
     expect(code).toBe(0);
     const j = JSON.parse(io.out);
-    expect(j.n).toBe(9); // round(0.8 · 11)
-    expect(j.heldOut.n).toBe(2);
+    expect(j.n).toBe(8); // x ∈ {10, 8, 9, 11, 6, 4, 7, 5}
+    expect(j.heldOut.n).toBe(3); // x ∈ {13, 14, 12}
+    expect(j.split).toMatch(/fit where x <= 11 \(8 rows\), held out where not \(3 rows\)/);
     expect(j.terms[1].term).toBe('u');
   });
 });

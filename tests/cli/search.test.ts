@@ -47,8 +47,9 @@ describe('surmise search (CLI)', () => {
   });
   it('human output names the held-out split and warns about multiple comparisons', async () => {
     const io = memoryIO(dir);
-    expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x,p,q', '--powers', '-1..2'], io)).toBe(0);
-    expect(io.out).toMatch(/held-out rows 600/);
+    expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x,p,q', '--powers', '-1..2', '--split', 'random:0.5,0.1,0.4'], io)).toBe(0);
+    // project split syntax: 1500 rows → 600 test, 150 validation (unused here, and said so), 750 train
+    expect(io.out).toMatch(/selection rows 750, held-out rows 600: .*\(150 rows in neither part\)/);
     expect(io.out).toMatch(/multiple comparisons/);
     expect(io.out).toMatch(/3\*x\^2 - 2\*p\*q/);
     expect(io.out).toMatch(/skipped terms \(4\):\n {2}- sqrt\(p\): 'p' < 0 at data row \d+/);
