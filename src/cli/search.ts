@@ -121,7 +121,11 @@ export function registerSearch(program: Command, io: CliIO): void {
         if (io.isTTY) {
           if (!bar) {
             bar = new cliProgress.SingleBar(
-              { stream: { write: (s: string) => io.stderr(s) } as unknown as NodeJS.WritableStream, format: 'screening subsets [{bar}] {value}/{total}' },
+              {
+                // io.stderr is a terminal here (io.isTTY); give cli-progress a stream view of it
+                stream: { write: (s: string) => io.stderr(s), isTTY: true, columns: 80 } as unknown as NodeJS.WritableStream,
+                format: 'screening subsets [{bar}] {value}/{total}',
+              },
               cliProgress.Presets.legacy,
             );
             bar.start(total, 0);
