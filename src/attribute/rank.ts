@@ -13,7 +13,9 @@ import { parseDerive } from '../table/expr/index.ts';
 import { SurmiseError } from '../errors.ts';
 import { deriveSeed, Rng } from '../util/rng.ts';
 import { trainNetwork } from '../learn/train.ts';
-import type { TrainedNetwork } from '../learn/trained.ts';
+import { trainMany } from '../learn/many.ts';
+import { ensureBackend } from '../learn/backend.ts';
+import { networkFromJSON, type TrainedNetwork } from '../learn/trained.ts';
 import { chooseTask, type Task } from '../learn/options.ts';
 import { fitConstant } from '../learn/constant.ts';
 import { selectRidge } from '../learn/ridge.ts';
@@ -48,6 +50,8 @@ export interface RankOptions {
   epochs?: number;
   /** The one seed every other is derived from. Default 1. */
   seed?: number;
+  /** Worker threads for training (learn's trainMany); 0 trains here with per-epoch progress. Default 2. */
+  workers?: number;
   /** Retrain without the K best groups and report the skill left. Default 0 (off). */
   dropTop?: number;
   /** Held-out rows used for attribution per repeat (seeded subsample). Default 2000. */
@@ -88,6 +92,7 @@ export const RANK_DEFAULTS = Object.freeze({
   integratedSteps: 32,
   permutationRepeats: 5,
   resamples: 1000,
+  workers: 2,
 });
 
 export interface RankEntry {
@@ -151,6 +156,7 @@ function checkOptions(o: RankOptions): void {
   posInt('epochs', o.epochs, 1);
   posInt('seed', o.seed, 0);
   posInt('dropTop', o.dropTop, 0);
+  posInt('workers', o.workers, 0);
   posInt('attributionRows', o.attributionRows, 2);
   posInt('smoothGradSamples', o.smoothGradSamples, 1);
   posInt('integratedSteps', o.integratedSteps, 1);
@@ -194,23 +200,66 @@ export function batchSizeFor(nTrain: number): number {
   return Math.max(8, Math.min(RANK_DEFAULTS.batchSize, b));
 }
 
-/** Train, score and baseline one repeat. */
-async function fitRepeat(
-  d: RepeatData,
+interface Fit {
+  net: TrainedNetwork;
+  score: number;
+  constant: number;
+  ridge: number;
+  epochsRun: number;
+}
+
+/**
+ * Train one network per repeat. With `workers` ≥ 1 and several repeats, the learn stage's
+ * trainMany spreads them over worker threads (both cores; progress then moves per finished
+ * network); otherwise they train here one after another with per-epoch progress. The networks
+ * are identical either way (the learn stage tests this). Yields each repeat's fitted network,
+ * its held-out score and the two baselines' scores on the same split, in repeat order.
+ */
+async function* trainAll(
+  datas: readonly RepeatData[],
+  seeds: readonly number[],
   task: Task,
-  o: { hidden: number[]; epochs: number; seed: number },
-  onEpoch: (epoch: number) => void,
-): Promise<{ net: TrainedNetwork; score: number; constant: number; ridge: number; epochsRun: number }> {
-  const net = await trainNetwork(
-    d.train,
-    d.validation,
-    { hidden: o.hidden, maxEpochs: o.epochs, patience: RANK_DEFAULTS.patience, batchSize: batchSizeFor(d.train.n), learningRate: RANK_DEFAULTS.learningRate, seed: o.seed, task },
-    (e) => onEpoch(e.epoch),
-  );
-  const score = evaluate(net, d.test).score;
-  const constant = evaluate(fitConstant(d.train.y, task), d.test).score;
-  const ridge = evaluate(selectRidge(d.train, d.validation, task).model, d.test).score;
-  return { net, score, constant, ridge, epochsRun: net.epochs };
+  o: { hidden: number[]; epochs: number; workers: number },
+  onUnits: (done: number, message: string) => void,
+  labels: readonly string[],
+): AsyncGenerator<Fit> {
+  const netOptions = (d: RepeatData, seed: number) => ({
+    hidden: o.hidden,
+    maxEpochs: o.epochs,
+    patience: RANK_DEFAULTS.patience,
+    batchSize: batchSizeFor(d.train.n),
+    learningRate: RANK_DEFAULTS.learningRate,
+    seed,
+    task,
+  });
+  const score = (net: TrainedNetwork, d: RepeatData): Fit => ({
+    net,
+    score: evaluate(net, d.test).score,
+    constant: evaluate(fitConstant(d.train.y, task), d.test).score,
+    ridge: evaluate(selectRidge(d.train, d.validation, task).model, d.test).score,
+    epochsRun: net.epochs,
+  });
+  if (o.workers >= 1 && datas.length > 1) {
+    let finished = 0;
+    const rep = await trainMany(
+      datas.map((d, r) => ({ train: d.train, validation: d.validation, options: netOptions(d, seeds[r]!) })),
+      {
+        workers: o.workers,
+        onJobDone: (i) => {
+          finished++;
+          onUnits(finished * o.epochs, `${labels[i]} trained (${finished}/${datas.length})`);
+        },
+      },
+    );
+    await ensureBackend();
+    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!);
+    return;
+  }
+  for (let r = 0; r < datas.length; r++) {
+    const d = datas[r]!;
+    const net = await trainNetwork(d.train, d.validation, netOptions(d, seeds[r]!), (e) => onUnits(r * o.epochs + e.epoch, `${labels[r]}, epoch ${e.epoch}`));
+    yield score(net, d);
+  }
 }
 
 /** Seeded subsample of at most `max` of the n held-out rows (all of them when n ≤ max), in row order. */
@@ -235,6 +284,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const attributionRows = options.attributionRows ?? RANK_DEFAULTS.attributionRows;
   const resamples = options.resamples ?? RANK_DEFAULTS.resamples;
   const dropTop = options.dropTop ?? 0;
+  const workers = options.workers ?? RANK_DEFAULTS.workers;
 
   const ds = buildDataset(table, {
     target: options.target,
@@ -267,12 +317,14 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const completeness: RankResult['completeness'] = [];
   const repeatsInfo: RankResult['repeats'] = [];
   const metric: 'r2' | 'accuracy' = task === 'regression' ? 'r2' : 'accuracy';
+  const datas = plans.map((plan) => repeatData(ds, plan, all));
+  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers }, (u, m) => report('train', u, m), plans.map((q) => q.label));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
-    const d = repeatData(ds, plan, all);
+    const d = datas[r]!;
     const label = plan.label;
     const pk = d.kept.length;
-    const fit = await fitRepeat(d, task, { hidden, epochs, seed: plan.seed }, (e) => report('train', r * unitsPerRepeat + e, `${label}, epoch ${e}`));
+    const fit = (await fits.next()).value as Fit;
     try {
       netScores.push(fit.score);
       constScores.push(fit.constant);
@@ -342,13 +394,9 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const s: number[] = [];
     const c: number[] = [];
     const rr: number[] = [];
-    for (let r = 0; r < R; r++) {
-      const plan = plans[r]!;
-      const d = repeatData(ds, plan, keep);
-      const base = R * unitsPerRepeat + r * unitsPerRepeat;
-      const fit = await fitRepeat(d, task, { hidden, epochs, seed: deriveSeed(plan.seed, 'ablation') }, (e) =>
-        report('ablation', base + e, `without ${dropped.map((g) => g.name).join(', ')}: ${plan.label}, epoch ${e}`),
-      );
+    const without = dropped.map((g) => g.name).join(', ');
+    const abl = plans.map((plan) => repeatData(ds, plan, keep));
+    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
       fit.net.dispose();
       s.push(fit.score);
       c.push(fit.constant);

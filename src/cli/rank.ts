@@ -32,6 +32,7 @@ interface RankCliOptions {
   epochs: string;
   seed: string;
   dropTop: string;
+  workers: string;
   format?: string;
   json?: boolean;
   out?: string;
@@ -174,6 +175,7 @@ export function registerRank(program: Command, io: CliIO): void {
     .option('--epochs <n>', 'most training epochs (early stopping on the validation rows)', String(RANK_DEFAULTS.epochs))
     .option('--seed <s>', 'the seed every other seed is derived from', String(RANK_DEFAULTS.seed))
     .option('--drop-top <k>', 'also retrain without the k best groups and report the skill left', '0')
+    .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
     .option('--out <dir>', 'also write rank.json into this folder')
@@ -206,6 +208,7 @@ export function registerRank(program: Command, io: CliIO): void {
         epochs: parsePositiveInt('--epochs', o.epochs),
         seed,
         dropTop: parseNonNegativeInt('--drop-top', o.dropTop),
+        workers: parseNonNegativeInt('--workers', o.workers),
       };
       let outFile: string | undefined;
       if (o.out !== undefined) {

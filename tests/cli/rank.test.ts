@@ -22,7 +22,7 @@ beforeAll(() => {
   writeFileSync(csv, lines.join('\n') + '\n');
 });
 
-const FAST = ['--hidden', '16,16', '--epochs', '15', '--seeds', '2', '--method', 'saliency,permutation'];
+const FAST = ['--workers', '0', '--hidden', '16,16', '--epochs', '15', '--seeds', '2', '--method', 'saliency,permutation'];
 
 describe('surmise rank', () => {
   it('--json prints one object with the documented fields', async () => {
