@@ -25,6 +25,7 @@ export interface FitOptions {
   level: string;
   format?: string;
   json?: boolean;
+  keepDuplicates?: boolean;
 }
 
 /** A non-negative integer option, or `relate.badOption` naming it. */
@@ -47,7 +48,11 @@ export function splitTerms(text: string): string[] {
 
 export function renderFit(r: FitResult): string {
   const lines: string[] = [];
-  const drop = r.dropped.total > 0 ? `, ${r.dropped.total} of ${r.nRows} dropped (missing or non-finite values)` : '';
+  const d = r.dropped;
+  const why = [d.missing ? `${d.missing} with missing cells` : '', d.nonFinite ? `${d.nonFinite} with non-finite values` : '', d.duplicates ? `${d.duplicates} exact duplicates` : '']
+    .filter(Boolean)
+    .join(', ');
+  const drop = d.total > 0 ? `, ${d.total} of ${r.nRows} dropped (${why})` : '';
   const nT = r.terms.length - (r.intercept ? 1 : 0);
   lines.push(`least squares: ${r.target} on ${nT} term${nT === 1 ? '' : 's'}${r.intercept ? ' and an intercept' : ' (no intercept)'}, ${r.n} rows used${drop}`);
   lines.push('');
@@ -107,6 +112,7 @@ export function registerFit(program: Command, io: CliIO): void {
     .option('--folds <k>', 'cross-validation folds', '5')
     .option('--level <p>', 'confidence level of the intervals', '0.95')
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
+    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .action(async (file: string, o: FitOptions) => {
       const seed = intOption('--seed', o.seed, 0);
@@ -125,7 +131,7 @@ export function registerFit(program: Command, io: CliIO): void {
         const s = splitRows(table, o.split, seed);
         split = { train: s.first, test: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
-      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, seed, folds, level, ...(split ? { split } : {}) });
+      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, seed, folds, level, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}) });
       if (o.json) io.stdout(toJson(r) + '\n');
       else io.stdout(renderFit(r));
     });

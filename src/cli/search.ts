@@ -28,6 +28,7 @@ interface SearchOptions {
   format?: string;
   json?: boolean;
   progress: boolean;
+  keepDuplicates?: boolean;
 }
 
 /** `lo..hi` with integers, e.g. `-3..3`. */
@@ -46,7 +47,11 @@ function row(c: SearchCandidate, rank: number): string[] {
 
 export function renderSearch(r: SearchResult): string {
   const out: string[] = [];
-  const drop = r.dropped.total > 0 ? ` (${r.dropped.total} rows dropped for missing or non-finite values)` : '';
+  const d = r.dropped;
+  const why = [d.missing ? `${d.missing} with missing cells` : '', d.nonFinite ? `${d.nonFinite} with non-finite values` : '', d.duplicates ? `${d.duplicates} exact duplicates` : '']
+    .filter(Boolean)
+    .join(', ');
+  const drop = d.total > 0 ? ` (${d.total} rows dropped: ${why})` : '';
   out.push(`formula search for ${r.target}: ${r.nCandidateTerms} candidate terms, ${r.nCandidatesTried} subsets tried (${r.mode})`);
   out.push(`selection rows ${r.selectionRows}, held-out rows ${r.heldOutRows}${drop}: ${r.split}`);
   out.push('');
@@ -92,6 +97,7 @@ export function registerSearch(program: Command, io: CliIO): void {
     .option('--seed <n>', 'seed for the split', '0')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
+    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .option('--no-progress', 'no progress output on stderr')
     .action(async (file: string, o: SearchOptions) => {
@@ -138,7 +144,7 @@ export function registerSearch(program: Command, io: CliIO): void {
       };
       let r: SearchResult;
       try {
-        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, progress, ...(split ? { split } : {}) });
+        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, progress, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}) });
       } finally {
         (bar as cliProgress.SingleBar | null)?.stop();
       }

@@ -8,10 +8,13 @@ import type { Table } from '../table/types.ts';
 import { evaluateExpression } from '../table/expr/evaluate.ts';
 import { exprError } from '../table/expr/caret.ts';
 import { deriveColumn } from '../table/expr/derive.ts';
+import { dropDuplicates, type KeyColumn } from '../table/dataset-rows.ts';
 
 export interface DroppedRows {
   /** Rows dropped in all. */
   total: number;
+  /** Rows dropped as exact repeats of an earlier row (every column equal, labels included); first kept. */
+  duplicates: number;
   /** Rows with a missing input cell in some expression. */
   missing: number;
   /** Rows whose value was not finite (though no cell was missing). */
@@ -41,10 +44,15 @@ export function realExpression(table: Table, source: string, role: string): { va
   return { values: v.re, missing: v.missing };
 }
 
-/** Indices of the rows where every column is present and finite, with the count of the rest. */
+/**
+ * Indices of the rows where every column is present and finite, with the count of the rest.
+ * With `dedupeOn`, a row that repeats an earlier kept row in every column of that table (labels
+ * included) is dropped too and counted as a duplicate (the first is kept).
+ */
 export function completeRows(
   columns: Array<{ expression: string; values: Float64Array; missing: Uint8Array }>,
   nRows: number,
+  dedupeOn?: Table,
 ): { rows: Int32Array; dropped: DroppedRows } {
   const keep = new Uint8Array(nRows).fill(1);
   const anyMissing = new Uint8Array(nRows);
@@ -63,18 +71,28 @@ export function completeRows(
     }
     return { expression: c.expression, missing, nonFinite };
   });
-  let count = 0;
-  for (let i = 0; i < nRows; i++) count += keep[i]!;
-  const rows = new Int32Array(count);
-  let k = 0;
   let missing = 0;
   let nonFinite = 0;
   for (let i = 0; i < nRows; i++) {
-    if (keep[i]) rows[k++] = i;
-    else if (anyMissing[i]) missing++;
+    if (keep[i]) continue;
+    if (anyMissing[i]) missing++;
     else nonFinite++;
   }
-  return { rows, dropped: { total: nRows - count, missing, nonFinite, byExpression } };
+  let duplicates = 0;
+  if (dedupeOn) {
+    const keys: KeyColumn[] = [];
+    for (const c of dedupeOn.columns) {
+      if (c.kind === 'label') keys.push({ strings: c.values, missing: c.missing });
+      else if (c.kind === 'complex') keys.push({ numbers: c.re, missing: c.missing }, { numbers: c.im, missing: c.missing });
+      else keys.push({ numbers: c.values, missing: c.missing });
+    }
+    duplicates = dropDuplicates(keep, keys);
+  }
+  let count = 0;
+  for (let i = 0; i < nRows; i++) count += keep[i]!;
+  const rows = new Int32Array(count);
+  for (let i = 0, k = 0; i < nRows; i++) if (keep[i]) rows[k++] = i;
+  return { rows, dropped: { total: nRows - count, duplicates, missing, nonFinite, byExpression } };
 }
 
 /** A shallow copy of `table` with derived columns appended (each may use the ones before it). */

@@ -34,6 +34,8 @@ export interface SearchSpec {
   maxExhaustive?: number;
   /** Cap on product terms (default 600). */
   maxProducts?: number;
+  /** Keep rows that repeat an earlier row in every column (default false: drop and count them). */
+  keepDuplicates?: boolean;
   /** Called with (done, total) while subsets are screened. */
   progress?: (done: number, total: number) => void;
 }
@@ -154,7 +156,7 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
       ? { expression: c.name, values: c.re.map((x, i) => x + c.im[i]! * 0), missing: c.missing }
       : { expression: c.name, values: (c as { values: Float64Array }).values, missing: c.missing })),
   ];
-  const { rows, dropped } = completeRows(checks, table.nRows);
+  const { rows, dropped } = completeRows(checks, table.nRows, spec.keepDuplicates ? undefined : table0);
   // selection / held-out parts (indices into `rows`)
   let sel: Int32Array;
   let held: Int32Array;

@@ -38,9 +38,25 @@ describe('fitRelation row policy and options', () => {
   it('drops and counts rows with a missing or non-finite value, per expression (never silently)', () => {
     const r = fitRelation(t, { target: 'y', terms: ['x', 'log(z)'] });
     expect(r.n).toBe(n - 2);
-    expect(r.dropped).toMatchObject({ total: 2, missing: 1, nonFinite: 1 });
+    expect(r.dropped).toMatchObject({ total: 2, missing: 1, nonFinite: 1, duplicates: 0 });
     expect(r.dropped.byExpression.find((d) => d.expression === 'log(z)')!.nonFinite).toBe(1);
     expect(r.warnings[0]).toMatch(/2 of 400 rows dropped/);
+  });
+  it('drops and counts exact repeats of an earlier row (all columns, labels included), unless asked to keep them', () => {
+    const u = makeTable({
+      id: ['a', 'b', 'b', 'c', 'd', 'e'],
+      x: new Float64Array([1, 2, 2, 3, 4, 5]),
+      y: new Float64Array([1.1, 2.0, 2.0, 2.9, 4.2, 5.0]),
+    });
+    const r = fitRelation(u, { target: 'y', terms: ['x'] });
+    expect(r.n).toBe(5);
+    expect(r.dropped.duplicates).toBe(1);
+    expect(r.warnings[0]).toMatch(/1 exact repeat of an earlier row/);
+    const k = fitRelation(u, { target: 'y', terms: ['x'], keepDuplicates: true });
+    expect(k.n).toBe(6);
+    // a row equal in x and y but with another label is not a repeat
+    const v = makeTable({ id: ['a', 'b', 'z'], x: new Float64Array([1, 2, 2]), y: new Float64Array([1, 2, 2]) });
+    expect(fitRelation(v, { target: 'y', terms: ['x'] }).dropped.duplicates).toBe(0);
   });
   it('recovers the planted coefficients 1, 2, −1/2 as simplest rationals in the intervals (known answer by construction)', () => {
     const r = fitRelation(t, { target: 'y', terms: ['x', 'z'] });
