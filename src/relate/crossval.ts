@@ -8,7 +8,7 @@ import { SurmiseError } from '../errors.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import { kahanSum } from '../util/sum.ts';
 import { lstsq } from './lstsq.ts';
-import { pivotedHouseholderQR, tailNorm } from './qr.ts';
+import { pivotedHouseholderQR } from './qr.ts';
 
 export interface CrossValidation {
   k: number;
@@ -50,12 +50,27 @@ export function rmseOn(pred: Float64Array, y: Float64Array, idx: ArrayLike<numbe
  * stacked small blocks (M_g, c_g), g ≠ f: "tall-skinny QR" (Demmel, Grigori, Hoemmen & Langou,
  * SIAM J. Sci. Comput. 34, 2012). All k training fits cost about one QR of the whole design.
  */
-function foldBlocks(work: Float64Array[], y: Float64Array, perm: Int32Array, bounds: number[]): Array<{ m: Float64Array[]; c: Float64Array }> {
-  const p = work.length;
+function foldBlocks(
+  raw: Float64Array[],
+  mean: Float64Array,
+  scale: Float64Array,
+  y: Float64Array,
+  perm: Int32Array,
+  bounds: number[],
+): Array<{ m: Float64Array[]; c: Float64Array }> {
+  const p = raw.length;
   const out: Array<{ m: Float64Array[]; c: Float64Array }> = [];
   for (let f = 0; f + 1 < bounds.length; f++) {
     const idx = perm.subarray(bounds[f]!, bounds[f + 1]!);
-    const qr = pivotedHouseholderQR(work.map((w) => gather(w, idx)), [gather(y, idx)], 0);
+    // the fold's rows of the centred, unit-length columns, built while gathering
+    const cols = raw.map((c, j) => {
+      const out = new Float64Array(idx.length);
+      const m = mean[j]!;
+      const inv = 1 / scale[j]!;
+      for (let i = 0; i < idx.length; i++) out[i] = (c[idx[i]!]! - m) * inv;
+      return out;
+    });
+    const qr = pivotedHouseholderQR(cols, [gather(y, idx)], 0);
     const m = Array.from({ length: p }, () => new Float64Array(p));
     for (let k = 0; k < p; k++) for (let i = 0; i <= k; i++) m[qr.piv[k]!]![i] = qr.r[i * p + k]!;
     out.push({ m, c: qr.qty[0]!.slice(0, p) });
@@ -91,18 +106,22 @@ export function crossValidatedRmse(
   const mean = new Float64Array(p);
   const scale = new Float64Array(p);
   const raw = intercept ? [new Float64Array(n).fill(1), ...columns] : columns;
-  const work = raw.map((c, j) => {
+  raw.forEach((c, j) => {
     const m = intercept && j > 0 ? kahanSum(c) / n : 0;
     mean[j] = m;
-    const w = new Float64Array(n);
-    for (let i = 0; i < n; i++) w[i] = c[i]! - m;
-    const s = tailNorm(w, 0, n) || 1;
-    scale[j] = s;
-    for (let i = 0; i < n; i++) w[i] = w[i]! / s;
-    return w;
+    let ss = 0;
+    for (let i = 0; i < n; i++) ss += (c[i]! - m) ** 2;
+    if (!(ss < 1e300)) {
+      // overflow: the norm with the largest entry factored out
+      let big = 0;
+      for (let i = 0; i < n; i++) big = Math.max(big, Math.abs(c[i]! - m));
+      ss = 0;
+      for (let i = 0; i < n; i++) ss += ((c[i]! - m) / big) ** 2;
+      scale[j] = big * Math.sqrt(ss);
+    } else scale[j] = Math.sqrt(ss) || 1;
   });
   const smallest = Math.floor(n / k);
-  const blocks = smallest > p ? foldBlocks(work, y, perm, bounds) : null;
+  const blocks = smallest > p ? foldBlocks(raw, mean, scale, y, perm, bounds) : null;
   const sq = new Float64Array(n);
   const foldRmse: number[] = [];
   for (let f = 0; f < k; f++) {
