@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { Matrix, QrDecomposition } from 'ml-matrix';
+import { Matrix, QrDecomposition, inverse } from 'ml-matrix';
+import fc from 'fast-check';
 import { lstsq } from '../../src/relate/lstsq.ts';
 import { Rng } from '../../src/util/rng.ts';
 import { lre } from './lre.ts';
@@ -147,6 +148,40 @@ describe('random designs against ml-matrix QrDecomposition (general-purpose libr
   });
 });
 
+describe('least-squares optimality and standard errors', () => {
+  it('property: residuals are orthogonal to every column, Xᵀe = 0 (the normal equations characterise the minimiser; Golub & Van Loan §5.3)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 5 }), fc.integer({ min: 8, max: 60 }), fc.integer({ min: 0, max: 1e6 }), (p, extra, seed) => {
+        const rng = new Rng(seed);
+        const n = p + extra;
+        const cols = Array.from({ length: p }, () => Float64Array.from({ length: n }, () => rng.uniform(-3, 3) * 10 ** rng.int(3)));
+        const y = Float64Array.from({ length: n }, () => rng.normal() * 5);
+        const f = lstsq(cols, y);
+        const all = [new Float64Array(n).fill(1), ...cols];
+        for (const c of all) {
+          let dot = 0, norm = 0;
+          for (let i = 0; i < n; i++) { dot += c[i]! * f.residuals[i]!; norm += c[i]! * c[i]!; }
+          expect(Math.abs(dot)).toBeLessThanOrEqual(1e-9 * Math.sqrt(norm) * Math.sqrt(f.rss + 1));
+        }
+      }),
+      { numRuns: 60, seed: 7 },
+    );
+  });
+  it('standard errors equal sqrt(σ̂² diag((XᵀX)⁻¹)) computed with ml-matrix inverse on a well-conditioned design (general-purpose library)', () => {
+    const rng = new Rng(99);
+    const n = 80;
+    const cols = Array.from({ length: 3 }, () => Float64Array.from({ length: n }, () => rng.normal()));
+    const y = Float64Array.from({ length: n }, (_, i) => cols[0]![i]! - cols[2]![i]! + rng.normal());
+    const f = lstsq(cols, y);
+    const X = new Matrix(Array.from({ length: n }, (_, i) => [1, cols[0]![i]!, cols[1]![i]!, cols[2]![i]!]));
+    const inv = inverse(X.transpose().mmul(X));
+    const s2 = f.rss / (n - 4);
+    for (let j = 0; j < 4; j++) expect(f.se[j]).toBeCloseTo(Math.sqrt(s2 * inv.get(j, j)), 12);
+    // and the interval uses t_{0.975, 76}
+    expect(f.high[1]! - f.coef[1]!).toBeCloseTo(f.tQuantile * f.se[1]!, 14);
+  });
+});
+
 describe('rank deficiency', () => {
   it('a duplicated and a collinear term are reported by name (fact: x and 2x − 3 span the same space as x with an intercept)', () => {
     const rng = new Rng(7);
@@ -161,6 +196,10 @@ describe('rank deficiency', () => {
     const involved = new Set([c.term, ...c.of.map((o) => o.term)]);
     expect(involved).toEqual(new Set(['1', 'x', 'w']));
     expect(fit.warnings.join(' ')).toMatch(/rank-deficient design \(rank 3 of 4\)/);
+    // a constant column is collinear with the intercept, and is named so
+    const k = Float64Array.from(x, () => 4.5);
+    const fk = lstsq([x, k], y, { names: ['x', 'k'] });
+    expect(fk.collinear).toEqual([{ term: 'k', of: [{ term: '1', coef: expect.closeTo(4.5, 12) }] }]);
     // the fitted values are still the least-squares ones: same residuals as the fit without w
     const ref = lstsq([x, z], y);
     expect(fit.rss).toBeCloseTo(ref.rss, 9);
