@@ -1,0 +1,121 @@
+/**
+ * Many diagrams at once: read a diagram file (lines `name<TAB>code`, or a CSV/TSV/JSON table with a
+ * column of codes), compute invariants row by row with errors that name file, line and column,
+ * and lay the results out as table records.
+ */
+import { readFileSync } from 'node:fs';
+import { extname } from 'node:path';
+import { SurmiseError } from '../errors.ts';
+import { readTable } from '../table/read.ts';
+import type { Table } from '../table/types.ts';
+import { parseDiagram } from './diagram.ts';
+import { computeInvariants, type ComputeOptions, type InvariantName, type KnotInvariants } from './invariants.ts';
+import { splitDiagramLines, type DiagramKind, type DiagramSource } from './parse.ts';
+
+export interface ReadDiagramsOptions {
+  /** Column holding the codes (tables only). */
+  column?: string;
+  /** Column holding the names (tables only; default `name` when present, else row<line>). */
+  nameColumn?: string;
+  /** How to show the file in messages (default: the path as given). */
+  displayName?: string;
+}
+
+const TABLE_EXT = new Set(['.csv', '.json', '.jsonl', '.ndjson']);
+
+function cellText(t: Table, col: string, row: number): string | undefined {
+  const c = t.columns.find((x) => x.name === col)!;
+  if (c.missing[row]) return undefined;
+  if (c.kind === 'label') return c.values[row]!;
+  if (c.kind === 'complex') return undefined;
+  return String(c.values[row]!);
+}
+
+/**
+ * The diagrams of a file with their places. Lines format unless the extension is .csv/.json/.jsonl
+ * or a `column` is given (then the table layer reads it; default column `code`).
+ */
+export async function readDiagramFile(path: string, opts: ReadDiagramsOptions = {}): Promise<DiagramSource[]> {
+  const display = opts.displayName ?? path;
+  const isTable = opts.column !== undefined || TABLE_EXT.has(extname(path).toLowerCase());
+  if (!isTable) {
+    let text: string;
+    try {
+      text = readFileSync(path, 'utf8');
+    } catch (e) {
+      throw new SurmiseError('knots.unreadable', `cannot read ${display}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+    }
+    return splitDiagramLines(text, display);
+  }
+  const column = opts.column ?? 'code';
+  const kinds: Record<string, 'label'> = { [column]: 'label' };
+  if (opts.nameColumn) kinds[opts.nameColumn] = 'label';
+  let t: Table;
+  try {
+    t = await readTable(path, { displayName: display, complexPairs: 'none' });
+  } catch (e) {
+    throw e;
+  }
+  const names = t.columns.map((c) => c.name);
+  if (!names.includes(column))
+    throw new SurmiseError('knots.noColumn', `${display}: no column '${column}' of codes (columns: ${names.join(', ')}); give --column`);
+  const nameCol = opts.nameColumn ?? (names.includes('name') ? 'name' : undefined);
+  if (nameCol !== undefined && !names.includes(nameCol))
+    throw new SurmiseError('knots.noColumn', `${display}: no column '${nameCol}' of names (columns: ${names.join(', ')})`);
+  const out: DiagramSource[] = [];
+  const seen = new Map<string, number>();
+  for (let r = 0; r < t.nRows; r++) {
+    const line = t.lines ? t.lines[r]! : r + 2;
+    const code = cellText(t, column, r);
+    if (code === undefined) throw new SurmiseError('knots.parse', `${display}:${line}: the '${column}' cell is empty`);
+    const name = (nameCol ? cellText(t, nameCol, r) : undefined) ?? `row${line}`;
+    const prev = seen.get(name);
+    if (prev !== undefined) throw new SurmiseError('knots.duplicateName', `${display}:${line}: the name '${name}' was already used on line ${prev}`);
+    seen.set(name, line);
+    out.push({ name, code, line, column: 1 });
+  }
+  return out;
+}
+
+/** Invariants of one source, with errors re-thrown as `file:line:column: name: message`. */
+export function invariantsOf(src: DiagramSource, file: string, kind: DiagramKind | undefined, opts: ComputeOptions): KnotInvariants {
+  try {
+    return computeInvariants(parseDiagram(src.code, kind), opts);
+  } catch (e) {
+    if (e instanceof SurmiseError) throw new SurmiseError(e.code, `${file}:${src.line}:${src.column}: ${src.name}: ${e.message}`, e.details);
+    throw e;
+  }
+}
+
+/** Column order and record layout of the output table. */
+export function invariantColumns(inv: readonly InvariantName[]): string[] {
+  const cols: string[] = [];
+  for (const k of inv) cols.push(k === 'levine_tristram' ? 'levine_tristram' : k);
+  return cols;
+}
+
+/** Text of the linking numbers, e.g. `(1,2):1 (1,3):-1`; empty for knots. */
+export function linkingText(l: KnotInvariants['linking']): string {
+  return (l ?? []).map((x) => `(${x.i},${x.j}):${x.lk}`).join(' ');
+}
+
+/** One flat record for a table (alexander as text, lists as space-separated text). */
+export function tableRecord(name: string, r: KnotInvariants, inv: readonly InvariantName[]): Record<string, string | number | null> {
+  const rec: Record<string, string | number | null> = { name };
+  for (const k of inv) {
+    switch (k) {
+      case 'crossings': rec[k] = r.crossings; break;
+      case 'writhe': rec[k] = r.writhe; break;
+      case 'components': rec[k] = r.components; break;
+      case 'signature': rec[k] = r.signature ?? null; break;
+      case 'determinant': rec[k] = r.determinant === undefined ? null : typeof r.determinant === 'string' ? Number(r.determinant) : r.determinant; break;
+      case 'alexander': rec[k] = r.alexanderText ?? null; break;
+      case 'seifert_circles': rec[k] = r.seifertCircles ?? null; break;
+      case 'genus_bound': rec[k] = r.genusBound ?? null; break;
+      case 'linking': rec[k] = linkingText(r.linking); break;
+      case 'levine_tristram': rec[k] = r.levineTristram ?? null; break;
+      case 'jumps': rec[k] = (r.jumps ?? []).join(' '); break;
+    }
+  }
+  return rec;
+}
