@@ -36,6 +36,8 @@ export interface SearchSpec {
   maxProducts?: number;
   /** Keep rows that repeat an earlier row in every column (default false: drop and count them). */
   keepDuplicates?: boolean;
+  /** Sample the usable rows (before any split) so that (candidate terms × rows) ≤ this (default 25,000,000). */
+  maxCells?: number;
   /** Called with (done, total) while subsets are screened. */
   progress?: (done: number, total: number) => void;
 }
@@ -156,7 +158,29 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
       ? { expression: c.name, values: c.re.map((x, i) => x + c.im[i]! * 0), missing: c.missing }
       : { expression: c.name, values: (c as { values: Float64Array }).values, missing: c.missing })),
   ];
-  const { rows, dropped } = completeRows(checks, table.nRows, spec.keepDuplicates ? undefined : table0);
+  const complete = completeRows(checks, table.nRows, spec.keepDuplicates ? undefined : table0);
+  const dropped = complete.dropped;
+  // memory: every candidate term is a column of the rows in use; keep (terms × rows) under
+  // `maxCells` by a seeded sample of the usable rows (said in the notes)
+  const nReal = fromCols.filter((c) => c.kind !== 'complex').length;
+  const nComplex = fromCols.length - nReal;
+  const nPow = powers[1] - powers[0] + 1 - (powers[0] <= 0 && powers[1] >= 0 ? 1 : 0);
+  const pairs = (nReal * (nReal - 1)) / 2;
+  const estTerms = nReal * (nPow + 3) + 4 * nComplex + Math.min(spec.maxProducts ?? 600, pairs * nPow * nPow) +
+    2 * (nComplex * nReal + (nComplex * (nComplex - 1)) / 2);
+  const maxCells = spec.maxCells ?? 25_000_000;
+  let rows = complete.rows;
+  let sampledNote: string | null = null;
+  if (rows.length * estTerms > maxCells) {
+    const keepN = Math.max(1000, Math.floor(maxCells / estTerms));
+    if (keepN < rows.length) {
+      const perm = new Rng(deriveSeed(seed, 'search', 'sample')).permutation(rows.length);
+      const pick = perm.slice(0, keepN).sort();
+      const all = rows;
+      rows = Int32Array.from(pick, (i) => all[i]!);
+      sampledNote = `to bound memory (about ${estTerms} candidate terms), the search used a seeded random sample of ${keepN} of the ${all.length} usable rows.`;
+    }
+  }
   // selection / held-out parts (indices into `rows`)
   let sel: Int32Array;
   let held: Int32Array;
@@ -302,6 +326,7 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
     `${tried} subsets screened (${mode}) on ${sel.length} selection rows; the ${survivors.length} survivors were refitted there and measured on ${held.length} held-out rows that took no part in the choice.`,
     'With many candidates some fit well by luck (multiple comparisons): trust a formula only when its held-out error matches its selection error and it survives on new data.',
   ];
+  if (sampledNote) notes.push(sampledNote);
   if (collinear > 0) notes.push(`${collinear} subsets were passed over as numerically collinear.`);
   if (mode === 'greedy') notes.push(`greedy forward selection: ${total} subsets would be needed for an exhaustive search (limit ${maxExhaustive}); the best subset may be missed.`);
   return {

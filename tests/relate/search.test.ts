@@ -47,6 +47,12 @@ describe('searchRelations', () => {
     }
     expect(exact).toBeGreaterThanOrEqual(7);
   });
+  it('bounds memory by sampling rows when terms × rows would pass maxCells, and says so', () => {
+    const r = searchRelations(planted(5000, 4), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 1, powers: [-1, 2], seed: 3, maxCells: 100_000 });
+    // estimated terms for 3 real columns, powers −1..2 (3 powers): 3·6 + 3·9 = 45 → 2222 rows
+    expect(r.selectionRows + r.heldOutRows).toBe(2222);
+    expect(r.notes.join(' ')).toMatch(/seeded random sample of 2222 of the 5000 usable rows/);
+  });
   it('falls back to greedy forward selection past the exhaustive limit and still finds the law', () => {
     const t = planted(2000, 12);
     const r = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, seed: 1, maxExhaustive: 100 });
