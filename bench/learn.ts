@@ -2,6 +2,7 @@
  * Learning-stage benchmark: prints each figure beside its target.
  *   node --import tsx bench/learn.ts            (full: about 3–6 minutes on a loaded 2-core machine)
  *   node --import tsx bench/learn.ts --quick    (smaller sizes, same figures scaled)
+ *   node --import tsx bench/learn.ts --widths   (only: default widths 64 vs 128 on 20,000 rows to early stop)
  * Network 16→300→300→300→1, ReLU, batch 256, as in the targets.
  */
 import { initBackend, trainNetwork, trainMany, fitRidge, type TrainData } from '../src/learn/index.ts';
@@ -43,6 +44,23 @@ async function samplesPerSecond(d: TrainData): Promise<number> {
   return d.n / ((performance.now() - t) / 1000);
 }
 const perCpu = () => `   (${lastPerCpu.toFixed(0)} per CPU-second)`;
+
+// 0. the default network (early stopping) on 20,000 rows, at widths 64 and 128
+if (process.argv.includes('--widths')) {
+  await initBackend('wasm');
+  const tr = table(20_000, 11);
+  const va = table(5_000, 12);
+  for (const w of [64, 128]) {
+    const t0 = performance.now();
+    const c = cpuS();
+    const m = await trainNetwork(tr, va, { hidden: [w, w, w], seed: 1 });
+    const s = (performance.now() - t0) / 1000;
+    line(`hidden [${w},${w},${w}], 20,000 rows to early stop, seconds`, s.toFixed(1), 'well under 60');
+    console.log(`   (${(cpuS() - c).toFixed(1)} CPU-seconds, ${m.epochs} epochs, best ${m.bestEpoch}, val loss ${m.history[m.bestEpoch - 1]!.valLoss.toFixed(4)})`);
+    m.dispose();
+  }
+  process.exit(0);
+}
 
 // 1. cpu against wasm (short runs, after a warm-up batch)
 const small = table(quick ? 1024 : 2048, 1);

@@ -28,28 +28,11 @@ export function makeLayout(sizes: number[]): Layout {
   return { sizes, wOff, bOff, total: off };
 }
 
-/** Per-layer tensors cut from the flat parameter vector. */
+/** Per-layer tensors: weights, their transposes (for the backward pass) and biases. */
 export interface Views {
   W: tf.Tensor2D[];
   WT: tf.Tensor2D[];
   b: tf.Tensor1D[];
-}
-
-export function makeViews(P: tf.Tensor1D, L: Layout): Views {
-  return tf.tidy(() => {
-    const W: tf.Tensor2D[] = [];
-    const WT: tf.Tensor2D[] = [];
-    const b: tf.Tensor1D[] = [];
-    for (let l = 0; l + 1 < L.sizes.length; l++) {
-      const i = L.sizes[l]!;
-      const o = L.sizes[l + 1]!;
-      const w = tf.reshape(tf.slice(P, L.wOff[l]!, i * o), [i, o]) as tf.Tensor2D;
-      W.push(w);
-      WT.push(tf.transpose(w) as tf.Tensor2D);
-      b.push(tf.slice(P, L.bOff[l]!, o) as tf.Tensor1D);
-    }
-    return { W, WT, b };
-  });
 }
 
 /**
@@ -122,7 +105,7 @@ export function forward(X: tf.Tensor2D, v: Views, act: Activation, keep: boolean
   return { out, A, Z };
 }
 
-/** Back-propagate dOut through the hidden layers down to the input of layer `stop` (0 = the input X). */
+/** Back-propagate dOut = ∂f/∂out through every layer down to the input X: returns ∂f/∂X. */
 export function backwardToInput(dOut: tf.Tensor2D, fw: { A: tf.Tensor2D[]; Z: tf.Tensor2D[] }, v: Views, act: Activation): tf.Tensor2D {
   const nl = v.W.length;
   let dZ = dOut;

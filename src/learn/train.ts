@@ -20,6 +20,8 @@ const BETA1 = 0.9;
 const BETA2 = 0.999;
 const EPS = 1e-7;
 const HUBER_DELTA = 1; // in standardized target units
+/** Most classes an explicit task 'classification' accepts (the automatic choice stops at 50). */
+const MAX_CLASSIFIER_OUTPUTS = 500;
 
 /** He-normal initial weights (He et al., "Delving Deep into Rectifiers", ICCV 2015): N(0, 2/fan_in); output layer N(0, 1/fan_in); biases 0. */
 function initParams(L: Layout, seed: number): Float32Array {
@@ -59,6 +61,12 @@ function prepareTargets(train: TrainData, val: TrainData, task: Task): Prepared 
   const classes = [...new Set(train.y)].sort((a, b) => a - b);
   if (classes.length < 2) {
     throw new SurmiseError('learn.oneClass', `classification needs at least two distinct target values in the training rows; found only ${classes[0]}`);
+  }
+  if (classes.length > MAX_CLASSIFIER_OUTPUTS) {
+    throw new SurmiseError(
+      'learn.tooManyClasses',
+      `classification over ${classes.length} distinct target values (at most ${MAX_CLASSIFIER_OUTPUTS}); learn this target as regression (task 'regression')`,
+    );
   }
   const index = new Map(classes.map((c, k) => [c, k]));
   const tTrain = Float32Array.from(train.y, (v) => index.get(v)!);

@@ -5,7 +5,7 @@
 import * as tf from '@tensorflow/tfjs';
 import { SurmiseError } from '../errors.ts';
 import { checkMatrix } from './data.ts';
-import { backwardToInput, disposeViews, forward, makeLayout, makeViews, type Layout, type Views } from './layers.ts';
+import { backwardToInput, disposeViews, forward, makeLayout, viewsFromParams, type Layout, type Views } from './layers.ts';
 import type { Activation, LossName, NetworkOptions, Task } from './options.ts';
 
 export interface EpochRecord {
@@ -82,9 +82,7 @@ class Network implements TrainedNetwork {
     this.bestEpoch = state.bestEpoch;
     this.history = state.history;
     this.layout = makeLayout(state.sizes);
-    const P = tf.tensor1d(Float32Array.from(state.params));
-    this.views = makeViews(P, this.layout);
-    P.dispose();
+    this.views = viewsFromParams(Float32Array.from(state.params), this.layout);
     this.classT = state.classes ? tf.tensor2d(Float32Array.from(state.classes), [1, state.classes.length]) : null;
   }
 
@@ -96,8 +94,7 @@ class Network implements TrainedNetwork {
   /** Apply `fn` to row chunks of x; fn returns a Float32Array of `width` values per row. */
   private chunks(x: Float64Array | Float32Array, n: number, width: number, fn: (X: tf.Tensor2D) => tf.Tensor): Float64Array {
     checkMatrix(x, n, this.p, 'network input');
-    const v = this.live();
-    void v;
+    this.live();
     const out = new Float64Array(n * width);
     for (let r0 = 0; r0 < n; r0 += CHUNK) {
       const r1 = Math.min(n, r0 + CHUNK);

@@ -194,5 +194,7 @@ describe('network', () => {
     const bad = { ...tr, x: Float64Array.from(tr.x) };
     bad.x[2 * 10 + 3] = NaN;
     await expect(trainNetwork(bad, tr, {})).rejects.toThrow('training rows: input row 3, column 4 is NaN');
+    // a real-valued target forced into classification: every row its own class
+    await expect(trainNetwork(friedman(600, 2), tr, { task: 'classification' })).rejects.toThrow(/600 distinct target values/);
   });
 });
