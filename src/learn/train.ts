@@ -223,7 +223,7 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
         best = P.slice();
       } else since++;
       onEpoch?.(rec);
-      if (since > o.patience) break;
+      if (since > 0 && since >= o.patience) break; // `patience` epochs in a row without a better validation loss
     }
     const params = Array.from(best);
     return {

@@ -187,6 +187,25 @@ describe('network', () => {
     for (let k = 0; k < gCpu.length; k++) expect(Math.abs(gCpu[k]! - gWasm[k]!)).toBeLessThan(1e-3 * (1 + Math.abs(gWasm[k]!)));
   });
 
+  it('early stopping: stops after `patience` epochs without improvement and restores the best epoch', async () => {
+    // a small noisy training set overfits quickly (common practice)
+    const tr = friedman(150, 61);
+    const va = friedman(300, 62);
+    const net = await trainNetwork(tr, va, { hidden: [64, 64], maxEpochs: 400, patience: 4, seed: 6, batchSize: 32, learningRate: 3e-3 });
+    const losses = net.history.map((h) => h.valLoss);
+    const best = losses.indexOf(Math.min(...losses)) + 1;
+    expect(net.bestEpoch).toBe(best);
+    expect(net.epochs).toBeLessThan(400); // it did stop early
+    expect(net.epochs - net.bestEpoch).toBe(4);
+    // hand-derived: the restored weights reproduce the best epoch's validation MSE, in standardized units
+    const s = net.toJSON();
+    const pr = net.predict(va.x, va.n);
+    let mse = 0;
+    for (let i = 0; i < va.n; i++) mse += ((pr[i]! - va.y[i]!) / s.yScale) ** 2;
+    expect(mse / va.n).toBeCloseTo(losses[best - 1]!, 4);
+    net.dispose();
+  });
+
   it('rejects bad options and bad data with typed errors naming the place', async () => {
     const tr = friedman(50, 1);
     await expect(trainNetwork(tr, tr, { batchSize: 0 })).rejects.toThrow('expected batchSize to be a positive integer, got 0');
