@@ -32,33 +32,43 @@ export function simplestRational(low: number, high: number, maxDen = 1e9): Ratio
     const r = simplestRational(-high, -low, maxDen);
     return r === null ? null : make(-r.num, r.den);
   }
-  // 0 < low ≤ high: build the continued fraction [a0; a1, …] of the answer
-  const terms: number[] = [];
-  let l = low;
-  let h = high;
-  for (let depth = 0; depth < 64; depth++) {
-    const c = Math.ceil(l);
-    if (c <= h) {
-      terms.push(c);
-      break;
+  // 0 < low ≤ high, in exact rational arithmetic on the float64 endpoints (each is m·2^e exactly),
+  // so the recursion terminates like Euclid's algorithm and point intervals work
+  let [ln, ld] = exact(low);
+  let [hn, hd] = exact(high);
+  const cap = Number.isFinite(maxDen) ? BigInt(Math.floor(maxDen)) : null;
+  // convergents p/q of the partial continued fraction [a0; a1, …] (Khinchin ch. I, eq. 4)
+  let p1 = 1n, p2 = 0n, q1 = 0n, q2 = 1n;
+  for (;;) {
+    const c = ceilDiv(ln, ld);
+    const last = c * hd <= hn; // an integer c lies in [l, h]: it ends the expansion
+    const a = last ? c : ln / ld; // else a = ⌊l⌋ (l > 0, not an integer)
+    [p1, p2] = [a * p1 + p2, p1];
+    [q1, q2] = [a * q1 + q2, q1];
+    // denominators only grow along the expansion, so passing the cap is final
+    if (cap !== null && q1 > cap) return null;
+    if (last) {
+      if (p1 > BigInt(Number.MAX_SAFE_INTEGER) || q1 > BigInt(Number.MAX_SAFE_INTEGER)) return null;
+      return make(Number(p1), Number(q1));
     }
-    const a = Math.floor(l);
-    terms.push(a);
-    const nl = 1 / (h - a);
-    const nh = 1 / (l - a);
-    l = nl;
-    h = nh;
-    if (!Number.isFinite(l)) return null;
+    // new interval [1/(h − a), 1/(l − a)]
+    [ln, ld, hn, hd] = [hd, hn - a * hd, ld, ln - a * ld];
   }
-  // fold [a0; a1, …, ak] into num/den
-  let num = 1;
-  let den = 0;
-  for (let i = terms.length - 1; i >= 0; i--) {
-    const t = terms[i]!;
-    [num, den] = [t * num + den, num];
-    if (den > maxDen || !Number.isSafeInteger(num)) return null;
+}
+
+/** x = num/den exactly, with den a power of two (x finite, > 0). */
+function exact(x: number): [bigint, bigint] {
+  let den = 1n;
+  while (!Number.isInteger(x)) {
+    x *= 2;
+    den *= 2n;
   }
-  return make(num, den);
+  return [BigInt(x), den];
+}
+
+/** ⌈n/d⌉ for n, d > 0. */
+function ceilDiv(n: bigint, d: bigint): bigint {
+  return (n + d - 1n) / d;
 }
 
 /**

@@ -52,6 +52,11 @@ describe('simplestRational (Stern–Brocot; Graham, Knuth & Patashnik, Concrete 
       { numRuns: 300, seed: 42 },
     );
   });
+  it('a point interval gives the fraction when it is one, else null past the denominator cap', () => {
+    expect(simplestRational(0.5, 0.5)!.text).toBe('1/2');
+    expect(simplestRational(-0.75, -0.75)!.text).toBe('-3/4');
+    expect(simplestRational(Math.PI, Math.PI, 1e6)).toBeNull(); // π's float64 value needs a denominator far above 1e6
+  });
   it('empty or infinite intervals give null', () => {
     expect(simplestRational(1, 0)).toBeNull();
     expect(simplestRational(NaN, 1)).toBeNull();
