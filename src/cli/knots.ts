@@ -1,14 +1,350 @@
+/**
+ * `surmise knots FILE`: a table of invariants, one row per diagram; `surmise knots generate …`:
+ * diagram files of random braids, twisted families and torus knots.
+ */
+import { existsSync, openSync, writeSync, closeSync, renameSync, unlinkSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
 import type { Command } from 'commander';
+import { SurmiseError, didYouMean } from '../errors.ts';
 import type { CliIO } from './io.ts';
-import { SurmiseError } from '../errors.ts';
+import { makeProgress } from './progress.ts';
+import { parseIntOption, parsePositiveInt } from './options.ts';
+import { readTable } from '../table/read.ts';
+import { writeTable } from '../table/write.ts';
+import { tableFromRecords } from '../table/columns.ts';
+import { quoteField } from '../table/write.ts';
+import { formatNumber } from '../table/cell.ts';
+import type { Column, Table } from '../table/types.ts';
+import { Rng, deriveSeed } from '../util/rng.ts';
+import {
+  DEFAULT_INVARIANTS,
+  DIAGRAM_KINDS,
+  INVARIANT_NAMES,
+  parseCode,
+  randomBraid,
+  torusBraid,
+  twistedBraid,
+  type DiagramKind,
+  type InvariantName,
+  type KnotInvariants,
+} from '../knots/index.ts';
+import { invariantsOf, readDiagramFile, tableRecord } from '../knots/batch.ts';
 
-// Placeholder until the command is built; replaced by the stage that owns it.
-export function registerKnots(program: Command, _io: CliIO): void {
-  program
-    .command('knots')
-    .description('(not built yet)')
-    .allowUnknownOption()
-    .action(() => {
-      throw new SurmiseError('cli.notBuilt', "the 'knots' command is not built yet");
+const CONVENTIONS =
+  'Conventions: PD crossings X[a,b,c,d] are read counter-clockwise from the incoming under-edge; a crossing is\n' +
+  'positive (right-handed) when the over-strand runs d -> b; writhe = sum of signs. Braid generator i (sigma_i)\n' +
+  'is a positive crossing, -i its inverse. Signature = sign(V + V^T) for a Seifert matrix V, so the\n' +
+  'right-handed trefoil (braid "1 1 1") has signature -2. Alexander polynomial Conway-normalised:\n' +
+  'Delta(t) = Delta(1/t), Delta(1) = 1 for knots; determinant = |Delta(-1)|.';
+
+interface KnotsOptions {
+  kind?: string;
+  column?: string;
+  nameColumn?: string;
+  invariants?: string;
+  omega?: string;
+  out?: string;
+  join?: string;
+  on?: string;
+  prefix?: string;
+  force?: boolean;
+  json?: boolean;
+  progress?: boolean;
+}
+
+function parseKind(k: string | undefined): DiagramKind | undefined {
+  if (k === undefined) return undefined;
+  if (!DIAGRAM_KINDS.includes(k as DiagramKind))
+    throw new SurmiseError('knots.option', `--kind ${k}: expected one of ${DIAGRAM_KINDS.join(', ')}${didYouMean(k, DIAGRAM_KINDS)}`);
+  return k as DiagramKind;
+}
+
+function parseInvariants(raw: string | undefined, omega: boolean): InvariantName[] {
+  let list: InvariantName[] = raw === undefined ? [...DEFAULT_INVARIANTS] : [];
+  if (raw !== undefined) {
+    for (const part of raw.split(',').map((s) => s.trim()).filter((s) => s.length > 0)) {
+      if (part === 'all') {
+        list = [...INVARIANT_NAMES];
+        continue;
+      }
+      if (!INVARIANT_NAMES.includes(part as InvariantName))
+        throw new SurmiseError('knots.option', `--invariants: unknown invariant '${part}'${didYouMean(part, INVARIANT_NAMES)} (known: ${INVARIANT_NAMES.join(', ')}, all)`);
+      if (!list.includes(part as InvariantName)) list.push(part as InvariantName);
+    }
+    if (list.length === 0) throw new SurmiseError('knots.option', '--invariants: the list is empty');
+  }
+  if (omega && !list.includes('levine_tristram')) list.push('levine_tristram');
+  return list;
+}
+
+function parseOmega(raw: string | undefined): number | undefined {
+  if (raw === undefined) return undefined;
+  const v = Number(raw);
+  if (raw.trim() === '' || !Number.isFinite(v) || v < 0 || v > 1)
+    throw new SurmiseError('knots.option', `--omega ${raw}: expected x in [0, 1], meaning omega = exp(2 pi i x) (0.5 is omega = -1)`);
+  return v;
+}
+
+function cellOut(c: Column, i: number): string {
+  if (c.missing[i]) return '';
+  if (c.kind === 'label') return quoteField(c.values[i]!, ',');
+  if (c.kind === 'complex') return `${formatNumber(c.re[i]!)}+${formatNumber(c.im[i]!)}j`;
+  return formatNumber(c.values[i]!);
+}
+
+function csvText(t: Table): string {
+  const lines = [t.columns.map((c) => quoteField(c.name, ',')).join(',')];
+  for (let i = 0; i < t.nRows; i++) lines.push(t.columns.map((c) => cellOut(c, i)).join(','));
+  return lines.join('\n') + '\n';
+}
+
+function jsonRow(name: string, r: KnotInvariants, inv: readonly InvariantName[]): Record<string, unknown> {
+  const o: Record<string, unknown> = { name };
+  for (const k of inv) {
+    if (k === 'alexander') {
+      o.alexander = r.alexander?.coefficients ?? null;
+      o.alexander_lowest_exponent = r.alexander?.lowestExponent ?? null;
+      o.alexander_text = r.alexanderText ?? null;
+      o.alexander_sign_fixed = r.alexanderSignFixed ?? null;
+    } else if (k === 'linking') o.linking = r.linking ?? [];
+    else if (k === 'jumps') o.jumps = r.jumps ?? [];
+    else if (k === 'levine_tristram') {
+      o.levine_tristram = r.levineTristram ?? null;
+      o.omega = r.omega ?? null;
+    } else o[k] = tableRecord(name, r, [k])[k];
+  }
+  return o;
+}
+
+async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void> {
+  // options, checked once
+  const kind = parseKind(o.kind);
+  const omega = parseOmega(o.omega);
+  const inv = parseInvariants(o.invariants, omega !== undefined);
+  if ((o.join === undefined) !== (o.on === undefined)) throw new SurmiseError('knots.option', '--join TABLE and --on KEY go together');
+  const path = resolve(io.cwd, file);
+  const sources = await readDiagramFile(path, { column: o.column, nameColumn: o.nameColumn, displayName: file });
+  const progress = makeProgress(io, 'knots', o.progress !== false && sources.length >= 200);
+  const results: KnotInvariants[] = [];
+  sources.forEach((s, k) => {
+    results.push(invariantsOf(s, file, kind, { invariants: inv, omega }));
+    if (k % 100 === 99) progress.update(k + 1, sources.length);
+  });
+  progress.update(sources.length, sources.length);
+  progress.stop();
+
+  const prefix = o.prefix ?? '';
+  const records = sources.map((s, k) => tableRecord(s.name, results[k]!, inv));
+  const kinds: Record<string, 'label' | 'integer' | 'real'> = { name: 'label' };
+  for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
+  let table: Table;
+  let unmatched: { diagrams: string[]; rows: string[] } | undefined;
+  if (o.join !== undefined) {
+    const census = await readTable(resolve(io.cwd, o.join), { displayName: o.join });
+    const keyCol = census.columns.find((c) => c.name === o.on);
+    if (!keyCol)
+      throw new SurmiseError('knots.noColumn', `--on ${o.on}: ${o.join} has no column '${o.on}'${didYouMean(o.on!, census.columns.map((c) => c.name))}`);
+    if (keyCol.kind === 'complex') throw new SurmiseError('knots.option', `--on ${o.on}: a complex column cannot be a key`);
+    const newNames = inv.map((k) => prefix + k);
+    for (const n of newNames)
+      if (census.columns.some((c) => c.name === n))
+        throw new SurmiseError('knots.columnExists', `${o.join} already has a column '${n}'; give --prefix to name the new columns differently`);
+    const byName = new Map<string, number>();
+    sources.forEach((s, k) => byName.set(s.name, k));
+    const used = new Set<string>();
+    const rowsUnmatched: string[] = [];
+    const joined: Record<string, unknown>[] = [];
+    for (let i = 0; i < census.nRows; i++) {
+      const key = keyCol.missing[i] ? undefined : keyCol.kind === 'label' ? keyCol.values[i]! : String(keyCol.values[i]!);
+      const k = key === undefined ? undefined : byName.get(key);
+      const rec: Record<string, unknown> = {};
+      for (const kk of inv) rec[prefix + kk] = k === undefined ? null : records[k]![kk];
+      if (k === undefined) rowsUnmatched.push(key ?? `(empty key, line ${census.lines ? census.lines[i] : i + 2})`);
+      else used.add(key!);
+      joined.push(rec);
+    }
+    const diagramsUnmatched = sources.filter((s) => !used.has(s.name)).map((s) => s.name);
+    unmatched = { diagrams: diagramsUnmatched, rows: rowsUnmatched };
+    const pk: Record<string, 'label' | 'integer' | 'real'> = {};
+    for (const k of inv) pk[prefix + k] = kinds[k]!;
+    const added = tableFromRecords(joined, '(knots)', { kinds: pk, complexPairs: 'none' });
+    table = { source: census.source, nRows: census.nRows, columns: [...census.columns, ...added.columns], lines: census.lines };
+    const show = (xs: string[]): string => xs.slice(0, 5).join(', ') + (xs.length > 5 ? `, … (${xs.length - 5} more)` : '');
+    if (rowsUnmatched.length > 0)
+      io.stderr(`surmise knots: ${rowsUnmatched.length} row(s) of ${o.join} have no diagram in ${file} (their new cells are empty): ${show(rowsUnmatched)}\n`);
+    if (diagramsUnmatched.length > 0)
+      io.stderr(`surmise knots: ${diagramsUnmatched.length} diagram(s) of ${file} match no '${o.on}' in ${o.join} (not in the output): ${show(diagramsUnmatched)}\n`);
+  } else {
+    const recs = records.map((r) => {
+      const x: Record<string, unknown> = {};
+      for (const [k, v] of Object.entries(r)) x[k === 'name' ? 'name' : prefix + k] = v;
+      return x;
     });
+    const pk: Record<string, 'label' | 'integer' | 'real'> = {};
+    for (const [k, v] of Object.entries(kinds)) pk[k === 'name' ? 'name' : prefix + k] = v;
+    table = tableFromRecords(recs, file, { kinds: pk, complexPairs: 'none' });
+  }
+  if (o.out !== undefined) await writeTable(table, resolve(io.cwd, o.out), { force: o.force === true });
+  if (o.json) {
+    io.stdout(
+      JSON.stringify({
+        command: 'knots',
+        file,
+        diagrams: sources.length,
+        invariants: inv,
+        conventions: { signature: 'sign(V + V^T); right-handed trefoil -2', alexander: 'Conway-normalised, coefficients lowest power first' },
+        out: o.out ?? null,
+        join: o.join ? { table: o.join, on: o.on, unmatched } : null,
+        rows: sources.map((s, k) => jsonRow(s.name, results[k]!, inv)),
+      }) + '\n',
+    );
+  } else if (o.out === undefined) io.stdout(csvText(table));
+  else io.stderr(`surmise knots: wrote ${table.nRows} rows to ${o.out}\n`);
+}
+
+/** Write text to `path` atomically (temporary file + rename); refuse to overwrite unless force. */
+function writeAtomic(path: string, text: string, force: boolean, display: string): void {
+  if (!force && existsSync(path)) throw new SurmiseError('knots.exists', `${display} already exists; not overwriting it (use --force to replace it)`);
+  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now().toString(36)}.tmp`);
+  let fd: number;
+  try {
+    fd = openSync(tmp, 'wx');
+  } catch (e) {
+    throw new SurmiseError('knots.unwritable', `cannot write ${display}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+  }
+  try {
+    writeSync(fd, text);
+    closeSync(fd);
+    renameSync(tmp, path);
+  } catch (e) {
+    try { unlinkSync(tmp); } catch { /* already gone */ }
+    throw new SurmiseError('knots.unwritable', `cannot write ${display}: ${(e as Error).message}`);
+  }
+}
+
+function parseRange(name: string, raw: string): [number, number] {
+  const m = /^\s*(-?\d+)\s*(?:\.\.\s*(-?\d+)\s*)?$/.exec(raw);
+  if (!m) throw new SurmiseError('knots.option', `${name} ${raw}: expected an integer or a range a..b`);
+  const a = Number(m[1]);
+  const b = m[2] === undefined ? a : Number(m[2]);
+  if (b < a) throw new SurmiseError('knots.option', `${name} ${raw}: the range is empty (${a} > ${b})`);
+  return [a, b];
+}
+
+function emit(lines: string[], out: string | undefined, force: boolean, io: CliIO, json: boolean, what: string): void {
+  const text = lines.join('\n') + '\n';
+  if (out !== undefined) {
+    writeAtomic(resolve(io.cwd, out), text, force, out);
+    if (json) io.stdout(JSON.stringify({ command: `knots generate ${what}`, out, diagrams: lines.length }) + '\n');
+    else io.stderr(`surmise knots generate: wrote ${lines.length} diagrams to ${out}\n`);
+  } else if (json) io.stdout(JSON.stringify({ command: `knots generate ${what}`, out: null, diagrams: lines.map((l) => ({ name: l.split('\t')[0], code: l.split('\t')[1] })) }) + '\n');
+  else io.stdout(text);
+}
+
+const braidText = (strands: number, word: number[]): string => `${strands}: ${word.join(' ')}`;
+
+export function registerKnots(program: Command, io: CliIO): void {
+  const knots = program
+    .command('knots')
+    .description('Invariants of knots and links from PD codes, braid words or DT codes, one table row per diagram')
+    .argument('[file]', 'diagrams: lines "name<TAB>code", or a CSV/JSON table with a column of codes')
+    .option('--kind <kind>', `kind of every code: ${DIAGRAM_KINDS.join('|')} (default: detected)`)
+    .option('--column <name>', 'column of codes in a CSV/TSV/JSON table (default: code)')
+    .option('--name-column <name>', 'column of names in a table (default: name)')
+    .option('--invariants <list>', `comma-separated: ${INVARIANT_NAMES.join(',')} or all (default: ${DEFAULT_INVARIANTS.join(',')})`)
+    .option('--omega <x>', 'Levine–Tristram signature at omega = exp(2 pi i x), x in [0, 1] (0.5: omega = -1)')
+    .option('--out <table>', 'write the table (CSV/TSV/JSON by extension) instead of CSV on stdout')
+    .option('--join <table>', 'add the new columns to this table, matching diagram names to --on')
+    .option('--on <key>', 'key column of the --join table')
+    .option('--prefix <text>', 'prefix for the new column names', '')
+    .option('--force', 'replace an existing output file')
+    .option('--json', 'print one JSON object (Alexander polynomials as coefficient lists, lowest power first)')
+    .option('--no-progress', 'no progress on stderr')
+    .addHelpText('after', `\n${CONVENTIONS}\n\nCodes: PD [[1,5,2,4],[3,1,4,6],[5,3,6,2]] or X[1,5,2,4] X[3,1,4,6] X[5,3,6,2]; braid "1 -2 1 -2",\n"4: 1 2 3" (4 strands) or {"strands":4,"word":[1,2,3]}; DT[4,6,2] (or "4 6 2" with --kind dt).\nA DT code fixes a knot only up to mirror image.\n`)
+    .action(async (file: string | undefined, o: KnotsOptions) => {
+      if (file === undefined) throw new SurmiseError('knots.option', 'give a file of diagrams (surmise knots FILE), or a subcommand: generate');
+      await runKnots(file, o, io);
+    });
+
+  const gen = knots.command('generate').description('write diagram files (name<TAB>code) for stress tests along families');
+  gen
+    .command('braid')
+    .description('random braid words, each letter uniform on ±1..±(strands−1)')
+    .requiredOption('--strands <n>', 'number of strands (≥ 2)')
+    .requiredOption('--length <n>', 'letters per word')
+    .option('--count <n>', 'number of words', '100')
+    .option('--seed <n>', 'seed', '1')
+    .option('--out <file>', 'diagram file to write (default: stdout)')
+    .option('--force', 'replace an existing file')
+    .option('--json', 'print one JSON object')
+    .action((_o: unknown, cmd: Command) => {
+      // options shared by name with `knots` (--out, --force, --json) may be parsed by it: merge
+      const o = cmd.optsWithGlobals() as { strands: string; length: string; count: string; seed: string; out?: string; force?: boolean; json?: boolean };
+      const strands = parsePositiveInt('--strands', o.strands);
+      const length = parsePositiveInt('--length', o.length);
+      const count = parsePositiveInt('--count', o.count);
+      const seed = parseIntOption('--seed', o.seed);
+      const rng = new Rng(deriveSeed(seed, 'knots', 'generate', 'braid'));
+      const width = String(count).length;
+      const lines: string[] = [];
+      for (let k = 0; k < count; k++) {
+        const b = randomBraid(rng, strands, length);
+        lines.push(`braid_${String(k + 1).padStart(width, '0')}\t${braidText(b.strands, b.word)}`);
+      }
+      emit(lines, o.out, o.force === true, io, o.json === true, 'braid');
+    });
+  gen
+    .command('twist')
+    .description('a braid followed by q full twists on strands i..j, for q in a range')
+    .requiredOption('--braid <word>', 'the braid word, e.g. "1 -2 1 -2"')
+    .option('--strands <n>', 'number of strands (default: max |generator| + 1)')
+    .option('--on <i..j>', 'strands that get the full twists, e.g. 1..2 (required)')
+    .requiredOption('--twists <a..b>', 'numbers of full twists, e.g. 0..20 (negative: left-handed)')
+    .option('--name <prefix>', 'name prefix', 'twist')
+    .option('--out <file>', 'diagram file to write (default: stdout)')
+    .option('--force', 'replace an existing file')
+    .option('--json', 'print one JSON object')
+    .action((_o: unknown, cmd: Command) => {
+      const o = cmd.optsWithGlobals() as { braid: string; strands?: string; on?: string; twists: string; name: string; out?: string; force?: boolean; json?: boolean };
+      if (o.on === undefined) throw new SurmiseError('knots.option', "required option '--on <i..j>' not specified (the strands that get the full twists, e.g. 1..2)");
+      const parsed = parseCode(o.strands !== undefined ? `${parsePositiveInt('--strands', o.strands)}: ${o.braid}` : o.braid, 'braid');
+      if (parsed.kind !== 'braid') throw new SurmiseError('knots.option', '--braid must be a braid word');
+      const [i, j] = parseRange('--on', o.on);
+      const [q0, q1] = parseRange('--twists', o.twists);
+      const lines: string[] = [];
+      for (let q = q0; q <= q1; q++) {
+        const b = twistedBraid(parsed.braid, i, j, q);
+        lines.push(`${o.name}_q${q}\t${braidText(b.strands, b.word)}`);
+      }
+      emit(lines, o.out, o.force === true, io, o.json === true, 'twist');
+    });
+  gen
+    .command('torus')
+    .description('torus knots and links T(p, q) as closed braids (σ1…σ_{p−1})^q')
+    .requiredOption('--p <a..b>', 'range of p (strands, ≥ 2)')
+    .requiredOption('--q <a..b>', 'range of q')
+    .option('--coprime', 'only coprime p, q (knots)')
+    .option('--out <file>', 'diagram file to write (default: stdout)')
+    .option('--force', 'replace an existing file')
+    .option('--json', 'print one JSON object')
+    .action((_o: unknown, cmd: Command) => {
+      const o = cmd.optsWithGlobals() as { p: string; q: string; coprime?: boolean; out?: string; force?: boolean; json?: boolean };
+      const [p0, p1] = parseRange('--p', o.p);
+      const [q0, q1] = parseRange('--q', o.q);
+      const gcd = (a: number, b: number): number => (b ? gcd(b, a % b) : Math.abs(a));
+      const lines: string[] = [];
+      for (let p = p0; p <= p1; p++)
+        for (let q = q0; q <= q1; q++) {
+          if (q === 0 || (o.coprime && gcd(p, q) !== 1)) continue;
+          const b = torusBraid(p, q);
+          lines.push(`T(${p},${q})\t${braidText(b.strands, b.word)}`);
+        }
+      if (lines.length === 0) throw new SurmiseError('knots.option', 'no (p, q) in the ranges');
+      emit(lines, o.out, o.force === true, io, o.json === true, 'torus');
+    });
+  // nested commands report through the same IO and never exit the process
+  for (const c of [gen, ...gen.commands]) {
+    c.exitOverride();
+    c.configureOutput({ writeOut: (s) => io.stdout(s), writeErr: (s) => io.stderr(s) });
+  }
 }
