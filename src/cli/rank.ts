@@ -33,6 +33,7 @@ interface RankCliOptions {
   seed: string;
   dropTop: string;
   workers: string;
+  permutationLoss: string;
   format?: string;
   json?: boolean;
   out?: string;
@@ -175,6 +176,7 @@ export function registerRank(program: Command, io: CliIO): void {
     .option('--epochs <n>', 'most training epochs (early stopping on the validation rows)', String(RANK_DEFAULTS.epochs))
     .option('--seed <s>', 'the seed every other seed is derived from', String(RANK_DEFAULTS.seed))
     .option('--drop-top <k>', 'also retrain without the k best groups and report the skill left', '0')
+    .option('--permutation-loss <loss>', 'classification loss for permutation importance: error (drop in accuracy) | cross-entropy', 'error')
     .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
@@ -188,6 +190,9 @@ export function registerRank(program: Command, io: CliIO): void {
       }
       if (o.task !== undefined && o.task !== 'regression' && o.task !== 'classification') {
         throw new SurmiseError('option.badTask', `--task ${o.task}: expected regression or classification${didYouMean(o.task, ['regression', 'classification'])}`);
+      }
+      if (o.permutationLoss !== 'error' && o.permutationLoss !== 'cross-entropy') {
+        throw new SurmiseError('option.badLoss', `--permutation-loss ${o.permutationLoss}: expected error or cross-entropy${didYouMean(o.permutationLoss, ['error', 'cross-entropy'])}`);
       }
       const folds = parseNonNegativeInt('--folds', o.folds);
       if (folds === 1) throw new SurmiseError('option.badInteger', 'expected --folds to be 0 (one random split) or at least 2, got 1');
@@ -209,6 +214,7 @@ export function registerRank(program: Command, io: CliIO): void {
         seed,
         dropTop: parseNonNegativeInt('--drop-top', o.dropTop),
         workers: parseNonNegativeInt('--workers', o.workers),
+        permutationLoss: o.permutationLoss as 'error' | 'cross-entropy',
       };
       let outFile: string | undefined;
       if (o.out !== undefined) {

@@ -79,6 +79,8 @@ describe('surmise rank', () => {
       [['--hidden', '16,x'], /expected --hidden \(each layer width\) to be an integer, got 'x'/],
       [['--task', 'regresion'], /--task regresion: expected regression or classification \(did you mean 'regression'\?\)/],
       [['--split', 'kfold:1'], /kfold needs a whole number of folds >= 2/],
+      [['--permutation-loss', 'entropy'], /--permutation-loss entropy: expected error or cross-entropy/],
+      [['--workers', '-1'], /expected --workers to be a non-negative integer, got -1/],
     ];
     for (const [args, re] of cases) {
       const io = memoryIO(dir);
