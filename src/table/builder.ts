@@ -5,7 +5,7 @@
  * (`needsText`), so the reader never keeps every cell's text of a numeric table.
  */
 import { SurmiseError } from '../errors.ts';
-import { formatComplex, formatNumber, isMissingText, parseComplexText, parseNumberText } from './cell.ts';
+import { formatComplex, formatNumber, isMissingText, parseComplexText, parseNumberText, scanDecimal, scanDecimalBytes, scannedValue } from './cell.ts';
 import type { Column, ColumnKind } from './types.ts';
 
 /** Share of numeric cells from which a column with a few text cells is an error rather than labels (common practice). */
@@ -118,6 +118,27 @@ export class ColumnBuilder {
       this.firstText = s;
     }
     this.texts.push(s);
+  }
+
+  /**
+   * A numeric cell read straight from `text[start..)` (or the same characters in `bytes`, ASCII
+   * text) up to `lineEnd` or the separator `sep` (see `scanDecimal`). Returns the index where the cell ends, or -1 (nothing stored) when the
+   * cell is not a plain decimal or the column keeps texts: the caller then uses `addText`.
+   */
+  addScanned(text: string, bytes: Uint8Array | null, start: number, lineEnd: number, sep: number): number {
+    if (this.texts !== null) return -1;
+    const end = bytes !== null ? scanDecimalBytes(bytes, start, lineEnd, sep) : scanDecimal(text, start, lineEnd, sep);
+    if (end < 0) return -1;
+    this.ensure();
+    const i = this.n++;
+    const x = scannedValue[0]!;
+    this.re[i] = x;
+    this.nNumeric++;
+    if (this.allIntegral && x - x === 0 && !Number.isInteger(x)) {
+      this.allIntegral = false;
+      this.firstNonIntegralRow = i;
+    }
+    return end;
   }
 
   /** A JSON number. */

@@ -39,6 +39,218 @@ function isDecimalLiteral(t: string): boolean {
   return (cl >= 48 && cl <= 57) || cl === 46;
 }
 
+// Exact powers of ten: 10^k is a double exactly for k <= 22 (5^22 < 2^53).
+const POW10 = [1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
+const SPLIT = 134217729; // 2^27 + 1, Dekker's splitting constant
+/** 2^-80: a bound on the relative error of the double-double evaluation below (which is about 2^-100). */
+const DD_SLACK = 2 ** -80;
+
+/** The value of the last successful `scanDecimal`. */
+export const scannedValue = new Float64Array(1);
+
+/**
+ * Read a plain decimal literal `[+-]digits[.digits][(e|E)[+-]digits]` from `t[start..end)` straight
+ * from its character codes, stopping at `end` or at the first character equal to `stop`. Returns
+ * the stopping index and leaves the value in `scannedValue[0]`, or returns -1 (nothing stored) when
+ * the text is anything else (blanks, words, hex, ...) or when exact rounding is not guaranteed here
+ * (more than 19 significant digits, a power of ten beyond ±22): callers then use `Number()`.
+ * The value is bit-identical to `Number()` (ECMA-262 StringToNumber, correctly rounded):
+ * - up to 15 significant digits and |e| <= 22, the significand and 10^|e| are exact doubles and one
+ *   IEEE multiplication or division rounds correctly (Clinger 1990, "How to read floating point
+ *   numbers accurately", the fast path);
+ * - 16 to 19 digits: significand × 10^e in double-double arithmetic (Dekker 1971 exact products,
+ *   Knuth's two-sum), relative error below 2^-100; the rounded value is taken only when rounding
+ *   both ends of an interval of relative width 2^-80 around it gives the same double (rounding is
+ *   monotonic), otherwise -1.
+ */
+export function scanDecimal(t: string, start: number, end: number, stop: number): number {
+  let i = start;
+  let c = i < end ? t.charCodeAt(i) : -1;
+  let neg = false;
+  if (c === 45 || c === 43) {
+    neg = c === 45;
+    c = ++i < end ? t.charCodeAt(i) : -1;
+  }
+  let a = 0; // first 15 significant digits
+  let b = 0; // digits 16..19
+  let nb = 0;
+  let nd = 0; // significant digits (from the first nonzero one)
+  let scale = 0; // value = (a·10^nb + b) · 10^scale
+  let digits = false;
+  while (c >= 48 && c <= 57) {
+    digits = true;
+    if (nd > 0 || c !== 48) {
+      if (nd < 15) a = a * 10 + (c - 48);
+      else if (nd < 19) {
+        b = b * 10 + (c - 48);
+        nb++;
+      } else return -1;
+      nd++;
+    }
+    c = ++i < end ? t.charCodeAt(i) : -1;
+  }
+  if (c === 46) {
+    c = ++i < end ? t.charCodeAt(i) : -1;
+    while (c >= 48 && c <= 57) {
+      digits = true;
+      if (nd > 0 || c !== 48) {
+        if (nd < 15) a = a * 10 + (c - 48);
+        else if (nd < 19) {
+          b = b * 10 + (c - 48);
+          nb++;
+        } else return -1;
+        nd++;
+      }
+      scale--;
+      c = ++i < end ? t.charCodeAt(i) : -1;
+    }
+  }
+  if (!digits) return -1;
+  if (c === 101 || c === 69) {
+    c = ++i < end ? t.charCodeAt(i) : -1;
+    let eneg = false;
+    if (c === 45 || c === 43) {
+      eneg = c === 45;
+      c = ++i < end ? t.charCodeAt(i) : -1;
+    }
+    if (!(c >= 48 && c <= 57)) return -1;
+    let ex = 0;
+    while (c >= 48 && c <= 57) {
+      if (ex < 100000) ex = ex * 10 + (c - 48);
+      c = ++i < end ? t.charCodeAt(i) : -1;
+    }
+    scale += eneg ? -ex : ex;
+  }
+  if (i < end && c !== stop) return -1;
+  return compose(neg, a, b, nb, nd, scale) ? i : -1;
+}
+
+/** `scanDecimal` over the bytes of ASCII text (`t[i]` is the character code at i); same result. */
+export function scanDecimalBytes(t: Uint8Array, start: number, end: number, stop: number): number {
+  let i = start;
+  let c = i < end ? t[i]! : -1;
+  let neg = false;
+  if (c === 45 || c === 43) {
+    neg = c === 45;
+    c = ++i < end ? t[i]! : -1;
+  }
+  let a = 0; // first 15 significant digits
+  let b = 0; // digits 16..19
+  let nb = 0;
+  let nd = 0; // significant digits (from the first nonzero one)
+  let scale = 0; // value = (a·10^nb + b) · 10^scale
+  let digits = false;
+  while (c >= 48 && c <= 57) {
+    digits = true;
+    if (nd > 0 || c !== 48) {
+      if (nd < 15) a = a * 10 + (c - 48);
+      else if (nd < 19) {
+        b = b * 10 + (c - 48);
+        nb++;
+      } else return -1;
+      nd++;
+    }
+    c = ++i < end ? t[i]! : -1;
+  }
+  if (c === 46) {
+    c = ++i < end ? t[i]! : -1;
+    while (c >= 48 && c <= 57) {
+      digits = true;
+      if (nd > 0 || c !== 48) {
+        if (nd < 15) a = a * 10 + (c - 48);
+        else if (nd < 19) {
+          b = b * 10 + (c - 48);
+          nb++;
+        } else return -1;
+        nd++;
+      }
+      scale--;
+      c = ++i < end ? t[i]! : -1;
+    }
+  }
+  if (!digits) return -1;
+  if (c === 101 || c === 69) {
+    c = ++i < end ? t[i]! : -1;
+    let eneg = false;
+    if (c === 45 || c === 43) {
+      eneg = c === 45;
+      c = ++i < end ? t[i]! : -1;
+    }
+    if (!(c >= 48 && c <= 57)) return -1;
+    let ex = 0;
+    while (c >= 48 && c <= 57) {
+      if (ex < 100000) ex = ex * 10 + (c - 48);
+      c = ++i < end ? t[i]! : -1;
+    }
+    scale += eneg ? -ex : ex;
+  }
+  if (i < end && c !== stop) return -1;
+  return compose(neg, a, b, nb, nd, scale) ? i : -1;
+}
+
+/** (a·10^nb + b)·10^scale, negated when `neg`, into scannedValue[0] when exactly rounded here (see scanDecimal). */
+function compose(neg: boolean, a: number, b: number, nb: number, nd: number, scale: number): boolean {
+  let x: number;
+  if (nd === 0) x = 0;
+  else if (scale > 22 || scale < -22) return false;
+  else if (nb === 0) x = scale === 0 ? a : scale > 0 ? a * POW10[scale]! : a / POW10[-scale]!;
+  else {
+    // W = a·10^nb + b exactly as wh + wl
+    const P = POW10[nb]!;
+    let ph = a * P;
+    let s = SPLIT * a;
+    let xh = s - (s - a);
+    let xl = a - xh;
+    s = SPLIT * P;
+    let yh = s - (s - P);
+    let yl = P - yh;
+    let pl = xh * yh - ph + xh * yl + xl * yh + xl * yl;
+    const sh = ph + b; // two-sum (ph, b)
+    const bv = sh - ph;
+    const sl = ph - (sh - bv) + (b - bv) + pl;
+    const wh = sh + sl;
+    const wl = sl - (wh - sh);
+    let hi: number;
+    let lo: number;
+    if (scale === 0) {
+      hi = wh;
+      lo = wl;
+    } else if (scale > 0) {
+      const Q = POW10[scale]!;
+      ph = wh * Q;
+      s = SPLIT * wh;
+      xh = s - (s - wh);
+      xl = wh - xh;
+      s = SPLIT * Q;
+      yh = s - (s - Q);
+      yl = Q - yh;
+      pl = xh * yh - ph + xh * yl + xl * yh + xl * yl + wl * Q;
+      hi = ph + pl;
+      lo = pl - (hi - ph);
+    } else {
+      const Q = POW10[-scale]!;
+      const q1 = wh / Q;
+      // remainder wh + wl - q1·Q, with q1·Q exact as ph + pl
+      ph = q1 * Q;
+      s = SPLIT * q1;
+      xh = s - (s - q1);
+      xl = q1 - xh;
+      s = SPLIT * Q;
+      yh = s - (s - Q);
+      yl = Q - yh;
+      pl = xh * yh - ph + xh * yl + xl * yh + xl * yl;
+      const q2 = (wh - ph - pl + wl) / Q;
+      hi = q1 + q2;
+      lo = q2 - (hi - q1);
+    }
+    const slack = (hi < 0 ? -hi : hi) * DD_SLACK;
+    if (hi + (lo + slack) !== hi || hi + (lo - slack) !== hi) return false;
+    x = hi;
+  }
+  scannedValue[0] = neg ? -x : x;
+  return true;
+}
+
 /**
  * The number written in `s`, or undefined when `s` is not a number. Accepts decimal and
  * scientific notation and (case-insensitively) nan, inf, +inf, -inf, infinity. Blanks around the
@@ -47,6 +259,7 @@ function isDecimalLiteral(t: string): boolean {
  * @example parseNumberText('12abc') // undefined
  */
 export function parseNumberText(s: string): number | undefined {
+  if (scanDecimal(s, 0, s.length, -1) === s.length && s.length > 0) return scannedValue[0];
   const x = Number(s);
   if (x === x && s.length > 0) {
     // x is not NaN; Number() also accepts hex, 'Infinity', and blanks

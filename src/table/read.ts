@@ -128,6 +128,10 @@ function readDelimited(path: string, display: string, sep: string, opts: ReadOpt
       rows++;
       lines.push(line);
     },
+    cellAt(col, text, bytes, start, lineEnd, sep) {
+      if (header === null || col >= nCols) return -1;
+      return builders[col]!.addScanned(text, bytes, start, lineEnd, sep);
+    },
     columnLabel(col) {
       if (header === null) return `header field ${col + 1}`;
       return col < nCols ? `column '${header[col]}' (${col + 1})` : `field ${col + 1}`;
