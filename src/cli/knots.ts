@@ -24,6 +24,13 @@ import {
   randomBraid,
   torusBraid,
   twistedBraid,
+  addKink,
+  analysePD,
+  braidClosurePD,
+  canonicalLabels,
+  pdConnectedSum,
+  type Braid,
+  type Crossing,
   type DiagramKind,
   type InvariantName,
   type KnotInvariants,
@@ -241,6 +248,25 @@ function emit(lines: string[], out: string | undefined, force: boolean, io: CliI
   else io.stdout(text);
 }
 
+/** A random braid whose closure is a knot: retried (length parity alternating) until the permutation is one cycle. */
+function randomKnotBraid(rng: Rng, strands: number, length: number): Braid {
+  for (let attempt = 0; ; attempt++) {
+    const b = randomBraid(rng, strands, length + (attempt % 2));
+    const perm = Array.from({ length: strands }, (_, i) => i);
+    for (const g of b.word) {
+      const i = Math.abs(g) - 1;
+      [perm[i], perm[i + 1]] = [perm[i + 1]!, perm[i]!];
+    }
+    let cyc = 0;
+    let x = 0;
+    do {
+      x = perm[x]!;
+      cyc++;
+    } while (x !== 0);
+    if (cyc === strands) return b;
+  }
+}
+
 const braidText = (strands: number, word: number[]): string => `${strands}: ${word.join(' ')}`;
 
 export function registerKnots(program: Command, io: CliIO): void {
@@ -292,6 +318,45 @@ export function registerKnots(program: Command, io: CliIO): void {
         lines.push(`braid_${String(k + 1).padStart(width, '0')}\t${braidText(b.strands, b.word)}`);
       }
       emit(lines, o.out, o.force === true, io, o.json === true, 'braid');
+    });
+  gen
+    .command('pd')
+    .description('random PD codes of knots: connected sums of closed random braids, with Reidemeister I kinks')
+    .requiredOption('--strands <n>', 'strands of each random braid (≥ 2)')
+    .requiredOption('--length <n>', 'letters of each random braid (its parity may be changed by one so the closure is a knot)')
+    .option('--count <n>', 'number of codes', '100')
+    .option('--summands <a..b>', 'number of connected summands', '1')
+    .option('--kinks <a..b>', 'number of R1 kinks added', '0')
+    .option('--seed <n>', 'seed', '1')
+    .option('--out <file>', 'diagram file to write (default: stdout)')
+    .option('--force', 'replace an existing file')
+    .option('--json', 'print one JSON object')
+    .action((_o: unknown, cmd: Command) => {
+      const o = cmd.optsWithGlobals() as { strands: string; length: string; count: string; summands: string; kinks: string; seed: string; out?: string; force?: boolean; json?: boolean };
+      const strands = parsePositiveInt('--strands', o.strands);
+      const length = parsePositiveInt('--length', o.length);
+      const count = parsePositiveInt('--count', o.count);
+      const [s0, s1] = parseRange('--summands', o.summands);
+      const [k0, k1] = parseRange('--kinks', o.kinks);
+      if (s0 < 1) throw new SurmiseError('knots.option', `--summands ${o.summands}: at least 1`);
+      if (k0 < 0) throw new SurmiseError('knots.option', `--kinks ${o.kinks}: at least 0`);
+      if (strands < 2) throw new SurmiseError('knots.option', `--strands must be an integer ≥ 2, got ${strands}`);
+      const seed = parseIntOption('--seed', o.seed);
+      const rng = new Rng(deriveSeed(seed, 'knots', 'generate', 'pd'));
+      const width = String(count).length;
+      const lines: string[] = [];
+      for (let k = 0; k < count; k++) {
+        const summands = s0 + rng.int(s1 - s0 + 1);
+        let pd: Crossing[] | undefined;
+        for (let j = 0; j < summands; j++) {
+          const piece = braidClosurePD(randomKnotBraid(rng, strands, length)).pd;
+          pd = pd === undefined ? piece : pdConnectedSum(pd, piece, pd[rng.int(pd.length)]![rng.int(4)]!, piece[rng.int(piece.length)]![rng.int(4)]!);
+        }
+        const kinks = k0 + rng.int(k1 - k0 + 1);
+        for (let j = 0; j < kinks; j++) pd = addKink(pd!, pd![rng.int(pd!.length)]![rng.int(4)]!, rng.int(4));
+        lines.push(`pd_${String(k + 1).padStart(width, '0')}\t${JSON.stringify(canonicalLabels(analysePD(pd!)))}`);
+      }
+      emit(lines, o.out, o.force === true, io, o.json === true, 'pd');
     });
   gen
     .command('twist')

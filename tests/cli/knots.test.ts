@@ -120,4 +120,19 @@ describe('surmise knots generate', () => {
     // σ(T(2, 2k+1)) = −2k, det = 2k + 1 (from memory)
     expect(inv.out.trim().split('\n').slice(1)).toEqual(['"T(2,3)",-2,3', '"T(2,5)",-4,5', '"T(2,7)",-6,7', '"T(2,9)",-8,9']);
   });
+
+  it('pd: random knot PD codes (sums, kinks) read back as knots with odd determinant and σ even (from memory: facts of the trade)', async () => {
+    const g = await run(['knots', 'generate', 'pd', '--strands', '3', '--length', '7', '--count', '25', '--summands', '1..2', '--kinks', '0..2', '--seed', '5', '--out', 'pd.txt']);
+    expect(g.code).toBe(0);
+    const r = await run(['knots', 'pd.txt', '--json', '--invariants', 'components,signature,determinant,alexander']);
+    expect(r.code).toBe(0);
+    const rows = JSON.parse(r.out).rows as Array<{ components: number; signature: number; determinant: number; alexander: number[] }>;
+    expect(rows).toHaveLength(25);
+    for (const row of rows) {
+      expect(row.components).toBe(1);
+      expect(Math.abs(row.signature % 2)).toBe(0);
+      expect(row.determinant % 2).toBe(1);
+      expect(row.alexander.reduce((a, b) => a + b, 0)).toBe(1);
+    }
+  });
 });
