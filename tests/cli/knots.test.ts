@@ -135,4 +135,16 @@ describe('surmise knots generate', () => {
       expect(row.alexander.reduce((a, b) => a + b, 0)).toBe(1);
     }
   });
+
+  it('progress: plain lines on a non-terminal stderr for large files, none with --no-progress (common practice)', async () => {
+    const g = await run(['knots', 'generate', 'braid', '--strands', '3', '--length', '5', '--count', '250', '--out', 'many.txt']);
+    expect(g.code).toBe(0);
+    const a = await run(['knots', 'many.txt', '--invariants', 'signature']);
+    expect(a.code).toBe(0);
+    expect(a.err).toContain('knots: 100% (250/250)');
+    expect(a.out.trim().split('\n')).toHaveLength(251);
+    const b = await run(['knots', 'many.txt', '--invariants', 'signature', '--no-progress']);
+    expect(b.err).toBe('');
+    expect(b.out).toBe(a.out);
+  });
 });
