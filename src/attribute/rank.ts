@@ -132,6 +132,8 @@ export interface RankResult {
   repeats: Array<{ seed: number; fold: number; split: string; train: number; validation: number; test: number; attributed: number; constantFeatures: string[] }>;
   interval: { level: number; resamples: number; resampledRows: boolean };
   ablation?: Ablation;
+  /** Held-out actual and predicted values of the first repeat (at most 5,000 rows, seeded sample); classification: the expected value Σ p_k·c_k. */
+  predictions?: { actual: number[]; predicted: number[]; repeat: string; sampledFrom: number };
 }
 
 export interface Ablation {
@@ -318,6 +320,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const repeatsInfo: RankResult['repeats'] = [];
   const metric: 'r2' | 'accuracy' = task === 'regression' ? 'r2' : 'accuracy';
   const datas = plans.map((plan) => repeatData(ds, plan, all));
+  let predictions: RankResult['predictions'];
   const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers }, (u, m) => report('train', u, m), plans.map((q) => q.label));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
@@ -348,6 +351,16 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
         classificationLoss: options.permutationLoss ?? 'error',
       });
       for (const m of methods) byMethod.get(m)!.push(att.scores[m]!);
+      if (r === 0) {
+        const all0 = fit.net.predict(d.test.x, d.test.n);
+        const keepRows = subsample(d.test.n, 5000, deriveSeed(plan.seed, 'prediction-plot'));
+        predictions = {
+          actual: Array.from(keepRows, (i) => d.test.y[i]!),
+          predicted: Array.from(keepRows, (i) => all0[i]!),
+          repeat: label,
+          sampledFrom: d.test.n,
+        };
+      }
       if (att.completeness) completeness.push(att.completeness);
       repeatsInfo.push({ seed: plan.seed, fold: plan.fold, split: plan.description, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length, constantFeatures: d.constant });
     } finally {
@@ -386,6 +399,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     interval: { level: consensus.level, resamples: consensus.resamples, resampledRows: consensus.resampledRows },
   };
   if (completeness.length) result.completeness = completeness;
+  if (predictions) result.predictions = predictions;
 
   if (dropTop > 0) {
     const dropped = consensus.order.slice(0, dropTop).map((k) => groups[k]!);

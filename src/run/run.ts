@@ -149,8 +149,7 @@ function buildReportInput(
       methods,
       ranking: rank.ranking,
     };
-    const preds = (rank as RankResult & { predictions?: { actual: number[]; predicted: number[] } }).predictions;
-    if (preds) input.rank.predictions = preds;
+    if (rank.predictions) input.rank.predictions = { actual: rank.predictions.actual, predicted: rank.predictions.predicted };
     // target against the top feature, coloured by the second
     const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
     if (top.length >= 1) {

@@ -34,7 +34,7 @@ beforeAll(async () => {
 
 describe('surmise demo on the demo census', () => {
   it('writes the run folder: results.json, report.html, report.md, plots as SVG and PNG', () => {
-    for (const f of ['results.json', 'report.html', 'report.md', 'config.yaml', 'plots/attribution-saliency.svg', 'plots/attribution-saliency.png']) {
+    for (const f of ['results.json', 'report.html', 'report.md', 'config.yaml', 'plots/attribution-saliency.svg', 'plots/attribution-saliency.png', 'plots/predicted-vs-actual.svg', 'plots/target-vs-top-feature.svg']) {
       expect(existsSync(join(demoDir, f)), f).toBe(true);
     }
     const sha = createHash('sha256').update(readFileSync(census)).digest('hex');
