@@ -57,7 +57,7 @@ describe('exact linear algebra', () => {
     expect(symmetricSignature(a)).toBe(ev.filter((x) => x > 0).length - ev.filter((x) => x < 0).length);
   });
 
-  it('interpolation through integer nodes and exact division recover known polynomials', () => {
+  it('interpolation through integer nodes and exact division recover known polynomials (hand computation)', () => {
     const p = [3n, -7n, 0n, 11n, -2n]; // 3 − 7t + 11t³ − 2t⁴
     const values = [0, 1, 2, 3, 4].map((t) => p.reduce((s, c, k) => s + c * BigInt(t) ** BigInt(k), 0n));
     expect(interpolateIntegerNodes(values)).toEqual(p);
@@ -67,7 +67,7 @@ describe('exact linear algebra', () => {
     expect(pencilDeterminant([[1, 0], [0, 1]], [[0, 1], [1, 0]])).toEqual([1n, 0n, -1n]);
   });
 
-  it('text form', () => {
+  it('text form (the documented output format, highest power first, as in the specification `t - 1 + t^-1`)', () => {
     expect(formatLaurent({ lowestExponent: -1, coefficients: [1, -1, 1] })).toBe('t - 1 + t^-1');
     expect(formatLaurent({ lowestExponent: -1, coefficients: [2, -3, 2] })).toBe('2t - 3 + 2t^-1');
     expect(formatLaurent({ lowestExponent: -0.5, coefficients: [-1, 1] })).toBe('t^(1/2) - t^(-1/2)');
