@@ -58,7 +58,8 @@ export const scannedValue = new Float64Array(1);
  * - up to 15 significant digits and |e| <= 22, the significand and 10^|e| are exact doubles and one
  *   IEEE multiplication or division rounds correctly (Clinger 1990, "How to read floating point
  *   numbers accurately", the fast path);
- * - 16 to 19 digits: significand × 10^e in double-double arithmetic (Dekker 1971 exact products,
+ * - 16 to 19 digits whose significand is below 2^53: the same (the significand is still exact);
+ * - other 16 to 19 digit significands: significand × 10^e in double-double arithmetic (Dekker 1971 exact products,
  *   Knuth's two-sum), relative error below 2^-100; the rounded value is taken only when rounding
  *   both ends of an interval of relative width 2^-80 around it gives the same double (rounding is
  *   monotonic), otherwise -1.
@@ -194,7 +195,10 @@ function compose(neg: boolean, a: number, b: number, nb: number, nd: number, sca
   if (nd === 0) x = 0;
   else if (scale > 22 || scale < -22) return false;
   else if (nb === 0) x = scale === 0 ? a : scale > 0 ? a * POW10[scale]! : a / POW10[-scale]!;
-  else {
+  else if ((x = a * POW10[nb]! + b) < 9007199254740992) {
+    // 16 to 19 digits but below 2^53: the significand is still an exact double (Clinger's fast path)
+    if (scale !== 0) x = scale > 0 ? x * POW10[scale]! : x / POW10[-scale]!;
+  } else {
     // W = a·10^nb + b exactly as wh + wl
     const P = POW10[nb]!;
     let ph = a * P;
