@@ -4,6 +4,6 @@ export { quantilesType7, QUANTILE_DEFINITION } from './quantile.ts';
 export { equalCountStrata, type Stratum } from './strata.ts';
 export { topK } from './topk.ts';
 export { slopeInterval, type SlopeFit } from './trend.ts';
-export { studentTQuantile, studentTCdf, regularizedBeta, lnGamma } from './student-t.ts';
+export { studentTQuantile, studentTCdf } from '../util/special.ts';
 export { selectByKey, selectValues } from './select.ts';
 export { formatBound } from './format.ts';

@@ -1,4 +1,4 @@
-import { studentTQuantile } from './student-t.ts';
+import { studentTQuantile } from '../util/special.ts';
 
 /** Straight-line least-squares fit y ≈ a + b·x with a two-sided interval for the slope b. */
 export interface SlopeFit {

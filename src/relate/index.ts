@@ -1,7 +1,7 @@
 /** The relate stage: least squares by Householder QR, formula fitting and formula search. */
 export { lstsq, type LstsqOptions, type LstsqResult, type Collinearity } from './lstsq.ts';
 export { pivotedHouseholderQR, singularValues, type PivotedQR } from './qr.ts';
-export { studentTQuantile, studentTUpperTail, logGamma, regularizedBeta, erfc } from './special.ts';
+export { studentTQuantile, studentTUpperTail, studentTCdf, logGamma, regularizedBeta, erfc } from '../util/special.ts';
 export { simplestRational, convergents, type Rational } from './rational.ts';
 export { crossValidatedRmse, type CrossValidation } from './crossval.ts';
 export { fitRelation, type FitSpec, type FitResult, type FitTerm, type RowRef } from './fit.ts';

@@ -7,7 +7,7 @@
  */
 import { kahanSum } from '../util/sum.ts';
 import { pivotedHouseholderQR, backSubstitute, invertUpper, singularValues, tailNorm } from './qr.ts';
-import { studentTQuantile } from './special.ts';
+import { studentTQuantile } from '../util/special.ts';
 
 export interface LstsqOptions {
   /** Prepend a column of ones named `1` (default true). */

