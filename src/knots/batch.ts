@@ -48,6 +48,7 @@ export async function readDiagramFile(path: string, opts: ReadDiagramsOptions = 
     return splitDiagramLines(text, display);
   }
   const column = opts.column ?? 'code';
+  if (extname(path).toLowerCase() === '.json') return readJsonDiagrams(path, display, column, opts.nameColumn);
   const kinds: Record<string, 'label'> = { [column]: 'label' };
   if (opts.nameColumn) kinds[opts.nameColumn] = 'label';
   let t: Table;
@@ -77,12 +78,48 @@ export async function readDiagramFile(path: string, opts: ReadDiagramsOptions = 
   return out;
 }
 
+/**
+ * A JSON array of records; a code cell may be a string or JSON itself (a PD code as nested lists,
+ * a braid as {"strands", "word"}), which the table layer would refuse as a cell.
+ */
+function readJsonDiagrams(path: string, display: string, column: string, nameColumn: string | undefined): DiagramSource[] {
+  let data: unknown;
+  try {
+    data = JSON.parse(readFileSync(path, 'utf8'));
+  } catch (e) {
+    const err = e as NodeJS.ErrnoException;
+    if (err.code) throw new SurmiseError('knots.unreadable', `cannot read ${display}: ${err.code}`);
+    throw new SurmiseError('knots.parse', `${display}: not valid JSON: ${err.message}`);
+  }
+  if (!Array.isArray(data)) throw new SurmiseError('knots.parse', `${display}: expected a JSON array of records with a '${column}' field`);
+  const seen = new Map<string, number>();
+  return data.map((rec, k) => {
+    const where = `record ${k + 1}`;
+    if (rec === null || typeof rec !== 'object' || Array.isArray(rec)) throw new SurmiseError('knots.parse', `${display}: ${where} is not an object`);
+    const r = rec as Record<string, unknown>;
+    const c = r[column];
+    if (c === undefined || c === null) throw new SurmiseError('knots.noColumn', `${display}: ${where} has no '${column}' field (give --column)`);
+    const code = typeof c === 'string' ? c : typeof c === 'number' ? String(c) : JSON.stringify(c);
+    const nc = nameColumn ?? 'name';
+    const nv = r[nc];
+    if (nameColumn !== undefined && (nv === undefined || nv === null)) throw new SurmiseError('knots.noColumn', `${display}: ${where} has no '${nameColumn}' field`);
+    const name = nv === undefined || nv === null ? `record${k + 1}` : String(nv);
+    const prev = seen.get(name);
+    if (prev !== undefined) throw new SurmiseError('knots.duplicateName', `${display}: ${where}: the name '${name}' was already used in record ${prev}`);
+    seen.set(name, k + 1);
+    return { name, code, line: k + 1, column: 1, where };
+  });
+}
+
 /** Invariants of one source, with errors re-thrown as `file:line:column: name: message`. */
 export function invariantsOf(src: DiagramSource, file: string, kind: DiagramKind | undefined, opts: ComputeOptions): KnotInvariants {
   try {
     return computeInvariants(parseDiagram(src.code, kind), opts);
   } catch (e) {
-    if (e instanceof SurmiseError) throw new SurmiseError(e.code, `${file}:${src.line}:${src.column}: ${src.name}: ${e.message}`, e.details);
+    if (e instanceof SurmiseError) {
+      const place = src.where !== undefined ? `${file}: ${src.where}` : `${file}:${src.line}:${src.column}`;
+      throw new SurmiseError(e.code, `${place}: ${src.name}: ${e.message}`, e.details);
+    }
     throw e;
   }
 }

@@ -154,6 +154,8 @@ export interface DiagramSource {
   line: number;
   /** 1-based column where the code starts. */
   column: number;
+  /** Place for messages when not a line and column (e.g. `record 3` of a JSON file). */
+  where?: string;
 }
 
 /**

@@ -68,6 +68,16 @@ describe('surmise knots', () => {
     expect(again.err).toContain('[table.exists]');
   });
 
+  it('reads codes from a JSON array of records, PD codes as nested lists (standard table values, from memory)', async () => {
+    writeFileSync(join(dir, 'codes.json'), JSON.stringify([{ name: 'a', code: [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]] }, { name: 'b', code: { strands: 3, word: [1, -2, 1, -2] } }, { name: 'c', code: [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 9]] }]));
+    writeFileSync(join(dir, 'good.json'), JSON.stringify([{ name: 'a', code: [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]] }, { name: 'b', code: { strands: 3, word: [1, -2, 1, -2] } }]));
+    const ok = await run(['knots', 'good.json', '--invariants', 'determinant']);
+    expect(ok.out.trim().split('\n')).toEqual(['name,determinant', 'a,3', 'b,5']);
+    const bad = await run(['knots', 'codes.json']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toContain('codes.json: record 3: c: edge label 2 is used 1 time');
+  });
+
   it('reads codes from a CSV column', async () => {
     const r = await run(['knots', 'codes.csv', '--column', 'code', '--name-column', 'id', '--invariants', 'determinant']);
     expect(r.code).toBe(0);
