@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
 import { resolve } from 'node:path';
-import cliProgress from 'cli-progress';
+import { readingProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
 import { collect, parsePositiveInt } from './options.ts';
 import { readTable, type TableFormat } from '../table/read.ts';
@@ -47,11 +47,12 @@ export function registerBound(program: Command, io: CliIO): void {
       const bins = parsePositiveInt('--bins', opts.bins);
       const top = parsePositiveInt('--top', opts.top);
       const id = opts.id.flatMap((s) => s.split(',')).map((s) => s.trim()).filter((s) => s.length > 0);
+      const reading = readingProgress(io, file, opts.progress);
       const table = await readTable(resolve(io.cwd, file), {
         displayName: file,
         ...(opts.format !== undefined ? { format: opts.format as TableFormat } : {}),
-        ...progressFor(io, file, opts.progress),
-      });
+        onProgress: reading.onProgress,
+      }).finally(() => reading.stop());
       const result = findBound(table, {
         lhs: opts.lhs,
         rhs: opts.rhs,
@@ -68,34 +69,3 @@ export function registerBound(program: Command, io: CliIO): void {
     });
 }
 
-/** Reading progress: a bar on a terminal; on a pipe, a plain line per quarter for big files only. */
-function progressFor(io: CliIO, file: string, enabled: boolean): { onProgress?: (bytes: number, total: number) => void } {
-  if (!enabled) return {};
-  if (io.isTTY) {
-    let bar: cliProgress.SingleBar | null = null;
-    return {
-      onProgress: (bytes, total) => {
-        if (!bar) {
-          bar = new cliProgress.SingleBar(
-            { format: `reading ${file} [{bar}] {percentage}%`, stream: process.stderr, clearOnComplete: true },
-            cliProgress.Presets.legacy,
-          );
-          bar.start(total, 0);
-        }
-        bar.update(bytes);
-        if (bytes >= total) bar.stop();
-      },
-    };
-  }
-  let shown = 0;
-  return {
-    onProgress: (bytes, total) => {
-      if (total < 50e6) return;
-      const quarter = Math.floor((4 * bytes) / total);
-      if (quarter > shown) {
-        shown = quarter;
-        io.stderr(`reading ${file}: ${25 * quarter}%\n`);
-      }
-    },
-  };
-}

@@ -5,8 +5,7 @@
  */
 import type { Command } from 'commander';
 import { resolve } from 'node:path';
-import { statSync } from 'node:fs';
-import cliProgress from 'cli-progress';
+import { readingProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
@@ -136,44 +135,17 @@ export function registerInspect(program: Command, io: CliIO): void {
           `--format ${opts.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(opts.format, TABLE_FORMATS)}`,
         );
       const path = resolve(io.cwd, file);
-      let size = 0;
-      try {
-        size = statSync(path).size;
-      } catch {
-        /* readTable reports the unreadable file */
-      }
-      const big = size > 32 * 2 ** 20;
-      let bar: cliProgress.SingleBar | undefined;
-      let lastPct = -1;
-      const onProgress =
-        opts.progress && big
-          ? (bytes: number, total: number) => {
-              const pct = Math.floor((100 * bytes) / Math.max(1, total));
-              if (io.isTTY) {
-                if (!bar) {
-                  bar = new cliProgress.SingleBar(
-                    { stream: process.stderr, format: 'reading [{bar}] {percentage}%', hideCursor: false },
-                    cliProgress.Presets.legacy,
-                  );
-                  bar.start(100, 0);
-                }
-                bar.update(pct);
-              } else if (pct >= lastPct + 10) {
-                lastPct = pct - (pct % 10);
-                io.stderr(`reading ${file}: ${lastPct}%\n`);
-              }
-            }
-          : undefined;
+      const reading = readingProgress(io, file, opts.progress);
       let table: Table;
       try {
         table = await readTable(path, {
           displayName: file,
           kinds: Object.keys(kinds).length ? kinds : undefined,
           format: opts.format as TableFormat | undefined,
-          onProgress,
+          onProgress: reading.onProgress,
         });
       } finally {
-        bar?.stop();
+        reading.stop();
       }
       table = applyDerives(table, opts.derive);
       const profile = profileTable(table);

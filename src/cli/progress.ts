@@ -20,7 +20,12 @@ export function makeProgress(io: CliIO, label: string, enabled: boolean, everyMs
       update(done, total, note = '') {
         if (!bar) {
           bar = new cliProgress.SingleBar(
-            { format: `${label} [{bar}] {percentage}% {note}`, hideCursor: true, stream: process.stderr },
+            {
+              format: `${label} [{bar}] {percentage}% {note}`,
+              hideCursor: true,
+              // io.stderr is a terminal here (io.isTTY); give cli-progress a stream view of it
+              stream: { write: (s: string) => io.stderr(s), isTTY: true, columns: 80 } as unknown as NodeJS.WritableStream,
+            },
             cliProgress.Presets.legacy,
           );
           bar.start(total, done, { note });
@@ -34,8 +39,10 @@ export function makeProgress(io: CliIO, label: string, enabled: boolean, everyMs
       },
     };
   }
-  let last = 0;
+  // Plain lines: none for work that ends within `everyMs`; then one line per `everyMs` and a last one.
+  let last = Date.now();
   let lastLine = '';
+  let printed = false;
   let stopped = false;
   return {
     update(done, total, note = '') {
@@ -44,6 +51,7 @@ export function makeProgress(io: CliIO, label: string, enabled: boolean, everyMs
       lastLine = `${label}: ${pct}% (${done}/${total})${note ? ` ${note}` : ''}\n`;
       if (now - last >= everyMs) {
         last = now;
+        printed = true;
         io.stderr(lastLine);
         lastLine = '';
       }
@@ -51,7 +59,27 @@ export function makeProgress(io: CliIO, label: string, enabled: boolean, everyMs
     stop() {
       if (stopped) return;
       stopped = true;
-      if (lastLine) io.stderr(lastLine);
+      if (printed && lastLine) io.stderr(lastLine);
     },
+  };
+}
+
+/** Files smaller than this are read without progress output. */
+export const READ_PROGRESS_MIN_BYTES = 32 * 2 ** 20;
+
+/**
+ * A `readTable` onProgress callback for `file`: a bar on a terminal, plain lines every 5 s on a
+ * pipe; nothing for small files or when disabled. Call `stop()` after reading.
+ */
+export function readingProgress(io: CliIO, file: string, enabled: boolean): Progress & { onProgress?: (bytes: number, total: number) => void } {
+  const bar = makeProgress(io, `reading ${file}`, enabled);
+  return {
+    onProgress: enabled
+      ? (bytes, total) => {
+          if (total >= READ_PROGRESS_MIN_BYTES) bar.update(bytes, total);
+        }
+      : undefined,
+    update: bar.update,
+    stop: bar.stop,
   };
 }

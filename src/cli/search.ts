@@ -5,7 +5,7 @@
  */
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import cliProgress from 'cli-progress';
+import { makeProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
 import { SurmiseError } from '../errors.ts';
 import { readTable } from '../table/read.ts';
@@ -120,33 +120,13 @@ export function registerSearch(program: Command, io: CliIO): void {
         const s = splitRows(table, o.split, seed);
         split = { selection: s.first, heldOut: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
-      let bar: cliProgress.SingleBar | null = null;
-      let lastLine = Date.now();
-      const progress = (done: number, total: number): void => {
-        if (!o.progress) return;
-        if (io.isTTY) {
-          if (!bar) {
-            bar = new cliProgress.SingleBar(
-              {
-                // io.stderr is a terminal here (io.isTTY); give cli-progress a stream view of it
-                stream: { write: (s: string) => io.stderr(s), isTTY: true, columns: 80 } as unknown as NodeJS.WritableStream,
-                format: 'screening subsets [{bar}] {value}/{total}',
-              },
-              cliProgress.Presets.legacy,
-            );
-            bar.start(total, 0);
-          }
-          bar.update(done);
-        } else if (Date.now() - lastLine > 5000) {
-          lastLine = Date.now();
-          io.stderr(`search: screened ${done} of ${total}\n`);
-        }
-      };
+      const bar = makeProgress(io, 'screening subsets', o.progress);
+      const progress = (done: number, total: number): void => bar.update(done, total);
       let r: SearchResult;
       try {
         r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, progress, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}) });
       } finally {
-        (bar as cliProgress.SingleBar | null)?.stop();
+        bar.stop();
       }
       if (o.json) io.stdout(toJson(r) + '\n');
       else io.stdout(renderSearch(r));
