@@ -1,6 +1,7 @@
 /** Knot and link invariants from PD codes, braid words and DT codes (exact arithmetic). */
 export { analysePD, writhe, linkingMatrix, canonicalLabels, type Crossing, type PDInfo } from './pd.ts';
 export { validateBraid, braidClosurePD, braidSeifertMatrix, burauAlexander, polyMatrixDet, type Braid } from './braid.ts';
+export { pdToBraid } from './vogel.ts';
 export { dtToPD, validateDT, MAX_DT_CROSSINGS } from './dt.ts';
 export { bareissDet, symmetricInertia, symmetricSignature, type Inertia } from './exact.ts';
 export {

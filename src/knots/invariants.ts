@@ -24,6 +24,7 @@ import { foxAlexander } from './fox.ts';
 import { gordonLitherland } from './goeritz.ts';
 import { alexanderUnitRoots, levineTristram } from './levine.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
+import { pdToBraid } from './vogel.ts';
 import { centre, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
 
 export const INVARIANT_NAMES = [
@@ -100,6 +101,39 @@ function normaliseKnot(p: bigint[]): LaurentPolynomial {
   throw new Error(`internal: Alexander polynomial of a knot has Δ(1) = ${v}`);
 }
 
+function symmetrise(V: number[][]): number[][] {
+  return V.map((r, i) => r.map((x, j) => x + V[j]![i]!));
+}
+
+/**
+ * Seifert matrix of a connected PD/DT diagram through Vogel's algorithm (the braid-form surface of
+ * an equivalent closed braid). Guard: its signature must equal the Gordon–Litherland signature.
+ */
+function vogelSeifert(d: Diagram, res: KnotInvariants): number[][] {
+  const V = braidSeifertMatrix(pdToBraid(d.pd));
+  const sig = symmetricInertia(symmetrise(V));
+  const gl = res.signature ?? gordonLitherland(d.info).signature;
+  if (sig.positive - sig.negative !== gl) throw new Error(`internal: Seifert signature ${sig.positive - sig.negative} after Vogel moves differs from Gordon–Litherland ${gl}`);
+  return V;
+}
+
+/**
+ * Sign of a link's Alexander polynomial from a Seifert matrix V of size m: Conway's Δ(−1), with
+ * t^{1/2} = i, equals (−i)^m det(V + Vᵀ), and sign det(V + Vᵀ) = (−1)^(negative eigenvalues);
+ * when det(V + Vᵀ) = 0, Δ = t^{−m/2} det(V − tVᵀ) exactly (BigInt).
+ */
+function fixLinkSign(alex: LaurentPolynomial, V: number[][], inertia: { negative: number; zero: number }): LaurentPolynomial {
+  if (alex.coefficients.length === 0) return alex;
+  if (inertia.zero > 0) return centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V[j]![i]!))));
+  const m = V.length;
+  const detSign = inertia.negative % 2 === 0 ? 1 : -1;
+  const [re, im] = valueAtMinusOne(alex);
+  const r = (((-m) % 4) + 4) % 4; // (−i)^m = i^(−m)
+  const target = r === 0 ? detSign : r === 1 ? detSign : -detSign; // i^r·detSign: real part for r = 0, 2; imaginary for 1, 3
+  const got = r % 2 === 0 ? Math.sign(re) : Math.sign(im);
+  return got === target ? alex : { ...alex, coefficients: alex.coefficients.map((x) => -x) };
+}
+
 export interface ComputeOptions {
   invariants?: readonly InvariantName[];
   /** x in ω = e^{2πix} for the Levine–Tristram signature (default 0.5). */
@@ -128,24 +162,7 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
         // exact fallback: Δ = t^{-m/2} det(V − tVᵀ)
         alex = centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V![j]![i]!))));
       } else if (isKnot) alex = normaliseKnot(raw);
-      else {
-        alex = centre(raw);
-        const m = V.length;
-        if (alex.coefficients.length > 0) {
-          if (inertia!.zero === 0) {
-            // Δ(−1) = (−i)^m det(V + Vᵀ); sign det = (−1)^negative
-            const detSign = inertia!.negative % 2 === 0 ? 1 : -1;
-            const [re, im] = valueAtMinusOne(alex);
-            const r = (((-m) % 4) + 4) % 4; // (−i)^m = i^(−m)
-            const target = r === 0 ? [detSign, 0] : r === 1 ? [0, detSign] : r === 2 ? [-detSign, 0] : [0, -detSign];
-            const got = Math.sign(re) || Math.sign(im);
-            const want1 = target[0] || target[1];
-            if (got !== want1) alex = { ...alex, coefficients: alex.coefficients.map((x) => -x) };
-          } else {
-            alex = centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V![j]![i]!))));
-          }
-        }
-      }
+      else alex = fixLinkSign(centre(raw), V, inertia!);
       res.alexander = alex;
       res.alexanderText = formatLaurent(alex);
       res.alexanderSignFixed = true;
@@ -163,15 +180,21 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
     if (needAlex) {
       const raw = foxAlexander(info, d.freeLoops);
       let alex: LaurentPolynomial;
+      let fixed = true;
       if (isKnot) alex = normaliseKnot(raw);
-      else {
+      else if (info.nPieces === 1 && d.freeLoops === 0 && raw.some((x) => x !== 0n)) {
+        // the sign needs a Seifert matrix: braid the diagram (Vogel) and use its braid-form surface
+        const Vb = vogelSeifert(d, res);
+        alex = fixLinkSign(centre(raw), Vb, symmetricInertia(symmetrise(Vb)));
+      } else {
         alex = centre(raw);
+        fixed = alex.coefficients.length === 0;
         const top = alex.coefficients[alex.coefficients.length - 1];
         if (top !== undefined && top < 0) alex = { ...alex, coefficients: alex.coefficients.map((x) => -x) };
       }
       res.alexander = alex;
       res.alexanderText = formatLaurent(alex);
-      res.alexanderSignFixed = isKnot;
+      res.alexanderSignFixed = fixed;
     }
   }
   if (!want.has('alexander')) {
@@ -196,6 +219,7 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
     res.omega = x;
     if (V) res.levineTristram = levineTristram(V, x);
     else if (x - Math.floor(x) === 0.5) res.levineTristram = gordonLitherland(info).signature;
+    else if (info.nPieces === 1 && d.freeLoops === 0) res.levineTristram = levineTristram(vogelSeifert(d, res), x);
   }
   return res;
 }
