@@ -74,7 +74,7 @@ export async function sha256File(path: string): Promise<{ sha256: string; bytes:
   return { sha256: h.digest('hex'), bytes };
 }
 
-const DEPENDENCIES = ['@tensorflow/tfjs', '@tensorflow/tfjs-backend-wasm', 'vega', 'vega-lite', '@resvg/resvg-js', 'yaml', 'zod', 'commander', 'papaparse', 'danfojs-node'];
+const DEPENDENCIES = ['@tensorflow/tfjs', '@tensorflow/tfjs-backend-wasm', 'vega', 'vega-lite', '@resvg/resvg-js', 'yaml', 'zod', 'commander', 'danfojs-node'];
 
 function dependencyVersions(): Record<string, string> {
   const out: Record<string, string> = {};
