@@ -13,9 +13,9 @@
  * Δ(−1) = (−i)^m det(V + Vᵀ) for links (t^{1/2} = i; exact BigInt det(V − tVᵀ) when
  * det(V + Vᵀ) = 0).
  * PD and DT codes use Gordon–Litherland (Goeritz matrix) for σ and the determinant and Fox
- * calculus for Δ; for links given that way the sign of Δ is not fixed (we make the top coefficient
- * positive and say so in `alexanderSignFixed`), and Levine–Tristram signatures other than
- * ω = −1 need a Seifert matrix, which we build only for braids.
+ * calculus for Δ. A Seifert matrix for them (needed for the sign of a link's Δ and for
+ * Levine–Tristram signatures at ω ≠ −1) comes from the braid that Vogel's algorithm produces, and
+ * its signature is checked against Gordon–Litherland (a mismatch is an internal error, exit 1).
  */
 import { braidSeifertMatrix, burauAlexander } from './braid.ts';
 import type { Diagram } from './diagram.ts';
