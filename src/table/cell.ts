@@ -126,7 +126,10 @@ export function scanDecimal(t: string, start: number, end: number, stop: number)
   return compose(neg, a, b, nb, nd, scale) ? i : -1;
 }
 
-/** `scanDecimal` over the bytes of ASCII text (`t[i]` is the character code at i); same result. */
+/**
+ * `scanDecimal` over the bytes of ASCII text (`t[i]` is the character code at i), same value; it
+ * also stops at a line end (LF, or CR before LF or at `end`), returning the index of that LF/CR.
+ */
 export function scanDecimalBytes(t: Uint8Array, start: number, end: number, stop: number): number {
   let i = start;
   let c = i < end ? t[i]! : -1;
@@ -185,7 +188,7 @@ export function scanDecimalBytes(t: Uint8Array, start: number, end: number, stop
     }
     scale += eneg ? -ex : ex;
   }
-  if (i < end && c !== stop) return -1;
+  if (i < end && c !== stop && c !== 10 && !(c === 13 && (i + 1 === end || t[i + 1] === 10))) return -1;
   return compose(neg, a, b, nb, nd, scale) ? i : -1;
 }
 

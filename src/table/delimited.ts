@@ -69,24 +69,41 @@ export function unreadable(display: string, e: unknown): SurmiseError {
   return new SurmiseError('table.unreadable', `cannot read ${display}: ${why}`);
 }
 
+/** One chunk of decoded text; for ASCII text also its bytes, and the string is made on demand. */
+export class TextChunk {
+  /** the characters as bytes (`bytes[i] === text().charCodeAt(i)`) when the text is ASCII, else null */
+  readonly bytes: Uint8Array | null;
+  readonly length: number;
+  private str: string | null;
+  constructor(str: string | null, bytes: Uint8Array | null) {
+    this.str = str;
+    this.bytes = bytes;
+    this.length = str !== null ? str.length : bytes!.length;
+  }
+  /** the chunk as a string (an ASCII chunk is copied once, on the first call) */
+  text(): string {
+    if (this.str === null) this.str = Buffer.from(this.bytes!.buffer, this.bytes!.byteOffset, this.bytes!.length).toString('latin1');
+    return this.str;
+  }
+}
+
 /**
- * Read a file as UTF-8 text in chunks, calling `onText(text, final, bytes)` which returns how many
- * characters it consumed; the rest is carried into the next call. `bytes`, when not null, holds the
- * text's characters as bytes (`bytes[i] === text.charCodeAt(i)`, the text being ASCII), for
- * callers that read digits faster from bytes. `onFirst` sees the first decoded chunk (for size
- * estimates).
+ * Read a file as UTF-8 text in chunks, calling `onText(chunk, final)` which returns how many
+ * characters it consumed; the rest is carried into the next call. `onFirst` sees the first
+ * decoded chunk (for size estimates).
  */
 export function readTextChunks(
   path: string,
   display: string,
-  onText: (text: string, final: boolean, bytes: Uint8Array | null) => number,
+  onText: (chunk: TextChunk, final: boolean) => number,
   opts: { onFirst?: (text: string, fileBytes: number) => void; onProgress?: (bytes: number, total: number) => void; stop?: () => boolean } = {},
 ): number {
   const { fd, size } = openForReading(path, display);
   // StringDecoder is ~3x faster than a fatal TextDecoder here; invalid bytes become U+FFFD, so a
   // chunk holding U+FFFD is re-checked strictly (a file may also contain U+FFFD legitimately).
-  // ASCII is UTF-8 read byte for byte: while the file is ASCII (after a BOM), a latin1 copy of the
-  // bytes gives the same string at a fraction of the cost, and the unconsumed rest is carried as
+  // ASCII is UTF-8 read byte for byte: while the file is ASCII (after a BOM), the chunk is handed
+  // over as bytes (its string, when asked for, is a latin1 copy at a fraction of the decoder's
+  // cost), and the unconsumed rest is carried as
   // bytes at the front of the buffer so that every text is one flat string (a concatenation
   // `carry + piece` made character access about twice as slow, measured). From the first byte
   // >= 0x80 on, everything goes through the UTF-8 decoder, which starts fresh at that chunk (the
@@ -118,17 +135,14 @@ export function readTextChunks(
       const end = at + n;
       const from = total === n && n >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf ? 3 : 0;
       if (allAscii && !isAscii(buf.subarray(Math.max(at, from), end))) allAscii = false;
-      let text: string;
-      let bytes: Uint8Array | null = null;
-      if (allAscii) {
-        text = buf.toString('latin1', from, end);
-        bytes = buf.subarray(from, end);
-      } else {
-        const chunk = buf.subarray(from, end);
-        const piece = final ? decoder.end() : decoder.write(chunk);
+      let chunk: TextChunk;
+      if (allAscii) chunk = new TextChunk(null, buf.subarray(from, end));
+      else {
+        const raw = buf.subarray(from, end);
+        const piece = final ? decoder.end() : decoder.write(raw);
         if (piece.indexOf('\ufffd') >= 0 || (final && piece.length > 0)) {
           // count U+FFFD written in the file (bytes EF BF BD, possibly begun in the previous chunk's tail)
-          const joined = Buffer.concat([tail, chunk]);
+          const joined = Buffer.concat([tail, raw]);
           let written = 0;
           for (let k = joined.indexOf(REPLACEMENT); k >= 0; k = joined.indexOf(REPLACEMENT, k + 3)) written++;
           let decoded = 0;
@@ -136,18 +150,18 @@ export function readTextChunks(
           if (decoded > written)
             throw new SurmiseError('table.badEncoding', `cannot read ${display}: it is not UTF-8 text (invalid bytes before byte ${total})`);
         }
-        if (chunk.length >= 2) tail = Buffer.from(chunk.subarray(chunk.length - 2));
-        text = carry.length > 0 ? carry + piece : piece;
+        if (raw.length >= 2) tail = Buffer.from(raw.subarray(raw.length - 2));
+        chunk = new TextChunk(carry.length > 0 ? carry + piece : piece, null);
       }
-      if (first && text.length > 0) {
-        opts.onFirst?.(text, size);
+      if (first && chunk.length > 0) {
+        opts.onFirst?.(chunk.text(), size);
         first = false;
       }
-      const used = onText(text, final, bytes);
+      const used = onText(chunk, final);
       if (allAscii) {
-        kept = used >= text.length ? 0 : text.length - used;
+        kept = used >= chunk.length ? 0 : chunk.length - used;
         if (kept > 0) buf.copy(buf, 0, from + used, end);
-      } else carry = used >= text.length ? '' : text.substring(used);
+      } else carry = used >= chunk.length ? '' : chunk.text().substring(used);
       opts.onProgress?.(total, size);
       if (final || opts.stop?.()) break;
     }
@@ -259,7 +273,77 @@ export function scanDelimited(
     return i;
   };
 
-  const onText = (text: string, final: boolean, bytes: Uint8Array | null): number => {
+  // a quote-free chunk of ASCII text, read from its bytes: numeric cells go to h.cellAt without
+  // any string being made; other cells are cut from the chunk's string (made once, on demand)
+  const onBytes = (chunk: TextChunk, final: boolean): number => {
+    const b = chunk.bytes!;
+    const len = b.length;
+    // complete lines end at the chunk's last LF (or at its end in the final chunk)
+    const limit = final ? len : b.lastIndexOf(LF) + 1;
+    let pos = 0;
+    let q = -1; // next quote at or after pos (cached)
+    while (pos < limit) {
+      if (q < pos && q !== MAX) {
+        q = b.indexOf(QUOTE, pos);
+        if (q < 0) q = MAX;
+      }
+      if (q !== MAX) {
+        let nl = b.indexOf(LF, pos);
+        if (nl < 0) nl = len;
+        if (q < nl) {
+          const r = slow(chunk.text(), pos, final);
+          if (r < 0) return pos;
+          pos = r;
+          continue;
+        }
+      }
+      const c0 = b[pos];
+      if (c0 === LF || (c0 === CR && (pos + 1 === len || b[pos + 1] === LF))) {
+        blankLines++;
+        line++;
+        pos += c0 === LF || pos + 1 === len ? 1 : 2;
+        continue;
+      }
+      let col = 0;
+      let a = pos;
+      for (;;) {
+        let f = h.cellAt!(col, '', b, a, limit, SEP);
+        if (f < 0) {
+          // not a plain number: the field runs to the separator or the line end (a CR before LF is not part of it)
+          f = a;
+          while (f < limit) {
+            const c = b[f];
+            if (c === SEP || c === LF) break;
+            f++;
+          }
+          const e = (f === limit || b[f] === LF) && f > a && b[f - 1] === CR ? f - 1 : f;
+          h.cell(col, chunk.text().substring(a, e), false);
+          if (e < f) f = e; // f now at the CR that ends the line
+        }
+        col++;
+        if (f >= limit) {
+          pos = limit;
+          break;
+        }
+        const c = b[f];
+        if (c === SEP) {
+          a = f + 1;
+          continue;
+        }
+        // LF, or CR before LF (or at the end of the file)
+        pos = c === LF ? f + 1 : f + 2 <= len ? f + 2 : len;
+        break;
+      }
+      h.endRow(col, line);
+      line++;
+    }
+    if (final && pos < len) return len;
+    return pos;
+  };
+
+  const onText = (chunk: TextChunk, final: boolean): number => {
+    if (fast && chunk.bytes !== null) return onBytes(chunk, final);
+    const text = chunk.text();
     const len = text.length;
     let pos = 0;
     let q = -1; // next quote at or after pos (cached)
@@ -284,7 +368,7 @@ export function scanDelimited(
           let a = pos;
           for (;;) {
             if (fast) {
-              const f = h.cellAt!(col, text, bytes, a, end, SEP);
+              const f = h.cellAt!(col, text, null, a, end, SEP);
               if (f >= 0) {
                 col++;
                 if (f >= end) break;

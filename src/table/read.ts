@@ -194,7 +194,8 @@ function readJsonLines(path: string, display: string, opts: ReadOptions): Table 
     readTextChunks(
       path,
       display,
-      (text, final) => {
+      (chunk, final) => {
+        const text = chunk.text();
         let pos = 0;
         while (pos < text.length) {
           let nl = text.indexOf('\n', pos);

@@ -175,3 +175,49 @@ describe('CSV reading through the byte path keeps every value and text', () => {
     await expect(readTable(file)).rejects.toMatchObject({ code: 'table.badEncoding' });
   });
 });
+
+describe('the byte path for ASCII files reads exactly what the UTF-8 string path reads', () => {
+  // Differential check (internal consistency, common practice): the same rows under a header
+  // `a,b,c` (ASCII: read from bytes) and `a,b,cé` (UTF-8: read from decoded strings) must give the
+  // same columns, missing masks, line numbers, notes, or the same error code.
+  const cell = fc.constantFrom('1.5', '-0', '12345678901234567', '1e400', '0.1e-30', 'NA', '', 'abc', ' 2 ', '"3,5"', '"q""x"', '1\r2', '"a\nb"', '+.5', '7.', 'inf', '1.5+2j');
+  const row = fc.tuple(cell, cell, cell).map((c) => c.join(','));
+  const rows = fc.array(fc.tuple(row, fc.constantFrom('\n', '\r\n'), fc.constantFrom('', '', '', '\n', '\r\n')), { minLength: 1, maxLength: 12 });
+  it('random rows with CRLF/LF, blank lines, quotes, lone CR, missing and text cells', async () => {
+    const dir = tempDir('fastnum');
+    let k = 0;
+    const outcome = async (text: string) => {
+      const file = put(dir, `d${k++}.csv`, Buffer.from(text, 'utf8'));
+      try {
+        const t = await readTable(file);
+        return { t, code: '' };
+      } catch (e) {
+        return { t: null, code: (e as { code?: string }).code ?? String(e) };
+      }
+    };
+    await fc.assert(
+      fc.asyncProperty(rows, fc.boolean(), async (rs, lastBreak) => {
+        let body = rs.map(([r, eol, blank]) => r + eol + blank).join('');
+        if (!lastBreak) body = body.replace(/\r?\n$/, '');
+        const ascii = await outcome('a,b,c\n' + body);
+        const utf8 = await outcome('a,b,cé\n' + body);
+        expect(ascii.code).toBe(utf8.code);
+        if (ascii.t && utf8.t) {
+          expect(ascii.t.nRows).toBe(utf8.t.nRows);
+          expect(Array.from(ascii.t.lines ?? [])).toEqual(Array.from(utf8.t.lines ?? []));
+          expect(ascii.t.notes).toEqual(utf8.t.notes?.map((n) => n.replace('cé', 'c')));
+          for (let j = 0; j < 3; j++) {
+            const x = ascii.t.columns[j]!;
+            const y = utf8.t.columns[j]!;
+            expect(x.kind).toBe(y.kind);
+            expect(Array.from(x.missing)).toEqual(Array.from(y.missing));
+            if (x.kind === 'label') expect(x.values).toEqual((y as LabelColumn).values);
+            else if (x.kind === 'complex') expect([Array.from(x.re), Array.from(x.im)]).toEqual([Array.from((y as typeof x).re), Array.from((y as typeof x).im)]);
+            else expect(Array.from(x.values).map((v) => Object.is(v, -0) ? '-0' : v)).toEqual(Array.from((y as RealColumn).values).map((v) => Object.is(v, -0) ? '-0' : v));
+          }
+        }
+      }),
+      { numRuns: 300, seed: 4180 },
+    );
+  });
+});
