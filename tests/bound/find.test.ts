@@ -3,6 +3,7 @@ import { findBound } from '../../src/bound/find.ts';
 import { SurmiseError } from '../../src/errors.ts';
 import type { Column, Table } from '../../src/table/types.ts';
 import { Rng } from '../../src/util/rng.ts';
+import { caught } from '../helpers/errors.ts';
 
 const real = (name: string, xs: number[], missing?: number[]): Column => ({
   name,
@@ -23,15 +24,7 @@ const table = (columns: Column[]): Table => {
   return { source: 'test.csv', nRows: n, columns, lines: Int32Array.from({ length: n }, (_, i) => i + 2) };
 };
 
-function thrown(f: () => unknown): SurmiseError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof SurmiseError) return e;
-    throw e;
-  }
-  throw new Error('expected a SurmiseError');
-}
+const thrown = caught;
 
 describe('findBound through the expression language', () => {
   // |eˣ − 1 − x| ≤ (e − 2)x² on [−1, 1], attained at x = 1 (from memory; ../shared/reference-checks.md).

