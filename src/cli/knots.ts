@@ -2,8 +2,9 @@
  * `surmise knots FILE`: a table of invariants, one row per diagram; `surmise knots generate …`:
  * diagram files of random braids, twisted families and torus knots.
  */
-import { existsSync, openSync, writeSync, closeSync, renameSync, unlinkSync } from 'node:fs';
-import { basename, dirname, join, resolve } from 'node:path';
+import { existsSync } from 'node:fs';
+import { writeFileAtomic } from '../util/atomic-write.ts';
+import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import type { CliIO } from './io.ts';
@@ -22,6 +23,7 @@ import {
   INVARIANT_NAMES,
   parseCode,
   randomBraid,
+  randomKnotBraid,
   torusBraid,
   twistedBraid,
   addKink,
@@ -209,26 +211,6 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   else io.stderr(`surmise knots: wrote ${table.nRows} rows to ${o.out}\n`);
 }
 
-/** Write text to `path` atomically (temporary file + rename); refuse to overwrite unless force. */
-function writeAtomic(path: string, text: string, force: boolean, display: string): void {
-  if (!force && existsSync(path)) throw new SurmiseError('knots.exists', `${display} already exists; not overwriting it (use --force to replace it)`);
-  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now().toString(36)}.tmp`);
-  let fd: number;
-  try {
-    fd = openSync(tmp, 'wx');
-  } catch (e) {
-    throw new SurmiseError('knots.unwritable', `cannot write ${display}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
-  }
-  try {
-    writeSync(fd, text);
-    closeSync(fd);
-    renameSync(tmp, path);
-  } catch (e) {
-    try { unlinkSync(tmp); } catch { /* already gone */ }
-    throw new SurmiseError('knots.unwritable', `cannot write ${display}: ${(e as Error).message}`);
-  }
-}
-
 function parseRange(name: string, raw: string): [number, number] {
   const m = /^\s*(-?\d+)\s*(?:\.\.\s*(-?\d+)\s*)?$/.exec(raw);
   if (!m) throw new SurmiseError('knots.option', `${name} ${raw}: expected an integer or a range a..b`);
@@ -241,31 +223,13 @@ function parseRange(name: string, raw: string): [number, number] {
 function emit(lines: string[], out: string | undefined, force: boolean, io: CliIO, json: boolean, what: string): void {
   const text = lines.join('\n') + '\n';
   if (out !== undefined) {
-    writeAtomic(resolve(io.cwd, out), text, force, out);
+    writeFileAtomic(resolve(io.cwd, out), text, { force, display: out, codePrefix: 'knots' });
     if (json) io.stdout(JSON.stringify({ command: `knots generate ${what}`, out, diagrams: lines.length }) + '\n');
     else io.stderr(`surmise knots generate: wrote ${lines.length} diagrams to ${out}\n`);
   } else if (json) io.stdout(JSON.stringify({ command: `knots generate ${what}`, out: null, diagrams: lines.map((l) => ({ name: l.split('\t')[0], code: l.split('\t')[1] })) }) + '\n');
   else io.stdout(text);
 }
 
-/** A random braid whose closure is a knot: retried (length parity alternating) until the permutation is one cycle. */
-function randomKnotBraid(rng: Rng, strands: number, length: number): Braid {
-  for (let attempt = 0; ; attempt++) {
-    const b = randomBraid(rng, strands, length + (attempt % 2));
-    const perm = Array.from({ length: strands }, (_, i) => i);
-    for (const g of b.word) {
-      const i = Math.abs(g) - 1;
-      [perm[i], perm[i + 1]] = [perm[i + 1]!, perm[i]!];
-    }
-    let cyc = 0;
-    let x = 0;
-    do {
-      x = perm[x]!;
-      cyc++;
-    } while (x !== 0);
-    if (cyc === strands) return b;
-  }
-}
 
 const braidText = (strands: number, word: number[]): string => `${strands}: ${word.join(' ')}`;
 

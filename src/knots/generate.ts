@@ -126,3 +126,23 @@ export function relabelPD(pd: readonly Crossing[], rng: Rng): Crossing[] {
   const order = rng.permutation(pd.length);
   return Array.from(order, (c) => pd[c]!.map((v) => map.get(v)!) as Crossing);
 }
+
+/** A random braid whose closure is a knot: retried (length parity alternating) until the permutation is one cycle. */
+export function randomKnotBraid(rng: Rng, strands: number, length: number): Braid {
+  for (let attempt = 0; ; attempt++) {
+    // the parity of the length matters (2 strands: odd length only), so vary it between attempts
+    const b = randomBraid(rng, strands, length + (attempt % 2));
+    const perm = Array.from({ length: strands }, (_, i) => i);
+    for (const g of b.word) {
+      const i = Math.abs(g) - 1;
+      [perm[i], perm[i + 1]] = [perm[i + 1]!, perm[i]!];
+    }
+    let cycle = 0;
+    let x = 0;
+    do {
+      x = perm[x]!;
+      cycle++;
+    } while (x !== 0);
+    if (cycle === strands) return b;
+  }
+}

@@ -33,6 +33,7 @@ export {
 } from './invariants.ts';
 export {
   randomBraid,
+  randomKnotBraid,
   torusBraid,
   fullTwists,
   twistedBraid,

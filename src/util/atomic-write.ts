@@ -7,9 +7,15 @@ import { SurmiseError } from '../errors.ts';
  * sees a half-written file and an interrupted write leaves the old file (or nothing) in place.
  * Refuses to replace an existing file unless `force` (code `output.exists`).
  */
-export function writeFileAtomic(path: string, data: string | Uint8Array, opts: { force?: boolean } = {}): void {
+export function writeFileAtomic(
+  path: string,
+  data: string | Uint8Array,
+  opts: { force?: boolean; /** name in messages (default the path) */ display?: string; /** error-code prefix (default 'output') */ codePrefix?: string } = {},
+): void {
+  const shown = opts.display ?? path;
+  const prefix = opts.codePrefix ?? 'output';
   if (!opts.force && existsSync(path)) {
-    throw new SurmiseError('output.exists', `${path} already exists; pass --force to replace it`);
+    throw new SurmiseError(`${prefix}.exists`, `${shown} already exists; pass --force to replace it`);
   }
   const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
   try {
@@ -22,9 +28,6 @@ export function writeFileAtomic(path: string, data: string | Uint8Array, opts: {
       /* nothing to clean */
     }
     const err = e as NodeJS.ErrnoException;
-    if (err.code === 'ENOENT' || err.code === 'EACCES' || err.code === 'ENOTDIR' || err.code === 'EISDIR') {
-      throw new SurmiseError('output.unwritable', `cannot write ${path}: ${err.message}`);
-    }
-    throw e;
+    throw new SurmiseError(`${prefix}.unwritable`, `cannot write ${shown}: ${err.code ?? err.message}`);
   }
 }

@@ -12,6 +12,7 @@ import {
   multiplyLaurent,
   pdConnectedSum,
   randomBraid,
+  randomKnotBraid,
   relabelPD,
   braidSeifertMatrix,
   pencilDeterminant,
@@ -35,25 +36,6 @@ const same = (a: KnotInvariants, b: KnotInvariants): void => {
   expect(a.alexanderText).toBe(b.alexanderText);
 };
 
-/** A random braid whose closure is a knot (retry until the permutation is one cycle). */
-function randomKnotBraid(rng: Rng, strands: number, length: number): Braid {
-  for (let attempt = 0; ; attempt++) {
-    // the parity of the length matters (2 strands: odd length only), so vary it between attempts
-    const b = randomBraid(rng, strands, length + (attempt % 2));
-    const perm = Array.from({ length: strands }, (_, i) => i);
-    for (const g of b.word) {
-      const i = Math.abs(g) - 1;
-      [perm[i], perm[i + 1]] = [perm[i + 1]!, perm[i]!];
-    }
-    let k = 0;
-    let x = 0;
-    do {
-      x = perm[x]!;
-      k++;
-    } while (x !== 0);
-    if (k === strands) return b;
-  }
-}
 
 describe("invariance under braid moves (Markov's theorem; Birman, 'Braids, Links and Mapping Class Groups', Thm 2.3)", () => {
   const rng = new Rng(deriveSeed(11, 'markov'));
