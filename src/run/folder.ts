@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, readdirSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { SurmiseError } from '../errors.ts';
 
@@ -23,10 +23,34 @@ function hookInterrupts(): void {
   process.once('SIGTERM', clean);
 }
 
-/** Refuse early (before any work) when the run folder exists and --force was not given. */
+/** True when `dir` holds a run written by surmise (its results.json says so). */
+function isRunFolder(dir: string): boolean {
+  try {
+    const r = JSON.parse(readFileSync(join(dir, 'results.json'), 'utf8')) as { format?: string };
+    return r.format === 'surmise-run';
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * Refuse early (before any work) when the run folder exists and --force was not given. Even with
+ * --force only an earlier run folder (or an empty folder) is replaced: a folder of the user's own
+ * files is never deleted.
+ */
 export function checkRunFolder(outDir: string, force: boolean): void {
-  if (existsSync(outDir) && !force) {
+  if (!existsSync(outDir)) return;
+  if (!force) {
     throw new SurmiseError('output.exists', `${outDir} already exists; pass --force to replace it, or choose another --out`);
+  }
+  if (!statSync(outDir).isDirectory()) {
+    throw new SurmiseError('output.notRunFolder', `${outDir} is a file, not a run folder; choose another --out`);
+  }
+  if (readdirSync(outDir).length > 0 && !isRunFolder(outDir)) {
+    throw new SurmiseError(
+      'output.notRunFolder',
+      `${outDir} is not a surmise run folder (no results.json written by surmise); --force replaces only earlier runs, choose another --out`,
+    );
   }
 }
 

@@ -23,10 +23,25 @@ describe('run folder', () => {
     expect(readFileSync(join(out, 'mine.txt'), 'utf8')).toBe('precious');
   });
 
-  it('replaces an existing folder with force, atomically by rename', () => {
+  it('with force, never deletes a folder of the user\'s own files', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'surmise-folder-'));
+    const out = join(dir, 'mine');
+    mkdirSync(out);
+    writeFileSync(join(out, 'notes.txt'), 'precious');
+    let code = '';
+    try {
+      writeRunFolder(out, [{ path: 'results.json', data: '{}' }], true);
+    } catch (e) {
+      code = (e as SurmiseError).code;
+    }
+    expect(code).toBe('output.notRunFolder');
+    expect(readFileSync(join(out, 'notes.txt'), 'utf8')).toBe('precious');
+  });
+
+  it('replaces an earlier run folder with force, atomically by rename', () => {
     const dir = mkdtempSync(join(tmpdir(), 'surmise-folder-'));
     const out = join(dir, 'run');
-    writeRunFolder(out, [{ path: 'a.txt', data: '1' }], false);
+    writeRunFolder(out, [{ path: 'results.json', data: '{"format":"surmise-run"}' }, { path: 'a.txt', data: '1' }], false);
     writeRunFolder(out, [{ path: 'b.txt', data: '2' }], true);
     expect(existsSync(join(out, 'a.txt'))).toBe(false);
     expect(readFileSync(join(out, 'b.txt'), 'utf8')).toBe('2');
