@@ -24,8 +24,7 @@ export function registerDemo(program: Command, io: CliIO): void {
     .option('--json', 'print the run folder and files as one JSON object')
     .option('--no-progress', 'no progress on stderr')
     .action(async (o: { out?: string; force?: boolean; json?: boolean; progress: boolean }) => {
-      const loaded = loadConfig(DEMO_CONFIG);
-      loaded.path = 'configs/demo.yaml';
+      const loaded = loadConfig(DEMO_CONFIG, 'configs/demo.yaml');
       const out = o.out ? resolve(io.cwd, o.out) : freshFolder(resolve(io.cwd, 'surmise-demo'));
       await runWithProgress(io, loaded, { ...o, out });
     });

@@ -14,8 +14,7 @@ export function registerRun(program: Command, io: CliIO): void {
     .option('--json', 'print the run folder and files as one JSON object')
     .option('--no-progress', 'no progress on stderr')
     .action(async (config: string, o: { out?: string; force?: boolean; json?: boolean; progress: boolean }) => {
-      const loaded = loadConfig(resolve(io.cwd, config));
-      loaded.path = config;
+      const loaded = loadConfig(resolve(io.cwd, config), config);
       await runWithProgress(io, loaded, { ...o, ...(o.out ? { out: resolve(io.cwd, o.out) } : {}) });
     });
 }

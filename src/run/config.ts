@@ -91,6 +91,8 @@ export interface LoadedConfig {
   config: RunConfig;
   /** The configuration file's path (as given). */
   path: string;
+  /** `file:line:column` of a key path in the configuration file (or just the file when unknown). */
+  locate?: (path: ReadonlyArray<string | number>) => string;
 }
 
 function describe(v: unknown): string {
@@ -132,14 +134,17 @@ function nodeAt(root: YamlNode | null | undefined, path: ReadonlyArray<PropertyK
   return last;
 }
 
-function keyPath(path: ReadonlyArray<PropertyKey>): string {
+export function keyPath(path: ReadonlyArray<PropertyKey>): string {
   let s = '';
   for (const k of path) s += typeof k === 'number' ? `[${k}]` : s === '' ? String(k) : `.${String(k)}`;
   return s === '' ? '(top level)' : s;
 }
 
-/** Parse and validate configuration text. `file` is used in messages and to resolve relative paths. */
-export function parseConfig(text: string, file: string): LoadedConfig {
+/**
+ * Parse and validate configuration text. `file` names it in messages; relative paths in it are
+ * resolved against `baseDir` (default: the folder of `file`).
+ */
+export function parseConfig(text: string, file: string, baseDir?: string): LoadedConfig {
   const lc = new LineCounter();
   const doc = parseDocument(text, { lineCounter: lc, prettyErrors: false });
   const where = (offset: number | undefined): string => {
@@ -184,19 +189,20 @@ export function parseConfig(text: string, file: string): LoadedConfig {
     throw new SurmiseError('config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`);
   }
   const config = parsed.data;
-  const base = dirname(resolve(file));
+  const base = baseDir ?? dirname(resolve(file));
   config.table = resolve(base, config.table);
   config.output = resolve(base, config.output);
-  return { config, path: file };
+  const locate = (path: ReadonlyArray<string | number>): string => where(nodeAt(doc.contents as YamlNode, path)?.range?.[0]);
+  return { config, path: file, locate };
 }
 
-/** Read and validate a configuration file. */
-export function loadConfig(file: string): LoadedConfig {
+/** Read and validate a configuration file; `display` names it in messages (default: `file`). */
+export function loadConfig(file: string, display = file): LoadedConfig {
   let text: string;
   try {
     text = readFileSync(file, 'utf8');
   } catch (e) {
-    throw new SurmiseError('config.unreadable', `cannot read configuration ${file}: ${(e as Error).message}`);
+    throw new SurmiseError('config.unreadable', `cannot read configuration ${display}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
   }
-  return parseConfig(text, file);
+  return parseConfig(text, display, dirname(resolve(file)));
 }

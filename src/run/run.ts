@@ -13,12 +13,16 @@ import { rankFeatures, type RankProgress, type RankResult } from '../attribute/r
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchResult } from '../relate/search.ts';
 import { findBound, type BoundResult } from '../bound/find.ts';
-import { renderReport, sampleIndices, type ReportInput } from '../report/index.ts';
-import type { RunConfig, LoadedConfig } from './config.ts';
+import { largestIndices, renderReport, sampleIndices, type ReportInput } from '../report/index.ts';
+import { keyPath, type RunConfig, type LoadedConfig } from './config.ts';
+import { parseSplitSpec } from '../table/split.ts';
 import { checkRunFolder, writeRunFolder, type OutputFile } from './folder.ts';
 
-/** Points drawn in a scatter plot at most (a seeded sample beyond that; the plot says so). */
-const MAX_POINTS = 5_000;
+/**
+ * Points handed to the report per plot at most. The report itself bins or samples them for
+ * drawing (and says so on the plot); this cap only bounds memory on tables of millions of rows.
+ */
+const MAX_POINTS = 200_000;
 
 export interface RunOptions {
   /** Run folder; default the configuration's `output`. */
@@ -113,13 +117,17 @@ function pick(values: Float64Array, idx: Int32Array): number[] {
   return Array.from(idx, (i) => values[i]!);
 }
 
-/** Finite rows of all arrays, then a seeded sample of at most MAX_POINTS of them. */
-function finiteSample(arrays: Float64Array[], seed: number): { idx: Int32Array; from: number } {
+/**
+ * Finite rows of all arrays, then a seeded sample of at most MAX_POINTS of them; with `keepLargest`
+ * the rows with the 100 largest values of that array are always kept (the rows that set a bound).
+ */
+function finiteSample(arrays: Float64Array[], seed: number, keepLargest?: Float64Array): { idx: Int32Array; from: number } {
   const n = arrays[0]!.length;
   const ok: number[] = [];
   for (let i = 0; i < n; i++) if (arrays.every((a) => Number.isFinite(a[i]!))) ok.push(i);
   if (ok.length <= MAX_POINTS) return { idx: Int32Array.from(ok), from: ok.length };
-  const s = sampleIndices(ok.length, MAX_POINTS, seed);
+  const keep = keepLargest ? largestIndices(Float64Array.from(ok, (i) => keepLargest[i]!), 100) : [];
+  const s = sampleIndices(ok.length, MAX_POINTS, seed, keep);
   return { idx: Int32Array.from(s, (k) => ok[k]!), from: ok.length };
 }
 
@@ -192,8 +200,27 @@ function buildReportInput(
     });
   }
   if (search) {
-    const conv = (c: SearchResult['candidates'][number]) => ({ terms: c.terms, coefs: c.coefs, heldOutRmse: c.heldOutRmse, complexity: c.complexity });
-    input.search = { candidates: search.candidates.map(conv), front: search.front.map(conv), mode: search.mode };
+    const conv = (c: SearchResult['candidates'][number]) => ({
+      terms: c.terms,
+      coefs: c.coefs,
+      heldOutRmse: c.heldOutRmse,
+      complexity: c.complexity,
+      intercept: c.intercept.coef,
+      selectionRmse: c.selectionRmse,
+      rationalFormula: c.intercept.rational || c.rationals.some((q) => q !== null) ? c.roundedFormula : null,
+      rationalHeldOutRmse: c.roundedHeldOutRmse,
+    });
+    input.search = {
+      candidates: search.candidates.map(conv),
+      front: search.front.map(conv),
+      mode: search.mode,
+      target: search.target,
+      nCandidateTerms: search.nCandidateTerms,
+      nCandidatesTried: search.nCandidatesTried,
+      selectionRows: search.selectionRows,
+      heldOutRows: search.heldOutRows,
+      notes: search.notes,
+    };
   }
   if (bounds.length) {
     input.bounds = bounds.map((b) => {
@@ -206,7 +233,7 @@ function buildReportInput(
           const by = realValues(table, r.by);
           const ratio = new Float64Array(lhs.length);
           for (let i = 0; i < ratio.length; i++) ratio[i] = rhs[i]! > 0 ? lhs[i]! / rhs[i]! : NaN;
-          const { idx } = finiteSample([ratio, by], config.seed);
+          const { idx } = finiteSample([ratio, by], config.seed, ratio);
           const quantiles: Record<string, number> = {};
           for (const q of r.quantiles) quantiles[`${Number((q.p * 100).toPrecision(4))}%`] = q.value;
           return {
@@ -236,9 +263,45 @@ function buildReportInput(
 function parsePowers(s: string): [number, number] {
   const [a, b] = s.split('..').map(Number);
   if (!Number.isInteger(a) || !Number.isInteger(b) || a! > b!) {
-    throw new SurmiseError('config.badValue', `search.powers: expected a range lo..hi with lo ≤ hi, got '${s}'`);
+    throw new SurmiseError('config.badValue', `expected a range lo..hi with lo ≤ hi, got '${s}'`);
   }
   return [a!, b!];
+}
+
+/** Run `f`; a SurmiseError it throws is re-thrown naming the configuration key and its place in the file. */
+function inConfig<T>(path: Array<string | number>, at: (p: Array<string | number>) => string, f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof SurmiseError && e.exitCode === 2) {
+      throw new SurmiseError(e.code, `${at(path)}: ${keyPath(path)}: ${e.message}`, e.details);
+    }
+    throw e;
+  }
+}
+
+/**
+ * Check every expression, column name and option of the configuration against the table before
+ * any training starts, so a typo costs seconds, not a whole run.
+ */
+function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string | number>) => string): void {
+  inConfig(['split'], at, () => parseSplitSpec(config.split));
+  const expr = (path: Array<string | number>, source: string) => inConfig(path, at, () => evaluateExpression(table, source));
+  expr(['target'], config.target);
+  config.fits.forEach((f, i) => {
+    expr(['fits', i, 'target'], f.target);
+    f.terms.forEach((t, j) => expr(['fits', i, 'terms', j], t));
+  });
+  if (config.search) {
+    expr(['search', 'target'], config.search.target);
+    config.search.from.forEach((c, j) => expr(['search', 'from', j], c));
+    inConfig(['search', 'powers'], at, () => parsePowers(config.search!.powers));
+  }
+  config.bounds.forEach((b, i) => {
+    expr(['bounds', i, 'lhs'], b.lhs);
+    b.rhs.forEach((r, j) => expr(['bounds', i, 'rhs', j], r));
+    if (b.by) expr(['bounds', i, 'by'], b.by);
+  });
 }
 
 /** Run every stage of `loaded` and write the run folder. */
@@ -258,12 +321,14 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
   });
   const { sha256, bytes } = await sha256File(config.table);
   const inputColumns = table.columns.map((c) => c.name);
+  const at = (path: Array<string | number>) => loaded.locate?.(path) ?? loaded.path;
   for (const [name, source] of Object.entries(config.derive)) {
     if (table.columns.some((c) => c.name === name)) {
-      throw new SurmiseError('config.badValue', `derive.${name}: the table already has a column '${name}'`);
+      throw new SurmiseError('config.badValue', `${at(['derive', name])}: derive.${name}: the table already has a column '${name}'`);
     }
-    table.columns.push(deriveColumn(table, name, source));
+    table.columns.push(inConfig(['derive', name], at, () => deriveColumn(table, name, source)));
   }
+  checkAgainstTable(config, table, at);
   timings.read = seconds(t0);
 
   stage('learning and attribution');
