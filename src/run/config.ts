@@ -12,6 +12,8 @@ import { SurmiseError, didYouMean } from '../errors.ts';
 const positiveInt = z.number().int().min(1);
 const nonNegativeInt = z.number().int().min(0);
 const exprString = z.string().min(1);
+/** A list, where a single item may be written without brackets (`rhs: vol` = `rhs: [vol]`). */
+const listOf = <T extends z.ZodType>(item: T, min = 0) => z.preprocess((v) => (typeof v === 'string' ? [v] : v), z.array(item).min(min));
 
 const NetworkSchema = z.strictObject({
   hidden: z.array(positiveInt).min(1).default([64, 64, 64]),
@@ -25,7 +27,7 @@ const NetworkSchema = z.strictObject({
 });
 
 const AttributionSchema = z.strictObject({
-  methods: z.array(z.enum(['saliency', 'smoothgrad', 'integrated', 'permutation'])).min(1)
+  methods: listOf(z.enum(['saliency', 'smoothgrad', 'integrated', 'permutation']), 1)
     .default(['saliency', 'smoothgrad', 'integrated', 'permutation']),
   seeds: positiveInt.default(3),
   folds: nonNegativeInt.default(0),
@@ -34,13 +36,13 @@ const AttributionSchema = z.strictObject({
 
 const FitSchema = z.strictObject({
   target: exprString,
-  terms: z.array(exprString).min(1),
+  terms: listOf(exprString, 1),
   intercept: z.boolean().default(true),
 });
 
 const SearchSchema = z.strictObject({
   target: exprString,
-  from: z.array(z.string().min(1)).min(1),
+  from: listOf(z.string().min(1), 1),
   maxTerms: positiveInt.default(2),
   powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
   top: positiveInt.default(10),
@@ -48,7 +50,7 @@ const SearchSchema = z.strictObject({
 
 const BoundSchema = z.strictObject({
   lhs: exprString,
-  rhs: z.array(exprString).min(1),
+  rhs: listOf(exprString, 1),
   by: exprString.optional(),
   bins: positiveInt.default(10),
   top: positiveInt.default(5),
@@ -61,8 +63,8 @@ export const RunConfigSchema = z.strictObject({
   kinds: z.record(z.string(), z.enum(['real', 'integer', 'complex', 'label'])).default({}),
   derive: z.record(z.string(), exprString).default({}),
   target: exprString,
-  features: z.array(z.string().min(1)).optional(),
-  exclude: z.array(z.string().min(1)).default([]),
+  features: listOf(z.string().min(1)).optional(),
+  exclude: listOf(z.string().min(1)).default([]),
   groups: z.record(z.string(), z.array(z.string().min(1)).min(1)).default({}),
   split: z.string().min(1).default('random'),
   seed: z.number().int().default(1),

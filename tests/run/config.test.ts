@@ -30,6 +30,19 @@ describe('run configuration', () => {
     expect(config.bounds[0]!.rhs).toEqual(['vol', 'vol/inj']);
   });
 
+  it('accepts a single item where a list is expected (rhs: vol = rhs: [vol])', () => {
+    const { config } = parseConfig('table: a.csv\ntarget: y\nexclude: z\nbounds:\n  - lhs: y\n    rhs: vol\n', 'cfg.yaml');
+    expect(config.exclude).toEqual(['z']);
+    expect(config.bounds[0]!.rhs).toEqual(['vol']);
+  });
+
+  it('refuses an empty list where one item is needed', () => {
+    expect(refusal('table: a.csv\ntarget: y\nbounds:\n  - lhs: y\n    rhs: []\n')).toEqual({
+      code: 'config.badValue',
+      message: 'cfg.yaml:5:10: bounds[0].rhs: expected a list of at least 1 item(s), got a list',
+    });
+  });
+
   it('refuses an unknown key with its place and a suggestion', () => {
     expect(refusal('table: a.csv\ntarget: sig\natribution:\n  seeds: 2\n')).toEqual({
       code: 'config.unknownKey',
