@@ -19,7 +19,7 @@ import { networkFromJSON, type TrainedNetwork } from '../learn/trained.ts';
 import { chooseTask, type Task } from '../learn/options.ts';
 import { fitConstant } from '../learn/constant.ts';
 import { selectRidge } from '../learn/ridge.ts';
-import { evaluate } from '../learn/evaluate.ts';
+import { evaluate, type Evaluation } from '../learn/evaluate.ts';
 import type { TrainData } from '../learn/data.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod, type FeatureGroup, type RepeatScores } from './types.ts';
 import { attributeRepeat, type ClassificationLoss } from './repeat.ts';
@@ -108,6 +108,8 @@ export interface Skill {
   /** Mean over repeats, and per repeat. */
   score: number;
   perRepeat: number[];
+  /** The second held-out figure: RMSE (regression) or balanced accuracy (classification), mean and per repeat. */
+  secondary?: { metric: 'rmse' | 'balancedAccuracy'; score: number; perRepeat: number[] };
 }
 
 export interface RankResult {
@@ -180,8 +182,18 @@ function checkOptions(o: RankOptions): void {
   }
 }
 
-function skill(metric: 'r2' | 'accuracy', perRepeat: number[]): Skill {
-  return { metric, score: perRepeat.reduce((a, b) => a + b, 0) / perRepeat.length, perRepeat };
+function skill(metric: 'r2' | 'accuracy', perRepeat: number[], second?: number[]): Skill {
+  const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
+  const out: Skill = { metric, score: mean(perRepeat), perRepeat };
+  if (second && second.length === perRepeat.length) {
+    out.secondary = { metric: metric === 'r2' ? 'rmse' : 'balancedAccuracy', score: mean(second), perRepeat: second };
+  }
+  return out;
+}
+
+/** The second figure of an evaluation: RMSE (regression) or balanced accuracy (classification). */
+function second(e: Evaluation): number {
+  return (e.metric === 'r2' ? e.rmse : e.balancedAccuracy) ?? Number.NaN;
 }
 
 /**
@@ -207,6 +219,10 @@ interface Fit {
   score: number;
   constant: number;
   ridge: number;
+  /** Second figures (RMSE or balanced accuracy) of the network and the two baselines. */
+  score2: number;
+  constant2: number;
+  ridge2: number;
   epochsRun: number;
 }
 
@@ -234,13 +250,12 @@ async function* trainAll(
     seed,
     task,
   });
-  const score = (net: TrainedNetwork, d: RepeatData): Fit => ({
-    net,
-    score: evaluate(net, d.test).score,
-    constant: evaluate(fitConstant(d.train.y, task), d.test).score,
-    ridge: evaluate(selectRidge(d.train, d.validation, task).model, d.test).score,
-    epochsRun: net.epochs,
-  });
+  const score = (net: TrainedNetwork, d: RepeatData): Fit => {
+    const e = evaluate(net, d.test);
+    const c = evaluate(fitConstant(d.train.y, task), d.test);
+    const rg = evaluate(selectRidge(d.train, d.validation, task).model, d.test);
+    return { net, score: e.score, constant: c.score, ridge: rg.score, score2: second(e), constant2: second(c), ridge2: second(rg), epochsRun: net.epochs };
+  };
   if (o.workers >= 1 && datas.length > 1) {
     let finished = 0;
     const rep = await trainMany(
@@ -315,6 +330,9 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const netScores: number[] = [];
   const constScores: number[] = [];
   const ridgeScores: number[] = [];
+  const net2: number[] = [];
+  const const2: number[] = [];
+  const ridge2: number[] = [];
   const epochsRun: number[] = [];
   const completeness: RankResult['completeness'] = [];
   const repeatsInfo: RankResult['repeats'] = [];
@@ -332,6 +350,9 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       netScores.push(fit.score);
       constScores.push(fit.constant);
       ridgeScores.push(fit.ridge);
+      net2.push(fit.score2);
+      const2.push(fit.constant2);
+      ridge2.push(fit.ridge2);
       epochsRun.push(fit.epochsRun);
       report('attribute', (r + 1) * unitsPerRepeat, `${label}: attributing`);
       const rows = subsample(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
@@ -379,8 +400,8 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     features: [...ds.featureNames],
     groups: groups.map((g) => ({ name: g.name, members: g.members.map((j) => ds.featureNames[j]!) })),
     model: {
-      ...skill(metric, netScores),
-      baselines: { constant: skill(metric, constScores), ridge: skill(metric, ridgeScores) },
+      ...skill(metric, netScores, net2),
+      baselines: { constant: skill(metric, constScores, const2), ridge: skill(metric, ridgeScores, ridge2) },
       hidden,
       epochsRun,
     },
@@ -408,6 +429,9 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const s: number[] = [];
     const c: number[] = [];
     const rr: number[] = [];
+    const s2: number[] = [];
+    const c2: number[] = [];
+    const rr2: number[] = [];
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
     for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
@@ -415,14 +439,17 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       s.push(fit.score);
       c.push(fit.constant);
       rr.push(fit.ridge);
+      s2.push(fit.score2);
+      c2.push(fit.constant2);
+      rr2.push(fit.ridge2);
     }
     result.ablation = {
       dropped: dropped.map((g) => g.name),
       features: keep.map((j) => ds.featureNames[j]!),
-      model: skill(metric, s),
-      ridge: skill(metric, rr),
-      constant: skill(metric, c),
-      full: skill(metric, netScores),
+      model: skill(metric, s, s2),
+      ridge: skill(metric, rr, rr2),
+      constant: skill(metric, c, c2),
+      full: skill(metric, netScores, net2),
     };
   }
   report('attribute', total, 'done');

@@ -113,10 +113,13 @@ export function formatRank(r: RankResult, source: string): string {
       `${r.repeats[0]?.train ?? 0} train / ${r.repeats[0]?.validation ?? 0} validation / ${r.repeats[0]?.test ?? 0} held-out rows in the first`,
   );
   L.push('');
-  L.push(`held-out ${metricName} (mean over repeats):`);
-  L.push(`  network ${r.model.hidden.join('×') || 'linear'}   ${fmt(r.model.score)}   (per repeat ${r.model.perRepeat.map((v) => fmt(v)).join(', ')})`);
-  L.push(`  ridge baseline       ${fmt(r.model.baselines.ridge.score)}`);
-  L.push(`  constant baseline    ${fmt(r.model.baselines.constant.score)}`);
+  const sec = r.model.secondary;
+  const secName = sec ? (sec.metric === 'rmse' ? 'RMSE' : 'balanced accuracy') : '';
+  const also = (s: { secondary?: { score: number } }) => (sec && s.secondary ? `   ${secName} ${fmt(s.secondary.score)}` : '');
+  L.push(`held-out ${metricName}${sec ? ` and ${secName}` : ''} (mean over repeats):`);
+  L.push(`  network ${r.model.hidden.join('×') || 'linear'}   ${fmt(r.model.score)}${also(r.model)}   (per repeat ${r.model.perRepeat.map((v) => fmt(v)).join(', ')})`);
+  L.push(`  ridge baseline       ${fmt(r.model.baselines.ridge.score)}${also(r.model.baselines.ridge)}`);
+  L.push(`  constant baseline    ${fmt(r.model.baselines.constant.score)}${also(r.model.baselines.constant)}`);
   if (r.model.score <= Math.max(r.model.baselines.ridge.score, r.model.baselines.constant.score)) {
     L.push('  the network does not beat the baselines: the ranking below explains little');
   }
@@ -139,7 +142,9 @@ export function formatRank(r: RankResult, source: string): string {
   }
   if (r.completeness?.length) {
     const rel = r.completeness.map((c) => c.meanAbsGap / c.meanAbsDelta);
-    L.push(`integrated gradients completeness: mean |Σ attributions − (f(x) − f(baseline))| is ${rel.map((v) => `${(100 * v).toFixed(2)}%`).join(', ')} of mean |f(x) − f(baseline)| per repeat`);
+    const relMax = r.completeness.map((c) => c.maxAbsGap / c.meanAbsDelta);
+    L.push(`integrated gradients completeness: mean |Σ attributions − (f(x) − f(baseline))| is ${rel.map((v) => `${(100 * v).toFixed(2)}%`).join(', ')} of mean |f(x) − f(baseline)| per repeat; largest gap on one row ${relMax.map((v) => `${(100 * v).toFixed(1)}%`).join(', ')}`);
+    if (relMax.some((v) => v > 0.1)) L.push('  integration error on some rows: the largest gap exceeds 10% of mean |f(x) − f(baseline)|; the attributions of those rows do not add up exactly');
   }
   if (r.ablation) {
     const a = r.ablation;

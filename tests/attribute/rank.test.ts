@@ -147,6 +147,14 @@ describe('classification', () => {
     expect(r.model.score).toBeGreaterThan(0.85);
     expect(r.model.baselines.constant.score).toBeLessThan(0.5);
     expect(['petal_length', 'petal_width']).toContain(r.ranking[0]!.feature);
+    // second figure: balanced accuracy (Brodersen et al. 2010, ICPR: mean per-class recall). A constant
+    // guess recalls one class fully and the others not at all, so it scores exactly 1/3 on any
+    // held-out split holding all three species; the network's lies in [0, 1] beside its accuracy.
+    expect(r.model.secondary!.metric).toBe('balancedAccuracy');
+    expect(r.model.baselines.constant.secondary!.perRepeat).toHaveLength(3);
+    for (const v of r.model.baselines.constant.secondary!.perRepeat) expect(v).toBeCloseTo(1 / 3, 12);
+    expect(r.model.secondary!.score).toBeGreaterThan(0.85);
+    expect(r.model.secondary!.score).toBeLessThanOrEqual(1);
   }, 120_000);
 });
 

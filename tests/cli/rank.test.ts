@@ -36,6 +36,16 @@ describe('surmise rank', () => {
     expect(typeof r.model.score).toBe('number');
     expect(typeof r.model.baselines.constant.score).toBe('number');
     expect(typeof r.model.baselines.ridge.score).toBe('number');
+    // second figure, RMSE, for the network and both baselines. On the same held-out rows
+    // R² = 1 − SSE/SST with one SST, so (1 − R²_a)/(1 − R²_b) = RMSE_a²/RMSE_b² exactly (definitions of R² and RMSE)
+    expect(r.model.secondary.metric).toBe('rmse');
+    for (const b of [r.model.baselines.ridge, r.model.baselines.constant]) {
+      expect(b.secondary.metric).toBe('rmse');
+      b.secondary.perRepeat.forEach((rmseB: number, k: number) => {
+        const rmseN = r.model.secondary.perRepeat[k];
+        expect((1 - r.model.perRepeat[k]) / (1 - b.perRepeat[k])).toBeCloseTo((rmseN / rmseB) ** 2, 8);
+      });
+    }
     expect(r.ranking).toHaveLength(7);
     for (const e of r.ranking) expect(Object.keys(e).sort()).toEqual(['feature', 'high', 'low', 'score']);
     // sorted best first
