@@ -2,7 +2,7 @@ import type { Block, Inline } from './doc.ts';
 import type { ReportInput, Interval } from './types.ts';
 import type { PlotPlan } from './plan.ts';
 import { formatCount, formatInterval, formatMaybe, formatNumber } from './format.ts';
-import { candidateExpression, equation, metricDirection, metricLabel, trendGrows } from './words.ts';
+import { completenessTroubled, equation, isRowDropNote, metricDirection, metricLabel, searchFormula, secondaryLabel, trendGrows } from './words.ts';
 import { attributionSpec } from './plots/attribution.ts';
 import { scatterSpec } from './plots/scatter.ts';
 import { predictionSpec } from './plots/predictions.ts';
@@ -74,19 +74,53 @@ export function predictabilitySection(input: ReportInput, plan: PlotPlan, set: S
       dir === 1 ? ' (larger is better):' : dir === -1 ? ' (smaller is better):' : ':',
     ],
   });
+  const sec = r.model.secondary;
   out.push({
     kind: 'table',
-    header: ['model', metricLabel(r.model.metric)],
+    header: sec ? ['model', metricLabel(r.model.metric), secondaryLabel(sec.metric)] : ['model', metricLabel(r.model.metric)],
     rows: [
-      ['network', { text: formatNumber(r.model.score), key: 'network-score-table' }],
-      ['constant prediction', n4(r.model.baselines.constant)],
-      ['ridge regression', n4(r.model.baselines.ridge)],
+      ['network', { text: formatNumber(r.model.score), key: 'network-score-table' }, ...(sec ? [n4(sec.score)] : [])],
+      ['constant prediction', n4(r.model.baselines.constant), ...(sec ? [n4(sec.baselines.constant)] : [])],
+      ['ridge regression', n4(r.model.baselines.ridge), ...(sec ? [n4(sec.baselines.ridge)] : [])],
     ],
-    numeric: [false, true],
+    numeric: sec ? [false, true, true] : [false, true],
   });
+  if (sec) {
+    out.push({
+      kind: 'paragraph',
+      parts: [
+        sec.metric === 'rmse'
+          ? 'RMSE is the root-mean-square error of the prediction on the held-out rows, in the units of the target (smaller is better).'
+          : 'Balanced accuracy is the mean over classes of the fraction of each class predicted right (larger is better); a constant guess scores 1 over the number of classes.',
+      ],
+    });
+  }
+  const c = r.completeness;
+  if (c && c.length > 0) {
+    const pct = (v: number) => `${(100 * v).toFixed(1)}%`;
+    out.push({
+      kind: 'paragraph',
+      parts: [
+        `Integrated gradients completeness (the attributions of a row should add up to f(x) − f(baseline)): per repeat the mean gap is ${c.map((x) => pct(x.meanAbsGap / x.meanAbsDelta)).join(', ')} and the largest gap on one row ${c.map((x) => pct(x.maxAbsGap / x.meanAbsDelta)).join(', ')} of mean |f(x) − f(baseline)|.`,
+      ],
+    });
+    if (completenessTroubled(c)) {
+      out.push({
+        kind: 'paragraph',
+        tone: 'flag',
+        parts: [
+          { text: 'Flag:', strong: true },
+          ' integration error on some rows: their integrated-gradients attributions do not add up to the change in the prediction (largest gap above 10% of the mean change). The shares averaged over rows are little affected; read single rows with care.',
+        ],
+      });
+    }
+  }
   if (r.predictions && r.predictions.actual.length > 0) {
-    const title = `Network prediction of ${r.target} against the actual value`;
-    const name = plan.add('predicted-vs-actual', title, predictionSpec(r.target, r.predictions, set.maxPoints, deriveSeed(set.seed, 'report', 'predictions')));
+    const title =
+      r.task === 'classification'
+        ? `Network expected value of ${r.target} (Σ p_k·c_k over the classes) against the actual class`
+        : `Network prediction of ${r.target} against the actual value`;
+    const name = plan.add('predicted-vs-actual', title, predictionSpec(r.target, r.predictions, set.maxPoints, deriveSeed(set.seed, 'report', 'predictions'), r.task));
     out.push({ kind: 'plot', name, title });
   }
   return out;
@@ -167,7 +201,9 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
       ]),
       numeric: [false, true, true, false, false],
     });
-    if (f.warnings.length > 0) out.push({ kind: 'list', items: f.warnings.map((w) => [{ text: 'Warning:', strong: true }, ' ', w]) });
+    if (f.warnings.length > 0) {
+      out.push({ kind: 'list', items: f.warnings.map((w) => (isRowDropNote(w) ? ['Rows: ', w] : [{ text: 'Warning:', strong: true }, ' ', w])) });
+    }
     const res = f.residuals;
     if (res) {
       res.byTerm.forEach((bt, k) => {
@@ -183,21 +219,59 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
   });
   if (search) {
     out.push({ kind: 'heading', level: 3, text: 'Formula search' });
+    const screened =
+      search.nCandidatesTried !== undefined
+        ? `${formatCount(search.nCandidatesTried)} subsets of ${search.nCandidateTerms !== undefined ? `${formatCount(search.nCandidateTerms)} candidate terms` : 'the candidate terms'} screened${search.selectionRows !== undefined ? ` on ${formatCount(search.selectionRows)} selection rows` : ''}; the best ${formatCount(search.candidates.length)} were refitted and scored on ${search.heldOutRows !== undefined ? `${formatCount(search.heldOutRows)} ` : ''}held-out rows that took no part in the choice`
+        : `${formatCount(search.candidates.length)} candidate formulas scored on held-out rows`;
     out.push({
       kind: 'paragraph',
       parts: [
         `Search mode `,
         { text: search.mode, code: true },
-        `: ${formatCount(search.candidates.length)} candidate formulas scored on held-out rows; the ${formatCount(search.front.length)} below are not beaten on both error and complexity by any other.`,
+        `: ${screened}. The ${formatCount(search.front.length)} below are not beaten on both held-out error and complexity by any other.`,
+      ],
+    });
+    out.push({
+      kind: 'paragraph',
+      parts: [
+        'Complexity counts 1 per column occurrence, plus (|k| − 1) for a power k, plus 1 for a division and 1 per function (x = 1, x² = 2, 1/x = 2, x·y = 2); the intercept counts 0 and a formula’s complexity is the sum over its terms.',
       ],
     });
     const front = [...search.front].sort((a, b) => a.complexity - b.complexity || a.heldOutRmse - b.heldOutRmse);
+    const withSel = front.some((c) => c.selectionRmse !== undefined);
+    const withFrac = front.some((c) => c.rationalFormula);
     out.push({
       kind: 'table',
-      header: ['complexity', 'held-out RMSE', 'fitted right-hand side'],
-      rows: front.map((c) => [String(c.complexity), n4(c.heldOutRmse), { text: candidateExpression(c.terms, c.coefs), code: true }]),
-      numeric: [true, true, false],
+      header: ['complexity', 'held-out RMSE', ...(withSel ? ['selection RMSE'] : []), 'fitted formula', ...(withFrac ? ['with fractions (held-out RMSE)'] : [])],
+      rows: front.map((c) => [
+        String(c.complexity),
+        n4(c.heldOutRmse),
+        ...(withSel ? [c.selectionRmse !== undefined ? n4(c.selectionRmse) : '—'] : []),
+        { text: searchFormula(search.target, c), code: true },
+        ...(withFrac
+          ? [c.rationalFormula ? { text: `${search.target ?? 'target'} ≈ ${c.rationalFormula}`, code: true } : '—']
+          : []),
+      ]),
+      numeric: [true, true, ...(withSel ? [true] : []), false, ...(withFrac ? [false] : [])],
     });
+    const fracRmse = front.filter((c) => c.rationalFormula && c.rationalHeldOutRmse !== undefined);
+    if (fracRmse.length > 0) {
+      out.push({
+        kind: 'paragraph',
+        parts: [
+          `Held-out RMSE with the fractions in place: ${fracRmse.map((c) => `${formatNumber(c.rationalHeldOutRmse!)} (complexity ${c.complexity})`).join(', ')}.`,
+        ],
+      });
+    }
+    out.push({
+      kind: 'paragraph',
+      tone: 'note',
+      parts: [
+        'Many candidates were tried, and with many candidates some overfit by luck (multiple comparisons): trust a formula only when its held-out error is close to its selection error, and check it on new data.',
+      ],
+    });
+    const extra = (search.notes ?? []).filter((n) => !/^\d+ subsets screened/.test(n) && !/multiple comparisons/.test(n));
+    if (extra.length > 0) out.push({ kind: 'list', items: extra.map((n) => [n]) });
   }
   return out;
 }

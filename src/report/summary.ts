@@ -1,7 +1,7 @@
 import type { Block, Inline } from './doc.ts';
 import type { ReportInput } from './types.ts';
-import { formatInterval, formatMaybe, formatNumber } from './format.ts';
-import { candidateExpression, compareScore, equation, metricDirection, metricLabel, trendGrows, witnessLabels } from './words.ts';
+import { formatCount, formatInterval, formatMaybe, formatNumber } from './format.ts';
+import { compareScore, completenessTroubled, equation, isRowDropNote, metricDirection, metricLabel, searchFormula, secondaryLabel, trendGrows, witnessLabels } from './words.ts';
 
 /** The sentence every report carries after its summary. */
 export const EVIDENCE_SENTENCE = 'These findings are statistical evidence on this table, not a proof.';
@@ -18,17 +18,19 @@ export function summaryBlocks(input: ReportInput): Block[] {
     items.push(predictabilitySentence(r));
     const top = [...r.ranking].sort((a, b) => b.score - a.score);
     if (top.length > 0) {
+      const lead = leadingGroup(top);
+      const named = lead ?? top.slice(0, Math.min(3, top.length));
       const parts: Inline[] = [`The quantities that matter most for `, { text: r.target, code: true }, ': '];
-      top.slice(0, 3).forEach((f, k) => {
-        if (k > 0) parts.push(k === Math.min(3, top.length) - 1 ? ' and ' : ', ');
+      named.forEach((f, k) => {
+        if (k > 0) parts.push(k === named.length - 1 ? ' and ' : ', ');
         parts.push({ text: f.feature, code: true, ...(k === 0 ? { key: 'top-feature' } : {}) });
         parts.push(` (score ${formatNumber(f.score)}, interval ${formatInterval(f.low, f.high)})`);
       });
       parts.push('.');
       if (top.length > 1) {
-        const rest = Math.max(...top.slice(1).map((f) => f.high));
-        if (top[0]!.low > rest) parts.push(' ', { text: top[0]!.feature, code: true }, ' is clearly ahead: its interval lies above every other one.');
-        else parts.push(' The intervals of the leading quantities overlap, so their order is not settled.');
+        if (lead && lead.length === 1) parts.push(' ', { text: top[0]!.feature, code: true }, ' is clearly ahead: its interval lies above every other one.');
+        else if (lead) parts.push(` These ${lead.length} are clearly ahead of the rest: each of their intervals lies above every later one; their order among themselves is not settled.`);
+        else parts.push(` The top ones cannot be told apart from those that follow: no interval among the first ${named.length} lies above all the later ones, so neither their order nor where the leading group ends is settled.`);
       }
       items.push(parts);
     }
@@ -50,16 +52,30 @@ export function summaryBlocks(input: ReportInput): Block[] {
     if (frac !== null) parts.push('; with its coefficients as fractions: ', { text: frac, code: true, key: `best-formula-${k}` });
     parts.push('.');
     items.push(parts);
-    if (f.warnings.length > 0) {
-      flags.push([`The fit of `, { text: f.target, code: true }, ` carries warnings: ${f.warnings.join('; ')}.`]);
+    const real = f.warnings.filter((w) => !isRowDropNote(w));
+    if (real.length > 0) {
+      flags.push([`The fit of `, { text: f.target, code: true }, ` carries warnings: ${real.join('; ')}.`]);
     }
   }
   if (byTarget.size === 0 && input.search && input.search.front.length > 0) {
-    const best = [...input.search.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse)[0]!;
-    items.push([
+    const s = input.search;
+    const best = [...s.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse)[0]!;
+    const parts: Inline[] = [
       'Best formula on the search front: ',
-      { text: candidateExpression(best.terms, best.coefs), code: true },
-      ` (held-out RMSE ${formatNumber(best.heldOutRmse)}, complexity ${best.complexity}).`,
+      { text: searchFormula(s.target, best), code: true },
+      ` (held-out RMSE ${formatNumber(best.heldOutRmse)}${best.selectionRmse !== undefined ? `, selection RMSE ${formatNumber(best.selectionRmse)}` : ''}, complexity ${best.complexity})`,
+    ];
+    if (best.rationalFormula) parts.push('; with fractions: ', { text: `${s.target ?? 'target'} ≈ ${best.rationalFormula}`, code: true });
+    parts.push(
+      s.nCandidatesTried !== undefined
+        ? `. It was chosen among ${formatCount(s.nCandidatesTried)} screened subsets, and with so many candidates some overfit by luck.`
+        : '.',
+    );
+    items.push(parts);
+  }
+  if (r && completenessTroubled(r.completeness)) {
+    flags.push([
+      'Integrated gradients: integration error on some rows. Their attributions do not add up to the change in the prediction (the largest gap on one row exceeds 10% of the mean change); the ranking, averaged over rows, is little affected.',
     ]);
   }
   (input.bounds ?? []).forEach((b, i) => {
@@ -112,6 +128,11 @@ function predictabilitySentence(r: NonNullable<ReportInput['rank']>): Inline[] {
     { text: formatNumber(m.score), key: 'network-score' },
     ` against ${formatNumber(m.baselines.constant)} for a constant prediction and ${formatNumber(m.baselines.ridge)} for ridge regression`,
   ];
+  if (m.secondary) {
+    parts.push(
+      ` (${secondaryLabel(m.secondary.metric)} ${formatNumber(m.secondary.score)} against ${formatNumber(m.secondary.baselines.constant)} and ${formatNumber(m.secondary.baselines.ridge)})`,
+    );
+  }
   if (dir === 0) {
     parts.push(` (the report does not know whether a larger ${m.metric} is better, so it draws no conclusion).`);
     return parts;
@@ -130,4 +151,21 @@ function predictabilitySentence(r: NonNullable<ReportInput['rank']>): Inline[] {
   }
   parts.push(verdict);
   return parts;
+}
+
+/**
+ * The leading quantities up to the first clear gap among the first three (best first): the
+ * shortest head top[0..k], k < 3, whose every interval lies above every later interval (lowest
+ * low of the head > highest high of the rest). Null when there is no such gap, or when the
+ * ranking has a single entry (which is returned alone).
+ */
+export function leadingGroup<T extends { low: number; high: number }>(sorted: readonly T[]): T[] | null {
+  if (sorted.length === 1) return [sorted[0]!];
+  let minLow = Infinity;
+  for (let k = 0; k < Math.min(3, sorted.length - 1); k++) {
+    minLow = Math.min(minLow, sorted[k]!.low);
+    const restHigh = Math.max(...sorted.slice(k + 1).map((f) => f.high));
+    if (minLow > restHigh) return sorted.slice(0, k + 1);
+  }
+  return null;
 }

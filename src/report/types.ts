@@ -22,12 +22,20 @@ export interface ReportDrops {
 export interface ReportRank {
   target: string;
   task: 'regression' | 'classification';
-  model: { metric: string; score: number; baselines: { constant: number; ridge: number } };
+  model: {
+    metric: string;
+    score: number;
+    baselines: { constant: number; ridge: number };
+    /** The second held-out figure (RMSE for regression, balanced accuracy for classification); absent in older inputs. */
+    secondary?: { metric: string; score: number; baselines: { constant: number; ridge: number } };
+  };
   /** kendallTau: agreement (Kendall τ) between the method's repeats; null when not defined (one repeat, all ties). */
   methods: Record<string, { ranking: Interval[]; kendallTau: number | null }>;
   ranking: Interval[];
-  /** Held-out rows, possibly sampled. */
+  /** Held-out rows, possibly sampled. Classification: `predicted` is the expected value Σ p_k·c_k. */
   predictions?: { actual: number[]; predicted: number[] };
+  /** Integrated gradients only: per repeat, mean and largest |Σ attributions − (f(x) − f(baseline))| and mean |f(x) − f(baseline)|. */
+  completeness?: Array<{ meanAbsGap: number; maxAbsGap: number; meanAbsDelta: number }>;
 }
 
 export interface ReportScatter {
@@ -66,12 +74,27 @@ export interface ReportCandidate {
   coefs: number[];
   heldOutRmse: number;
   complexity: number;
+  /** Optional (older inputs lack them): the fitted intercept, error on the selection rows, coefficients as fractions. */
+  intercept?: number;
+  selectionRmse?: number;
+  /** `target ≈ …` with the coefficients as fractions, when every one has a simple fraction near it. */
+  rationalFormula?: string | null;
+  /** Held-out RMSE of the formula with its fractions. */
+  rationalHeldOutRmse?: number;
 }
 
 export interface ReportSearch {
   candidates: ReportCandidate[];
   front: ReportCandidate[];
   mode: string;
+  /** Optional (older inputs lack them). */
+  target?: string;
+  /** Candidate terms the subsets were drawn from, and the subsets screened in all. */
+  nCandidateTerms?: number;
+  nCandidatesTried?: number;
+  selectionRows?: number;
+  heldOutRows?: number;
+  notes?: string[];
 }
 
 export interface ReportWitness {

@@ -112,3 +112,34 @@ export function trendGrows(t: { slope: number | null; low: number | null; high: 
   const excludesZero = (t.low !== null && Number.isFinite(t.low) && t.low > 0) || (t.high !== null && Number.isFinite(t.high) && t.high < 0);
   return excludesZero || /\b(grow|grows|growing|increas\w*|unbounded|diverg\w*)\b/i.test(t.verdict);
 }
+
+/**
+ * True for a fit's note that rows were dropped (missing, non-finite or exact repeats), e.g.
+ * "10 of 20000 rows dropped (10 exact repeats of an earlier row)": information, not a warning.
+ */
+export function isRowDropNote(w: string): boolean {
+  return /^\d+ of \d+ rows dropped( \(|$)/.test(w);
+}
+
+/** Integrated gradients: true when on some repeat the largest row gap exceeds 10% of mean |f(x) − f(baseline)| (our threshold). */
+export function completenessTroubled(c: ReadonlyArray<{ maxAbsGap: number; meanAbsDelta: number }> | undefined): boolean {
+  return (c ?? []).some((x) => x.meanAbsDelta > 0 && x.maxAbsGap > 0.1 * x.meanAbsDelta);
+}
+
+/** "RMSE" or "balanced accuracy" for the second held-out figure of a ranking. */
+export function secondaryLabel(metric: string): string {
+  return metric === 'balancedAccuracy' ? 'balanced accuracy' : metricLabel(metric);
+}
+
+/**
+ * A search candidate as `target ≈ c₀ + c₁·t₁ + …` with 4-figure coefficients; without a known
+ * target or intercept (older inputs) the right-hand side alone, as before.
+ */
+export function searchFormula(target: string | undefined, c: { terms: readonly string[]; coefs: readonly number[]; intercept?: number }): string {
+  if (c.intercept === undefined) return candidateExpression(c.terms, c.coefs);
+  const terms = [
+    { term: '1', coef: c.intercept, se: NaN, low: NaN, high: NaN, rational: null },
+    ...c.terms.map((term, k) => ({ term, coef: c.coefs[k] ?? NaN, se: NaN, low: NaN, high: NaN, rational: null })),
+  ];
+  return equation(target ?? 'target', terms, false)!;
+}

@@ -1,11 +1,39 @@
 import type { PlotSpec } from '../render-plot.ts';
 import { formatCount } from '../format.ts';
 
+/**
+ * Break each subtitle line at spaces into lines of at most `chars` characters, so vega's title
+ * `limit` never cuts a subtitle short with "…" (a word longer than `chars` stays whole).
+ */
+export function wrapSubtitle(lines: string | string[], chars: number): string[] {
+  const out: string[] = [];
+  for (const line of Array.isArray(lines) ? lines : [lines]) {
+    let cur = '';
+    for (const word of line.split(' ')) {
+      if (cur && cur.length + 1 + word.length > chars) {
+        out.push(cur);
+        cur = word;
+      } else cur = cur ? `${cur} ${word}` : word;
+    }
+    out.push(cur);
+  }
+  return out;
+}
+
+/**
+ * Characters per subtitle line: the title's pixel limit over 6.5 px, a generous average advance of
+ * a DejaVu Sans character at vega's subtitle size (about 0.6 em — from memory — plus a margin).
+ */
+const SUBTITLE_PX_PER_CHAR = 6.5;
+
 /** Settings every plot shares: fixed size, no ARIA text (large charts), the DejaVu font family. */
 export function baseSpec(title: string, subtitle: string | string[] | undefined, width = 560, height = 360): PlotSpec {
+  const limit = width + 60;
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
-    title: subtitle ? { text: title, subtitle, anchor: 'start', limit: width + 60 } : { text: title, anchor: 'start', limit: width + 60 },
+    title: subtitle
+      ? { text: title, subtitle: wrapSubtitle(subtitle, Math.floor(limit / SUBTITLE_PX_PER_CHAR)), anchor: 'start', limit }
+      : { text: title, anchor: 'start', limit },
     width,
     height,
     background: 'white',
