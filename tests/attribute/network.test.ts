@@ -36,16 +36,16 @@ describe('attribution of a trained network on Friedman #1', () => {
     expect(mse).toBeLessThan(5);
   });
 
-  it('saliency and permutation rank x1..x5 above x6..x10 (Friedman 1991: x6..x10 inert)', () => {
+  it('every method (saliency, SmoothGrad, integrated gradients, permutation) ranks x1..x5 above x6..x10 (Friedman 1991: x6..x10 inert)', () => {
     const r = attributeRepeat(net, test.x, test.y, test.n, defaultGroups(Array.from({ length: 10 }, (_, j) => `x${j + 1}`)), {
-      methods: ['saliency', 'permutation'],
+      methods: ['saliency', 'smoothgrad', 'integrated', 'permutation'],
       seed: 1,
       smoothGradSamples: 8,
       smoothGradNoise: 0.15,
       integratedSteps: 16,
       permutationRepeats: 3,
     });
-    for (const m of ['saliency', 'permutation'] as const) {
+    for (const m of ['saliency', 'smoothgrad', 'integrated', 'permutation'] as const) {
       const s = Array.from(r.scores[m]!.scores);
       expect(Math.min(...s.slice(0, 5)), m).toBeGreaterThan(Math.max(...s.slice(5)));
     }
