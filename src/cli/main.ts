@@ -14,9 +14,9 @@ export function buildProgram(io: CliIO): Command {
   program
     .name('surmise')
     .description(
-      'Find which invariants in a table predict a target, fit closed-form relations and inequalities,\n' +
-        'and report the tightest constants with the rows that attain them. Results are statistical\n' +
-        'evidence on the given table, never a proof.',
+      'Find which invariants in a table predict a target, fit closed-form relations and inequalities, ' +
+        'and report the tightest constants with the rows that attain them. Results are statistical ' +
+        'evidence on the given table, never a proof. Knot signatures: the right-handed trefoil has signature -2.',
     )
     .version(VERSION, '-V, --version')
     .exitOverride()
