@@ -42,7 +42,8 @@ describe('fitRelation row policy and options', () => {
     expect(r.dropped.byExpression.find((d) => d.expression === 'log(z)')!.nonFinite).toBe(1);
     expect(r.warnings[0]).toMatch(/2 of 400 rows dropped/);
   });
-  it('drops and counts exact repeats of an earlier row (all columns, labels included), unless asked to keep them', () => {
+  it('drops and counts repeats of an earlier row in every USED column (labels and unused columns not compared), unless asked to keep them', () => {
+    // rule from the project issue: a duplicate is a row whose used columns all equal an earlier row's
     const u = makeTable({
       id: ['a', 'b', 'b', 'c', 'd', 'e'],
       x: new Float64Array([1, 2, 2, 3, 4, 5]),
@@ -51,12 +52,31 @@ describe('fitRelation row policy and options', () => {
     const r = fitRelation(u, { target: 'y', terms: ['x'] });
     expect(r.n).toBe(5);
     expect(r.dropped.duplicates).toBe(1);
+    expect(r.dropped.duplicateRule).toMatch(/every used column \(y, x\)/);
     expect(r.warnings[0]).toMatch(/1 exact repeat of an earlier row/);
     const k = fitRelation(u, { target: 'y', terms: ['x'], keepDuplicates: true });
     expect(k.n).toBe(6);
-    // a row equal in x and y but with another label is not a repeat
-    const v = makeTable({ id: ['a', 'b', 'z'], x: new Float64Array([1, 2, 2]), y: new Float64Array([1, 2, 2]) });
-    expect(fitRelation(v, { target: 'y', terms: ['x'] }).dropped.duplicates).toBe(0);
+    expect(k.dropped.duplicateRule).toBeUndefined();
+    // equal in x and y but with another label: a repeat (the label is not used)
+    const v = makeTable({
+      id: ['a', 'b', 'z', 'c', 'd', 'e'],
+      x: new Float64Array([1, 2, 2, 3, 4, 5]),
+      y: new Float64Array([1, 2, 2, 3.5, 3.9, 5.2]),
+      w: new Float64Array([7, 8, 9, 1, 5, 2]),
+    });
+    expect(fitRelation(v, { target: 'y', terms: ['x'] }).dropped.duplicates).toBe(1);
+    // ... but not when an unused column is brought in by a term: w differs in rows 2 and 3
+    expect(fitRelation(v, { target: 'y', terms: ['x', 'w'] }).dropped.duplicates).toBe(0);
+    // x.re of a complex column compares that part only
+    const c = makeTable({
+      z: { re: new Float64Array([1, 2, 2, 3, 4, 5]), im: new Float64Array([0, 5, 6, 0, 1, 3]) },
+      y: new Float64Array([1, 2, 2, 3.5, 3.9, 5.2]),
+    });
+    expect(fitRelation(c, { target: 'y', terms: ['z.re'] }).dropped.duplicates).toBe(1);
+    expect(fitRelation(c, { target: 'y', terms: ['z.re', 'im(z)'] }).dropped.duplicates).toBe(0);
+    // a derived column stands for its expression's values: d = x + w differs in rows 2 and 3
+    expect(fitRelation(v, { target: 'y', terms: ['d'], derive: [{ name: 'd', expression: 'x + w' }] }).dropped.duplicates).toBe(0);
+    expect(fitRelation(v, { target: 'y', terms: ['d'], derive: [{ name: 'd', expression: '2*x' }] }).dropped.duplicates).toBe(1);
   });
   it('recovers the planted coefficients 1, 2, −1/2 as simplest rationals in the intervals (known answer by construction)', () => {
     const r = fitRelation(t, { target: 'y', terms: ['x', 'z'] });
