@@ -242,7 +242,7 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
     const withFrac = front.some((c) => c.rationalFormula);
     out.push({
       kind: 'table',
-      header: ['complexity', 'held-out RMSE', ...(withSel ? ['selection RMSE'] : []), 'fitted formula', ...(withFrac ? ['with fractions (held-out RMSE)'] : [])],
+      header: ['complexity', 'held-out RMSE', ...(withSel ? ['selection RMSE'] : []), 'fitted formula', ...(withFrac ? ['with fractions'] : [])],
       rows: front.map((c) => [
         String(c.complexity),
         n4(c.heldOutRmse),

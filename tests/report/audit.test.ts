@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { renderReport } from '../../src/report/index.ts';
 import type { ReportInput, ReportRank } from '../../src/report/index.ts';
 import { leadingGroup } from '../../src/report/summary.ts';
-import { wrapSubtitle, baseSpec } from '../../src/report/plots/common.ts';
+import { wrapSubtitle, baseSpec, subtitleChars } from '../../src/report/plots/common.ts';
 import { predictionSpec } from '../../src/report/plots/predictions.ts';
 
 const header = (): ReportInput => ({
@@ -136,6 +136,6 @@ describe('plot subtitles wrap instead of being cut', () => {
     for (const l of lines) expect(l.length).toBeLessThanOrEqual(40);
     const spec = baseSpec('t', [long, 'short'], 420, 300) as unknown as { title: { subtitle: string[]; limit: number } };
     expect(spec.title.subtitle.join(' ')).toBe(`${long} short`);
-    for (const l of spec.title.subtitle) expect(l.length * 6.5).toBeLessThanOrEqual(spec.title.limit);
+    for (const l of spec.title.subtitle) expect(l.length).toBeLessThanOrEqual(subtitleChars(420));
   });
 });
