@@ -20,6 +20,7 @@ import { Rng, deriveSeed } from '../util/rng.ts';
 import {
   DEFAULT_INVARIANTS,
   DIAGRAM_KINDS,
+  exactOut,
   INVARIANT_NAMES,
   parseCode,
   randomBraid,
@@ -111,7 +112,8 @@ function jsonRow(name: string, r: KnotInvariants, inv: readonly InvariantName[])
   const o: Record<string, unknown> = { name };
   for (const k of inv) {
     if (k === 'alexander') {
-      o.alexander = r.alexander?.coefficients ?? null;
+      // exact: numbers up to 2^53 − 1, decimal strings beyond
+      o.alexander = r.alexander ? r.alexander.coefficients.map(exactOut) : null;
       o.alexander_lowest_exponent = r.alexander?.lowestExponent ?? null;
       o.alexander_text = r.alexanderText ?? null;
       o.alexander_sign_fixed = r.alexanderSignFixed ?? null;
@@ -133,6 +135,7 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   if ((o.join === undefined) !== (o.on === undefined)) throw new SurmiseError('knots.option', '--join TABLE and --on KEY go together');
   const path = resolve(io.cwd, file);
   const sources = await readDiagramFile(path, { column: o.column, nameColumn: o.nameColumn, displayName: file });
+  if (sources.length === 0) throw new SurmiseError('knots.empty', `${file} holds no diagrams`);
   const progress = makeProgress(io, 'knots', o.progress !== false && sources.length >= 200);
   const results: KnotInvariants[] = [];
   sources.forEach((s, k) => {
@@ -146,6 +149,8 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   const records = sources.map((s, k) => tableRecord(s.name, results[k]!, inv));
   const kinds: Record<string, 'label' | 'integer' | 'real'> = { name: 'label' };
   for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
+  // a determinant beyond 2^53 − 1 is a decimal string (exact); the column is then text so no digit is rounded
+  if (records.some((r) => typeof r.determinant === 'string')) kinds.determinant = 'label';
   let table: Table;
   let unmatched: { diagrams: string[]; rows: string[] } | undefined;
   if (o.join !== undefined) {

@@ -21,6 +21,15 @@ export interface ReadDiagramsOptions {
   displayName?: string;
 }
 
+/** The reason a file cannot be read, in the table layer's words (`table.unreadable`). */
+function whyUnreadable(e: unknown): string {
+  const code = (e as NodeJS.ErrnoException)?.code;
+  if (code === 'ENOENT') return 'no such file';
+  if (code === 'EACCES' || code === 'EPERM') return 'permission denied';
+  if (code === 'EISDIR') return 'it is a folder, not a file';
+  return (e as Error)?.message ?? String(e);
+}
+
 const TABLE_EXT = new Set(['.csv', '.json', '.jsonl', '.ndjson']);
 
 function cellText(t: Table, col: string, row: number): string | undefined {
@@ -43,7 +52,7 @@ export async function readDiagramFile(path: string, opts: ReadDiagramsOptions = 
     try {
       text = readFileSync(path, 'utf8');
     } catch (e) {
-      throw new SurmiseError('knots.unreadable', `cannot read ${display}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+      throw new SurmiseError('knots.unreadable', `cannot read ${display}: ${whyUnreadable(e)}`);
     }
     return splitDiagramLines(text, display);
   }
@@ -88,7 +97,7 @@ function readJsonDiagrams(path: string, display: string, column: string, nameCol
     data = JSON.parse(readFileSync(path, 'utf8'));
   } catch (e) {
     const err = e as NodeJS.ErrnoException;
-    if (err.code) throw new SurmiseError('knots.unreadable', `cannot read ${display}: ${err.code}`);
+    if (err.code) throw new SurmiseError('knots.unreadable', `cannot read ${display}: ${whyUnreadable(err)}`);
     throw new SurmiseError('knots.parse', `${display}: not valid JSON: ${err.message}`);
   }
   if (!Array.isArray(data)) throw new SurmiseError('knots.parse', `${display}: expected a JSON array of records with a '${column}' field`);
@@ -145,7 +154,8 @@ export function tableRecord(name: string, r: KnotInvariants, inv: readonly Invar
       case 'writhe': rec[k] = r.writhe; break;
       case 'components': rec[k] = r.components; break;
       case 'signature': rec[k] = r.signature ?? null; break;
-      case 'determinant': rec[k] = r.determinant === undefined ? null : typeof r.determinant === 'string' ? Number(r.determinant) : r.determinant; break;
+      // a string beyond 2^53 − 1 stays a decimal string (exact); Number() would round it
+      case 'determinant': rec[k] = r.determinant ?? null; break;
       case 'alexander': rec[k] = r.alexanderText ?? null; break;
       case 'seifert_circles': rec[k] = r.seifertCircles ?? null; break;
       case 'genus_bound': rec[k] = r.genusBound ?? null; break;

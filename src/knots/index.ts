@@ -9,6 +9,8 @@ export {
   interpolateIntegerNodes,
   polyDivExact,
   centre,
+  laurent,
+  exactOut,
   formatLaurent,
   multiplyLaurent,
   valueAtOne,

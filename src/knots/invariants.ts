@@ -25,7 +25,7 @@ import { gordonLitherland } from './goeritz.ts';
 import { alexanderUnitRoots, levineTristram } from './levine.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
 import { pdToBraid } from './vogel.ts';
-import { centre, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
+import { centre, exactOut, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
 
 export const INVARIANT_NAMES = [
   'crossings',
@@ -88,16 +88,15 @@ export function seifertCircles(info: PDInfo, freeLoops = 0): number {
 }
 
 function bigToOut(b: bigint): number | string {
-  const a = b < 0n ? -b : b;
-  return a <= BigInt(Number.MAX_SAFE_INTEGER) ? Number(a) : a.toString();
+  return exactOut(b < 0n ? -b : b);
 }
 
 /** Conway normalisation of an unnormalised Δ for a knot (Δ(1) = 1). */
 function normaliseKnot(p: bigint[]): LaurentPolynomial {
   const c = centre(p);
   const v = valueAtOne(c);
-  if (v === 1) return c;
-  if (v === -1) return centre(p, true);
+  if (v === 1n) return c;
+  if (v === -1n) return centre(p, true);
   throw new Error(`internal: Alexander polynomial of a knot has Δ(1) = ${v}`);
 }
 
@@ -130,7 +129,8 @@ function fixLinkSign(alex: LaurentPolynomial, V: number[][], inertia: { negative
   const [re, im] = valueAtMinusOne(alex);
   const r = (((-m) % 4) + 4) % 4; // (−i)^m = i^(−m)
   const target = r === 0 ? detSign : r === 1 ? detSign : -detSign; // i^r·detSign: real part for r = 0, 2; imaginary for 1, 3
-  const got = r % 2 === 0 ? Math.sign(re) : Math.sign(im);
+  const v = r % 2 === 0 ? re : im;
+  const got = v > 0n ? 1 : v < 0n ? -1 : 0;
   return got === target ? alex : { ...alex, coefficients: alex.coefficients.map((x) => -x) };
 }
 
@@ -167,8 +167,9 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
       res.alexanderText = formatLaurent(alex);
       res.alexanderSignFixed = true;
       if (want.has('determinant')) {
+        // exactly one of re, im is nonzero (or both zero): |Δ(−1)| in BigInt
         const [re, im] = valueAtMinusOne(alex);
-        res.determinant = Math.abs(re) + Math.abs(im);
+        res.determinant = bigToOut(re !== 0n ? re : im);
       }
     }
   } else {
@@ -190,7 +191,7 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
         alex = centre(raw);
         fixed = alex.coefficients.length === 0;
         const top = alex.coefficients[alex.coefficients.length - 1];
-        if (top !== undefined && top < 0) alex = { ...alex, coefficients: alex.coefficients.map((x) => -x) };
+        if (top !== undefined && top < 0n) alex = { ...alex, coefficients: alex.coefficients.map((x) => -x) };
       }
       res.alexander = alex;
       res.alexanderText = formatLaurent(alex);

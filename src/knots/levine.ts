@@ -160,7 +160,7 @@ export function polynomialRoots(coeffs: readonly number[]): Array<[number, numbe
  * (a repeated root appears repeatedly). The jumps at 1 − x mirror them.
  */
 export function alexanderUnitRoots(p: LaurentPolynomial): number[] {
-  const c = p.coefficients;
+  const c = p.coefficients.map(Number); // the roots are floating-point approximations anyway
   if (c.length <= 1) return [];
   const xs: number[] = [];
   for (const [re, im] of polynomialRoots(c)) {

@@ -169,7 +169,7 @@ export function splitDiagramLines(text: string, file: string): DiagramSource[] {
   lines.forEach((raw, i) => {
     const line = raw.trimEnd();
     if (line.trim() === '' || line.trimStart().startsWith('#')) return;
-    const tab = line.indexOf('\t');
+    const tab = raw.indexOf('\t'); // in the untrimmed line: `name<TAB>` with nothing after is a name without code
     let name: string;
     let code: string;
     let column: number;
@@ -179,6 +179,7 @@ export function splitDiagramLines(text: string, file: string): DiagramSource[] {
       column = tab + 2;
       if (out.length === 0 && name.toLowerCase() === 'name' && code.trim().toLowerCase() === 'code') return;
       if (name === '') throw new SurmiseError('knots.parse', `${file}:${i + 1}:1: empty name before the tab`);
+      if (code.trim() === '') throw new SurmiseError('knots.parse', `${file}:${i + 1}: ${name}: no code after the name`);
     } else {
       name = `row${i + 1}`;
       code = line;

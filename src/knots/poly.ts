@@ -6,13 +6,23 @@
 import { bareissDet } from './exact.ts';
 
 /**
- * A Laurent polynomial with integer coefficients, lowest power first. Exponents are
+ * A Laurent polynomial with integer coefficients (exact, BigInt), lowest power first. Exponents are
  * `lowestExponent + k`; `lowestExponent` is a multiple of 1/2 (half-integer powers occur for
  * links with an even number of components).
  */
 export interface LaurentPolynomial {
   lowestExponent: number;
-  coefficients: number[];
+  coefficients: bigint[];
+}
+
+/** A Laurent polynomial from plain integer coefficients (lowest power first). */
+export function laurent(lowestExponent: number, coefficients: readonly (number | bigint)[]): LaurentPolynomial {
+  return { lowestExponent, coefficients: coefficients.map((x) => BigInt(x)) };
+}
+
+/** An exact integer for JSON and tables: a number when |x| ≤ 2^53 − 1, else its decimal string. */
+export function exactOut(x: bigint): number | string {
+  return x <= BigInt(Number.MAX_SAFE_INTEGER) && x >= -BigInt(Number.MAX_SAFE_INTEGER) ? Number(x) : x.toString();
 }
 
 /** Strip zero coefficients at both ends of an ordinary polynomial (t^0 first); returns [shift, coeffs]. */
@@ -113,12 +123,7 @@ export function centre(p: readonly bigint[], negate = false): LaurentPolynomial 
   const span = coeffs.length - 1;
   return {
     lowestExponent: -span / 2,
-    coefficients: coeffs.map((x) => {
-      const v = negate ? -x : x;
-      if (v > BigInt(Number.MAX_SAFE_INTEGER) || v < -BigInt(Number.MAX_SAFE_INTEGER))
-        throw new Error('Alexander coefficient beyond 2^53; not representable exactly');
-      return Number(v);
-    }),
+    coefficients: negate ? coeffs.map((x) => -x) : coeffs.slice(),
   };
 }
 
@@ -130,17 +135,17 @@ export function isSymmetric(p: LaurentPolynomial): boolean {
 }
 
 /** Value at t = 1 (exact). */
-export function valueAtOne(p: LaurentPolynomial): number {
-  return p.coefficients.reduce((s, x) => s + x, 0);
+export function valueAtOne(p: LaurentPolynomial): bigint {
+  return p.coefficients.reduce((s, x) => s + x, 0n);
 }
 
 /**
  * Value at t = −1, taking t^(1/2) = i for half-integer exponents: returned as [re, im] with
  * exactly one part nonzero (or both zero).
  */
-export function valueAtMinusOne(p: LaurentPolynomial): [number, number] {
-  let re = 0;
-  let im = 0;
+export function valueAtMinusOne(p: LaurentPolynomial): [bigint, bigint] {
+  let re = 0n;
+  let im = 0n;
   p.coefficients.forEach((c, k) => {
     const e2 = Math.round(2 * (p.lowestExponent + k)); // i^(e2)
     const r = ((e2 % 4) + 4) % 4;
@@ -152,11 +157,11 @@ export function valueAtMinusOne(p: LaurentPolynomial): [number, number] {
   return [re, im];
 }
 
-/** Product of two Laurent polynomials (exact for safe integers). */
+/** Product of two Laurent polynomials (exact). */
 export function multiplyLaurent(a: LaurentPolynomial, b: LaurentPolynomial): LaurentPolynomial {
   if (a.coefficients.length === 0 || b.coefficients.length === 0) return { lowestExponent: 0, coefficients: [] };
-  const c = new Array<number>(a.coefficients.length + b.coefficients.length - 1).fill(0);
-  a.coefficients.forEach((x, i) => b.coefficients.forEach((y, j) => (c[i + j] += x * y)));
+  const c = new Array<bigint>(a.coefficients.length + b.coefficients.length - 1).fill(0n);
+  a.coefficients.forEach((x, i) => b.coefficients.forEach((y, j) => (c[i + j]! += x * y)));
   return { lowestExponent: a.lowestExponent + b.lowestExponent, coefficients: c };
 }
 
@@ -174,17 +179,17 @@ export function formatLaurent(p: LaurentPolynomial, variable = 't'): string {
   const parts: string[] = [];
   for (let k = p.coefficients.length - 1; k >= 0; k--) {
     const c = p.coefficients[k]!;
-    if (c === 0) continue;
+    if (c === 0n) continue;
     const e = p.lowestExponent + k;
-    const abs = Math.abs(c);
+    const abs = c < 0n ? -c : c;
     let term: string;
-    if (e === 0) term = String(abs);
+    if (e === 0) term = abs.toString();
     else {
       const mono = e === 1 ? variable : `${variable}${expText(e)}`;
-      term = abs === 1 ? mono : `${abs}${mono}`;
+      term = abs === 1n ? mono : `${abs}${mono}`;
     }
-    if (parts.length === 0) parts.push(c < 0 ? `-${term}` : term);
-    else parts.push(c < 0 ? `- ${term}` : `+ ${term}`);
+    if (parts.length === 0) parts.push(c < 0n ? `-${term}` : term);
+    else parts.push(c < 0n ? `- ${term}` : `+ ${term}`);
   }
   return parts.length === 0 ? '0' : parts.join(' ');
 }

@@ -95,6 +95,43 @@ describe('surmise knots', () => {
     expect(amb.err).toContain("did you mean 'braid'");
   });
 
+  it('determinants past 2^53 are exact in CSV and --json: closure of (σ1σ2⁻¹)^40 has det L_80 − 2 (from memory)', async () => {
+    writeFileSync(join(dir, 'big.txt'), `fig8\t${Array(2).fill('1 -2').join(' ')}\nb40\t${Array(40).fill('1 -2').join(' ')}\nb41\t${Array(41).fill('1 -2').join(' ')}\n`);
+    const r = await run(['knots', 'big.txt', '--invariants', 'determinant']);
+    expect(r.code).toBe(0);
+    // L_80 = 52361396397820127, L_82 = 137083915467899403 (Lucas numbers, from memory)
+    expect(r.out.trim().split('\n')).toEqual(['name,determinant', 'fig8,5', 'b40,52361396397820125', 'b41,137083915467899401']);
+    const j = await run(['knots', 'big.txt', '--invariants', 'determinant,alexander', '--json']);
+    expect(j.code).toBe(0);
+    const o = JSON.parse(j.out);
+    expect(o.rows[0].determinant).toBe(5); // small values stay numbers
+    expect(o.rows[1].determinant).toBe('52361396397820125');
+    // Alexander coefficients of b41 pass 2^53: exact decimal strings there, numbers elsewhere; Δ(1) = 1 (knot)
+    const coeffs = o.rows[2].alexander as (number | string)[];
+    expect(coeffs.some((x) => typeof x === 'string')).toBe(true);
+    expect(coeffs.every((x) => typeof x === 'string' ? !Number.isSafeInteger(Number(x)) : Number.isSafeInteger(x))).toBe(true);
+    expect(coeffs.reduce((s: bigint, x) => s + BigInt(x), 0n)).toBe(1n);
+    expect(j.err).toBe('');
+  });
+
+  it('an empty diagram file is refused as such; a name without a code and a missing file are named plainly', async () => {
+    writeFileSync(join(dir, 'empty.txt'), '');
+    writeFileSync(join(dir, 'header.txt'), 'name\tcode\n');
+    writeFileSync(join(dir, 'comment.txt'), '# nothing yet\n');
+    for (const f of ['empty.txt', 'header.txt', 'comment.txt']) {
+      const r = await run(['knots', f]);
+      expect(r.code, f).toBe(2);
+      expect(r.err.trim(), f).toBe(`surmise: ${f} holds no diagrams [knots.empty]`);
+    }
+    writeFileSync(join(dir, 'nocode.txt'), 'a\t\n');
+    const n = await run(['knots', 'nocode.txt']);
+    expect(n.code).toBe(2);
+    expect(n.err.trim()).toBe('surmise: nocode.txt:1: a: no code after the name [knots.parse]');
+    const m = await run(['knots', 'nonexist.txt']);
+    expect(m.code).toBe(2);
+    expect(m.err.trim()).toBe('surmise: cannot read nonexist.txt: no such file [knots.unreadable]');
+  });
+
   it('help states the sign convention', async () => {
     const r = await run(['knots', '--help']);
     expect(r.out).toContain('right-handed trefoil (braid "1 1 1") has signature -2');

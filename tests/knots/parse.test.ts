@@ -58,6 +58,9 @@ describe('reading codes', () => {
     const s = splitDiagramLines('name\tcode\n# c\n\na\t1 1 1\n1 -2 1 -2\n', 'f.txt');
     expect(s.map((x) => [x.name, x.code, x.line, x.column])).toEqual([['a', '1 1 1', 4, 3], ['row5', '1 -2 1 -2', 5, 1]]);
     expect(codeOf(() => splitDiagramLines('a\t1\na\t1 1\n', 'f.txt'))).toBe('knots.duplicateName');
+    // `name<TAB>` with nothing after it is a name without a code, not the code 'name'
+    expect(() => splitDiagramLines('ok\t1 1 1\nb\t  \n', 'f.txt')).toThrow('f.txt:2: b: no code after the name');
+    expect(codeOf(() => splitDiagramLines('a\t\n', 'f.txt'))).toBe('knots.parse');
   });
 });
 
