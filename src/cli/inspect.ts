@@ -10,6 +10,7 @@ import type { CliIO } from './io.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
 import { COLUMN_KINDS } from '../table/columns.ts';
+import { parseComplexPairsOption } from '../table/complex-pairs.ts';
 import { profileTable, type ColumnProfile, type TableProfile } from '../table/profile.ts';
 import type { ColumnKind, Table } from '../table/types.ts';
 import { deriveColumn, parseDerive } from '../table/expr/index.ts';
@@ -17,6 +18,7 @@ import { deriveColumn, parseDerive } from '../table/expr/index.ts';
 interface InspectOptions {
   derive: string[];
   kind: string[];
+  complexPairs: string[];
   format?: string;
   json?: boolean;
   progress: boolean;
@@ -124,11 +126,18 @@ export function registerInspect(program: Command, io: CliIO): void {
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
     .option('--derive <name=expr>', 'add a computed column before profiling (repeatable), e.g. slope=re(lon/mer)', collect, [])
     .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [])
+    .option(
+      '--complex-pairs <rule>',
+      'join real/imaginary column pairs: auto (X_re/X_im and X.re/X.im, unless a kind is declared for a part or, other than complex, for X), none, or NAME=RE,IM (repeatable)',
+      collect,
+      [],
+    )
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text view')
     .option('--no-progress', 'do not report reading progress on stderr')
     .action(async (file: string, opts: InspectOptions) => {
       const kinds = parseKindOptions(opts.kind);
+      const complexPairs = parseComplexPairsOption(opts.complexPairs);
       if (opts.format !== undefined && !TABLE_FORMATS.includes(opts.format as TableFormat))
         throw new SurmiseError(
           'cli.badFormat',
@@ -141,6 +150,7 @@ export function registerInspect(program: Command, io: CliIO): void {
         table = await readTable(path, {
           displayName: file,
           kinds: Object.keys(kinds).length ? kinds : undefined,
+          complexPairs,
           format: opts.format as TableFormat | undefined,
           onProgress: reading.onProgress,
         });

@@ -56,16 +56,76 @@ export function tableFromColumns(columns: Column[], source = '(in memory)', line
   return { source, nRows: n, columns, ...(lines ? { lines } : {}) };
 }
 
-/** Check a `kinds` option against the column names (after pair joining). */
-export function checkKinds(kinds: Record<string, ColumnKind> | undefined, names: readonly string[], source: string): void {
+/** The two spellings of the parts of a complex pair called `name`: `name_re`/`name_im`, `name.re`/`name.im`. */
+function pairPartNames(name: string): Array<[string, string]> {
+  return [
+    [`${name}_re`, `${name}_im`],
+    [`${name}.re`, `${name}.im`],
+  ];
+}
+
+/**
+ * The kind declared for the file column `name`: its own, or else, for a part `X_re`/`X_im`
+ * (`X.re`/`X.im`), the kind declared for `X` when that is not 'complex' and no column `X` exists
+ * (`hasColumn`). A kind other than complex declared for a pair's name keeps its parts apart and
+ * applies to each of them (see `joinComplexPairs`).
+ */
+export function declaredKind(
+  kinds: Record<string, ColumnKind> | undefined,
+  name: string,
+  hasColumn: (name: string) => boolean = () => false,
+): ColumnKind | undefined {
+  if (!kinds) return undefined;
+  const own = kinds[name];
+  if (own !== undefined) return own;
+  const m = /^(.+)[_.](?:re|im)$/.exec(name);
+  if (!m) return undefined;
+  const k = kinds[m[1]!];
+  return k === undefined || k === 'complex' || hasColumn(m[1]!) ? undefined : k;
+}
+
+/** `table.kindConflict` when an explicit pair's name has a declared kind other than complex. */
+function checkPairKind(kinds: Record<string, ColumnKind> | undefined, p: { name: string; re: string; im: string }): void {
+  const k = kinds?.[p.name];
+  if (k !== undefined && k !== 'complex' && p.name !== p.re && p.name !== p.im)
+    throw new SurmiseError(
+      'table.kindConflict',
+      `complex pair ${p.name}=${p.re},${p.im} makes '${p.name}' complex, but its kind is declared '${k}' (--kind ${p.name}=${k}); drop one of the two`,
+    );
+}
+
+/**
+ * Check a `kinds` option against the file's column names, under the complex-pair rule: a name
+ * that is not a column must be a pair's name, either joined (kind 'complex', by 'auto' or an
+ * explicit pair) or kept apart (another kind, which then applies to both parts).
+ */
+export function checkKinds(
+  kinds: Record<string, ColumnKind> | undefined,
+  names: readonly string[],
+  source: string,
+  rule: ComplexPairs = 'auto',
+): void {
   if (!kinds) return;
   for (const [name, kind] of Object.entries(kinds)) {
     if (!COLUMN_KINDS.includes(kind))
       throw new SurmiseError('table.badKind', `kind '${kind}' for column '${name}' is not one of ${COLUMN_KINDS.join(', ')}`);
-    if (!names.includes(name) && !names.includes(`${name}_re`) && !names.includes(`${name}.re`))
+    if (names.includes(name)) continue;
+    const explicit = Array.isArray(rule) ? rule.find((p) => p.name === name) : undefined;
+    if (explicit) {
+      checkPairKind(kinds, explicit);
+      continue;
+    }
+    const parts = pairPartNames(name).find(([re, im]) => names.includes(re) && names.includes(im));
+    if (!parts)
       throw new SurmiseError(
         'table.unknownColumn',
         `--kind ${name}=${kind}: no column '${name}' in ${source}${didYouMean(name, names)}`,
+      );
+    if (kind === 'complex' && rule !== 'auto')
+      throw new SurmiseError(
+        'table.unknownColumn',
+        `--kind ${name}=complex: no column '${name}' in ${source}: the complex-pair rule (${rule === 'none' ? 'none' : 'explicit pairs'}) does not join '${parts[0]}' and '${parts[1]}'; ` +
+          `give --complex-pairs ${name}=${parts[0]},${parts[1]} to join them`,
       );
   }
 }
@@ -76,10 +136,13 @@ function isNumeric(c: Column): c is Extract<Column, { kind: 'real' | 'integer' }
 
 /**
  * Join real/imaginary pairs into complex columns. 'auto' joins `X_re`/`X_im` and `X.re`/`X.im`
- * when both are numeric and no column `X` exists; an explicit list must name existing numeric
- * columns. The complex column takes the place of its real part.
+ * when both are numeric and no column `X` exists, unless `kinds` declares a kind for either part
+ * or a kind other than complex for `X` (declared kinds win: the parts are kept apart, noted);
+ * `kinds` declaring `X` complex joins them whatever the parts' kinds. An explicit list must name
+ * existing numeric columns; a kind other than complex declared for its name is
+ * `table.kindConflict`. The complex column takes the place of its real part.
  */
-export function joinComplexPairs(table: Table, rule: ComplexPairs = 'auto'): Table {
+export function joinComplexPairs(table: Table, rule: ComplexPairs = 'auto', kinds?: Record<string, ColumnKind>): Table {
   if (rule === 'none') return table;
   const byName = new Map(table.columns.map((c) => [c.name, c] as const));
   const pairs: Array<{ name: string; re: string; im: string }> = [];
@@ -94,6 +157,16 @@ export function joinComplexPairs(table: Table, rule: ComplexPairs = 'auto'): Tab
       if (byName.has(m[1]!)) {
         notes.push(`columns '${c.name}' and '${imName}' were not joined: a column '${m[1]}' already exists`);
         continue;
+      }
+      if (kinds?.[m[1]!] !== 'complex') {
+        const who = [m[1]!, c.name, imName].filter((n) => kinds?.[n] !== undefined);
+        if (who.length > 0) {
+          notes.push(
+            `columns '${c.name}' and '${imName}' were kept apart: a kind is declared for ${who.map((n) => `'${n}' (${kinds![n]})`).join(' and ')} ` +
+              `(--kind ${m[1]}=complex or --complex-pairs ${m[1]}=${c.name},${imName} joins them)`,
+          );
+          continue;
+        }
       }
       pairs.push({ name: m[1]!, re: c.name, im: imName });
     }
@@ -112,6 +185,7 @@ export function joinComplexPairs(table: Table, rule: ComplexPairs = 'auto'): Tab
       }
       if (byName.has(p.name) && p.name !== p.re && p.name !== p.im)
         throw new SurmiseError('table.duplicateColumn', `complex pair '${p.name}': a column '${p.name}' already exists in ${table.source}`);
+      checkPairKind(kinds, p);
       pairs.push(p);
     }
   }
@@ -202,7 +276,7 @@ export class RecordCollector {
     for (const [key, v] of Object.entries(rec as Record<string, unknown>)) {
       let b = this.builders.get(key);
       if (!b) {
-        b = new ColumnBuilder(key, this.order.length, this.kinds?.[key], this.capacity);
+        b = new ColumnBuilder(key, this.order.length, declaredKind(this.kinds, key, (x) => this.builders.has(x)), this.capacity);
         for (let r = 0; r < row; r++) b.addMissing();
         this.builders.set(key, b);
         this.order.push(b);
@@ -291,12 +365,13 @@ export function tableFromRecords(
         if (v !== null && v !== undefined) b.recoverText(r, jsonCellText(v));
       }
   });
-  const joined = joinComplexPairs(t, opts.complexPairs ?? 'auto');
   checkKinds(
     opts.kinds,
     col.order.map((b) => b.name),
     source,
+    opts.complexPairs ?? 'auto',
   );
+  const joined = joinComplexPairs(t, opts.complexPairs ?? 'auto', opts.kinds);
   return joined;
 }
 

@@ -7,9 +7,11 @@ export {
   tableFromColumns,
   tableFromRecords,
   joinComplexPairs,
+  declaredKind,
   COLUMN_KINDS,
   type ComplexPairs,
 } from './columns.ts';
+export { parseComplexPairsOption } from './complex-pairs.ts';
 export { parseNumberText, parseComplexText, isMissingText, formatNumber, formatComplex } from './cell.ts';
 export { NUMERIC_SHARE_FOR_ERROR } from './builder.ts';
 export {

@@ -11,6 +11,7 @@ import {
   COLUMN_KINDS,
   RecordCollector,
   checkKinds,
+  declaredKind,
   checkUniqueNames,
   finishBuilders,
   joinComplexPairs,
@@ -73,7 +74,7 @@ export async function readTable(path: string, opts: ReadOptions = {}): Promise<T
   if (format === 'csv' || format === 'tsv') t = readDelimited(path, display, format === 'csv' ? ',' : '\t', opts);
   else if (format === 'jsonl') t = readJsonLines(path, display, opts);
   else t = readJsonArray(path, display, opts);
-  return joinComplexPairs(t, opts.complexPairs ?? 'auto');
+  return joinComplexPairs(t, opts.complexPairs ?? 'auto', opts.kinds);
 }
 
 class GrowInt32 {
@@ -114,9 +115,10 @@ function readDelimited(path: string, display: string, sep: string, opts: ReadOpt
         header = head.map((n, j) => (n.trim() === '' && !headQuoted[j] ? `column_${j + 1}` : n));
         headerLine = line;
         checkUniqueNames(header, display, `line ${line}`);
-        checkKinds(opts.kinds, header, display);
+        checkKinds(opts.kinds, header, display, opts.complexPairs ?? 'auto');
         nCols = header.length;
-        builders = header.map((n, j) => new ColumnBuilder(n, j, opts.kinds?.[n], estimate));
+        const names = header;
+        builders = header.map((n, j) => new ColumnBuilder(n, j, declaredKind(opts.kinds, n, (x) => names.includes(x)), estimate));
         lines.a = new Int32Array(estimate);
         return;
       }
@@ -222,6 +224,7 @@ function readJsonLines(path: string, display: string, opts: ReadOptions): Table 
     opts.kinds,
     col.order.map((b) => b.name),
     display,
+    opts.complexPairs ?? 'auto',
   );
   if (col.order.length === 0) throw new SurmiseError('table.noRows', `${display}: the records have no fields`);
   return finishBuilders(col.order, col.place(), col.rows, col.lines(), (needs) => {
@@ -285,6 +288,7 @@ function readJsonArray(path: string, display: string, opts: ReadOptions): Table 
     opts.kinds,
     col.order.map((b) => b.name),
     display,
+    opts.complexPairs ?? 'auto',
   );
   return finishBuilders(col.order, col.place(), col.rows, undefined, (needs) => {
     for (const b of needs)
