@@ -22,7 +22,7 @@ export interface ColumnProfile {
   name: string;
   kind: ColumnKind;
   missing: number;
-  /** nan / inf / -inf cells (complex: either part) */
+  /** nan / inf / -inf cells (complex: a cell with either part non-finite, counted once) */
   nonFinite: number;
   min: number | { re: number | null; im: number | null } | null;
   max: number | { re: number | null; im: number | null } | null;
@@ -136,13 +136,29 @@ interface Series {
   missing: Uint8Array;
 }
 
+/**
+ * A complex cell is one value: finite only when both parts are. The mask of cells to leave out of
+ * a complex column's statistics and correlations: missing, or a non-finite part (either).
+ */
+export function complexSkipMask(c: Extract<Column, { kind: 'complex' }>): Uint8Array {
+  const n = c.re.length;
+  const skip = new Uint8Array(n);
+  for (let i = 0; i < n; i++) {
+    const a = c.re[i]!;
+    const b = c.im[i]!;
+    skip[i] = c.missing[i] || a - a !== 0 || b - b !== 0 ? 1 : 0;
+  }
+  return skip;
+}
+
 function numericSeries(columns: Column[]): Series[] {
   const out: Series[] = [];
   for (const c of columns) {
     if (c.kind === 'real' || c.kind === 'integer') out.push({ name: c.name, values: c.values, missing: c.missing });
     else if (c.kind === 'complex') {
-      out.push({ name: `${c.name}.re`, values: c.re, missing: c.missing });
-      out.push({ name: `${c.name}.im`, values: c.im, missing: c.missing });
+      const skip = complexSkipMask(c);
+      out.push({ name: `${c.name}.re`, values: c.re, missing: skip });
+      out.push({ name: `${c.name}.im`, values: c.im, missing: skip });
     }
   }
   return out;
@@ -150,7 +166,8 @@ function numericSeries(columns: Column[]): Series[] {
 
 /**
  * Spearman rank correlations between all pairs of numeric series (complex parts separately) on
- * `rows`, pairwise-complete (rows where both values are finite), strongest first.
+ * `rows`, pairwise-complete (rows where both values are finite; a complex cell counts as finite
+ * only when both its parts are), strongest first.
  */
 export function spearmanPairs(columns: Column[], rows: Int32Array, top = TOP_CORRELATIONS): Correlation[] {
   const series = numericSeries(columns);
@@ -281,11 +298,11 @@ export function profileTable(table: Table, opts: { sampleRows?: number; seed?: n
     if (c.kind === 'label')
       return { name: c.name, kind: c.kind, missing, nonFinite: 0, min: null, max: null, mean: null, std: null, distinct: distinctCount(c) };
     if (c.kind === 'complex') {
-      const r = numericStats(c.re, c.missing);
-      const m = numericStats(c.im, c.missing);
-      let nonFinite = 0;
-      for (let i = 0; i < c.re.length; i++)
-        if (!c.missing[i] && (c.re[i]! - c.re[i]! !== 0 || c.im[i]! - c.im[i]! !== 0)) nonFinite++;
+      // one value per cell: a cell with a non-finite part is left out of both parts' statistics
+      const skip = complexSkipMask(c);
+      const r = numericStats(c.re, skip);
+      const m = numericStats(c.im, skip);
+      const nonFinite = c.re.length - missing - r.n;
       return {
         name: c.name,
         kind: c.kind,

@@ -117,6 +117,33 @@ describe('profile details', () => {
     expect(z.mean).toEqual({ re: 2, im: 0 });
   });
 
+  it('a complex cell with a non-finite part is one non-finite value, left out of both parts and of the correlations', async () => {
+    // 8 rows; rows 3 (inf+1j) and 6 (2+nanj) have one non-finite part each
+    const re = [1, 2, Infinity, 4, 5, 2, 7, 8];
+    const im = [0.5, -1, 1, 3, 2, NaN, 6, 5];
+    const y = [2, 1, 9, 4, 3, 0, 8, 7];
+    const text = ['z,y', ...re.map((r, i) => `${r === Infinity ? 'inf' : r}${Number.isNaN(im[i]!) ? '+nan' : im[i]! < 0 ? im[i] : `+${im[i]}`}j,${y[i]}`)].join('\n') + '\n';
+    const p = profileTable(await readTable(put(dir, 'cnf.csv', text)));
+    const z = p.columns[0]!;
+    expect([z.kind, z.missing, z.nonFinite]).toEqual(['complex', 0, 2]);
+    // the same six rows for both parts (simple-statistics on the finite cells)
+    const keep = [0, 1, 3, 4, 6, 7];
+    const zr = keep.map((i) => re[i]!);
+    const zi = keep.map((i) => im[i]!);
+    const ys = keep.map((i) => y[i]!);
+    expect((z.mean as { re: number }).re).toBeCloseTo(mean(zr), 12);
+    expect((z.mean as { im: number }).im).toBeCloseTo(mean(zi), 12);
+    expect((z.std as { re: number }).re).toBeCloseTo(sampleStandardDeviation(zr), 12);
+    expect((z.std as { im: number }).im).toBeCloseTo(sampleStandardDeviation(zi), 12);
+    expect(z.min).toEqual({ re: Math.min(...zr), im: Math.min(...zi) });
+    // correlations of each part with y over those six rows (simple-statistics sampleRankCorrelation)
+    const c = (a: string) => p.correlations.find((q) => q.a === a && q.b === 'y')!;
+    expect(c('z.re').n).toBe(6);
+    expect(c('z.im').n).toBe(6);
+    expect(c('z.re').rho).toBeCloseTo(sampleRankCorrelation(zr, ys), 12);
+    expect(c('z.im').rho).toBeCloseTo(sampleRankCorrelation(zi, ys), 12);
+  });
+
   it('duplicate rows: hash collisions are checked exactly; NaN equals NaN, -0 equals 0', () => {
     const t = tableFromColumns([
       { name: 'a', kind: 'real', values: new Float64Array([1, 1, NaN, NaN, 0, -0, 2]), missing: new Uint8Array(7) },
