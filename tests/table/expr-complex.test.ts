@@ -1,76 +1,91 @@
 import { describe, it, expect } from 'vitest';
-import { Rng } from '../../src/util/rng.ts';
+import fc from 'fast-check';
 import type { Table } from '../../src/table/types.ts';
 import { evaluateExpression } from '../../src/table/expr/index.ts';
 
-// Identities of complex arithmetic (from memory; standard facts of complex analysis), checked on
-// random complex values to ~1e-12 relative error.
-const n = 2000;
-const rng = new Rng(7);
-const draw = (): Float64Array => Float64Array.from({ length: n }, () => rng.uniform(-50, 50) * Math.pow(10, rng.uniform(-3, 1)));
-const cols = { ar: draw(), ai: draw(), br: draw(), bi: draw() };
-const t: Table = {
-  source: 'random',
-  nRows: n,
-  columns: [
-    { name: 'z', kind: 'complex', re: cols.ar, im: cols.ai, missing: new Uint8Array(n) },
-    { name: 'w', kind: 'complex', re: cols.br, im: cols.bi, missing: new Uint8Array(n) },
-  ],
-};
+// Identities of complex arithmetic (from memory; standard facts of complex analysis), checked as
+// fast-check properties to ~1e-12 relative error. Magnitudes are bounded so the identities stay
+// meaningful in double precision: each part is m·10^e with m in [−50, 50] and e in [−3, 1] (so
+// |part| ≤ 500), and |z| ≥ 1e-3 where an identity needs z ≠ 0 (log, division, powers).
+const RUNS = 400;
+const part = fc
+  .tuple(fc.double({ min: -50, max: 50, noNaN: true }), fc.double({ min: -3, max: 1, noNaN: true }))
+  .map(([m, e]) => m * Math.pow(10, e));
+const complexArb = fc.record({ re: part, im: part });
+const nonZero = complexArb.filter((z) => Math.hypot(z.re, z.im) >= 1e-3);
+type C = { re: number; im: number };
 const TOL = 1e-12;
 
-function expectClose(src: string, ref: string, scaleBy = 'abs(z)'): void {
-  const a = evaluateExpression(t, src);
-  const b = evaluateExpression(t, ref);
-  const s = evaluateExpression(t, scaleBy).re;
-  for (let i = 0; i < n; i++) {
-    const scale = Math.max(1, s[i]!);
-    const dre = Math.abs(a.re[i]! - b.re[i]!) / scale;
-    const dim = Math.abs((a.im ? a.im[i]! : 0) - (b.im ? b.im[i]! : 0)) / scale;
-    if (!(dre <= TOL && dim <= TOL)) {
-      throw new Error(`${src} vs ${ref} at row ${i}: ${a.re[i]}+${a.im?.[i]}i vs ${b.re[i]}+${b.im?.[i]}i`);
-    }
-  }
+/** One-row table with complex columns z and w. */
+function table(z: C, w: C = { re: 1, im: 0 }): Table {
+  const col = (name: string, c: C) => ({ name, kind: 'complex' as const, re: Float64Array.of(c.re), im: Float64Array.of(c.im), missing: new Uint8Array(1) });
+  return { source: 'property', nRows: 1, columns: [col('z', z), col('w', w)] };
 }
 
-describe('complex identities on random values', () => {
+/** src and ref agree to TOL relative to max(1, scaleBy), in both parts. */
+function close(t: Table, src: string, ref: string, scaleBy = 'abs(z)'): boolean {
+  const a = evaluateExpression(t, src);
+  const b = evaluateExpression(t, ref);
+  const scale = Math.max(1, evaluateExpression(t, scaleBy).re[0]!);
+  const dre = Math.abs(a.re[0]! - b.re[0]!) / scale;
+  const dim = Math.abs((a.im ? a.im[0]! : 0) - (b.im ? b.im[0]! : 0)) / scale;
+  return dre <= TOL && dim <= TOL;
+}
+
+const holds = (arb: fc.Arbitrary<C>, src: string, ref: string, scaleBy?: string, seed = 7) =>
+  fc.assert(
+    fc.property(arb, (z) => close(table(z), src, ref, scaleBy)),
+    { numRuns: RUNS, seed },
+  );
+
+describe('complex identities (fast-check properties)', () => {
   it('z·conj(z) = |z|² and is real', () => {
-    expectClose('z * conj(z)', 'abs(z)^2', 'abs(z)^2');
-    const r = evaluateExpression(t, 'z * conj(z)');
-    expect(r.im).toBeNull();
+    holds(complexArb, 'z * conj(z)', 'abs(z)^2', 'abs(z)^2', 1);
+    fc.assert(
+      fc.property(complexArb, (z) => evaluateExpression(table(z), 'z * conj(z)').im === null),
+      { numRuns: RUNS, seed: 2 },
+    );
   });
-  it('|z|² = re(z)² + im(z)²', () => expectClose('abs(z)^2', 're(z)^2 + im(z)^2', 'abs(z)^2'));
-  it('exp(log z) = z', () => expectClose('exp(log(z))', 'z'));
-  it('(z/w)·w = z', () => expectClose('(z / w) * w', 'z'));
+  it('|z|² = re(z)² + im(z)²', () => holds(complexArb, 'abs(z)^2', 're(z)^2 + im(z)^2', 'abs(z)^2', 3));
+  it('exp(log z) = z', () => holds(nonZero, 'exp(log(z))', 'z', undefined, 4));
+  it('(z/w)·w = z', () =>
+    fc.assert(
+      fc.property(complexArb, nonZero, (z, w) => close(table(z, w), '(z / w) * w', 'z')),
+      { numRuns: RUNS, seed: 5 },
+    ));
   it('sqrt(z)² = z and re(sqrt(z)) >= 0 (principal branch)', () => {
-    expectClose('sqrt(z)^2', 'z');
-    const r = evaluateExpression(t, 're(sqrt(z))').re;
-    expect(r.every((x) => x >= 0)).toBe(true);
+    holds(complexArb, 'sqrt(z)^2', 'z', undefined, 6);
+    fc.assert(
+      fc.property(complexArb, (z) => evaluateExpression(table(z), 're(sqrt(z))').re[0]! >= 0),
+      { numRuns: RUNS, seed: 7 },
+    );
   });
-  it('sin² + cos² = 1 on |im z| <= 5', () => {
-    const u: Table = {
-      source: 'random',
-      nRows: n,
-      columns: [{ name: 'z', kind: 'complex', re: cols.ar, im: cols.ai.map((x) => x / 20), missing: new Uint8Array(n) }],
-    };
-    const r = evaluateExpression(u, 'sin(z)^2 + cos(z)^2');
-    const cs = evaluateExpression(u, 'abs(cos(z))^2 + abs(sin(z))^2').re;
-    for (let i = 0; i < n; i++) {
-      expect(Math.abs(r.re[i]! - 1) / cs[i]!).toBeLessThan(1e-13);
-      expect(Math.abs(r.im ? r.im[i]! : 0) / cs[i]!).toBeLessThan(1e-13);
-    }
-  });
+  it('sin² + cos² = 1 on |im z| <= 5', () =>
+    fc.assert(
+      fc.property(part, fc.double({ min: -5, max: 5, noNaN: true }), (re, im) => {
+        const u = table({ re, im });
+        const r = evaluateExpression(u, 'sin(z)^2 + cos(z)^2');
+        const cs = evaluateExpression(u, 'abs(cos(z))^2 + abs(sin(z))^2').re[0]!;
+        return Math.abs(r.re[0]! - 1) / cs < 1e-13 && Math.abs(r.im ? r.im[0]! : 0) / cs < 1e-13;
+      }),
+      { numRuns: RUNS, seed: 8 },
+    ));
   it('tan z = sin z / cos z', () =>
     // tan is ill-conditioned near its poles: scale by the condition |z|·|sec² z| = |z|·|1 + tan² z|
-    expectClose('tan(z / 10)', 'sin(z / 10) / cos(z / 10)', 'abs(1 + tan(z / 10)^2) * (1 + abs(z / 10))'));
+    holds(complexArb, 'tan(z / 10)', 'sin(z / 10) / cos(z / 10)', 'abs(1 + tan(z / 10)^2) * (1 + abs(z / 10))', 9));
   it('z^w = exp(w log z) and z^3 = z·z·z', () => {
-    expectClose('z^(w/50)', 'exp(w/50 * log(z))', 'abs(z^(w/50))');
-    expectClose('z^3', 'z * z * z', 'abs(z)^3');
+    fc.assert(
+      fc.property(nonZero, complexArb, (z, w) => close(table(z, w), 'z^(w/50)', 'exp(w/50 * log(z))', 'abs(z^(w/50))')),
+      { numRuns: RUNS, seed: 10 },
+    );
+    holds(complexArb, 'z^3', 'z * z * z', 'abs(z)^3', 11);
   });
   it('arg(z) = atan2(im z, re z) and abs(z) = hypot', () => {
-    expectClose('arg(z)', 'atan2(im(z), re(z))');
-    const a = evaluateExpression(t, 'abs(z)').re;
-    for (let i = 0; i < n; i++) expect(a[i]).toBe(Math.hypot(cols.ar[i]!, cols.ai[i]!));
+    holds(nonZero, 'arg(z)', 'atan2(im(z), re(z))', undefined, 12);
+    fc.assert(
+      fc.property(complexArb, (z) => evaluateExpression(table(z), 'abs(z)').re[0] === Math.hypot(z.re, z.im)),
+      { numRuns: RUNS, seed: 13 },
+    );
   });
 });
 
