@@ -6,7 +6,7 @@
 import type { Table } from '../table/types.ts';
 import type { Dataset } from '../table/dataset.ts';
 import { makeSplits, parseSplitSpec } from '../table/split.ts';
-import { Standardizer } from '../table/standardize.ts';
+import { Standardizer, type StandardizerState } from '../table/standardize.ts';
 import { SurmiseError } from '../errors.ts';
 import { deriveSeed } from '../util/rng.ts';
 import type { TrainData } from '../learn/data.ts';
@@ -76,6 +76,8 @@ export interface RepeatData {
   kept: number[];
   /** Features left out of this repeat because they are constant on its training rows. */
   constant: string[];
+  /** The fitted standardization (training rows' means and SDs), so the run can be replayed and inverted. */
+  standardizer: StandardizerState;
 }
 
 /**
@@ -93,5 +95,12 @@ export function repeatData(ds: Dataset, plan: RepeatPlan, which: readonly number
     throw new SurmiseError('rank.noFeatures', `every feature is constant on the training rows of ${plan.label}; nothing can predict the target`);
   }
   const make = (rows: Int32Array): TrainData => ({ x: st.transform(cols, rows), y: Float64Array.from(rows, (r) => ds.y[r]!), n: rows.length, p: kept.length });
-  return { train: make(plan.train), validation: make(plan.validation), test: make(plan.test), kept, constant: st.dropped.map((d) => d.name) };
+  return {
+    train: make(plan.train),
+    validation: make(plan.validation),
+    test: make(plan.test),
+    kept,
+    constant: st.dropped.map((d) => d.name),
+    standardizer: st.toJSON(),
+  };
 }

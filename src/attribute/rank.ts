@@ -7,6 +7,7 @@
  * headline `ranking` is the consensus of the methods (each repeat's normalised scores averaged
  * over methods; see consensusRanking). Free of CLI concerns: the CLI and the run stage call it.
  */
+import type { StandardizerState } from '../table/standardize.ts';
 import type { Table } from '../table/types.ts';
 import { buildDataset, type Dataset, type DropReport } from '../table/dataset.ts';
 import { parseDerive } from '../table/expr/index.ts';
@@ -131,7 +132,7 @@ export interface RankResult {
   seed: number;
   folds: number;
   split: string;
-  repeats: Array<{ seed: number; fold: number; split: string; train: number; validation: number; test: number; attributed: number; constantFeatures: string[] }>;
+  repeats: Array<{ seed: number; fold: number; split: string; train: number; validation: number; test: number; attributed: number; constantFeatures: string[]; standardizer: StandardizerState }>;
   interval: { level: number; resamples: number; resampledRows: boolean };
   ablation?: Ablation;
   /** Held-out actual and predicted values of the first repeat (at most 5,000 rows, seeded sample); classification: the expected value Σ p_k·c_k. */
@@ -383,7 +384,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
         };
       }
       if (att.completeness) completeness.push(att.completeness);
-      repeatsInfo.push({ seed: plan.seed, fold: plan.fold, split: plan.description, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length, constantFeatures: d.constant });
+      repeatsInfo.push({ seed: plan.seed, fold: plan.fold, split: plan.description, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length, constantFeatures: d.constant, standardizer: d.standardizer });
     } finally {
       fit.net.dispose();
     }

@@ -5,6 +5,7 @@
  */
 import { createHash } from 'node:crypto';
 import { createReadStream, readFileSync } from 'node:fs';
+import { isAbsolute, relative } from 'node:path';
 import { stringify } from 'yaml';
 import { SurmiseError } from '../errors.ts';
 import { VERSION } from '../version.ts';
@@ -113,6 +114,12 @@ function featureExpression(table: Table, name: string): string | null {
   return col.kind === 'complex' ? `abs(${q})` : q;
 }
 
+/** A path as the report shows it: relative to the working folder when inside it, else as is. */
+function shownPath(p: string): string {
+  const r = relative(process.cwd(), p);
+  return r && !r.startsWith('..') && !isAbsolute(r) ? r : p;
+}
+
 function pick(values: Float64Array, idx: Int32Array): number[] {
   return Array.from(idx, (i) => values[i]!);
 }
@@ -141,7 +148,7 @@ function buildReportInput(
     title: `surmise: what predicts ${config.target}`,
     createdAt: results.createdAt,
     tool: { name: 'surmise', version: VERSION },
-    input: { path: results.input.path, sha256: results.input.sha256, rows: results.input.rows },
+    input: { path: shownPath(results.input.path), sha256: results.input.sha256, rows: results.input.rows },
     configText,
   };
   if (rank) {
@@ -153,11 +160,25 @@ function buildReportInput(
     input.rank = {
       target: rank.target,
       task: rank.task,
-      model: { metric: rank.model.metric, score: rank.model.score, baselines: { constant: rank.model.baselines.constant.score, ridge: rank.model.baselines.ridge.score } },
+      model: {
+        metric: rank.model.metric,
+        score: rank.model.score,
+        baselines: { constant: rank.model.baselines.constant.score, ridge: rank.model.baselines.ridge.score },
+        ...(rank.model.secondary
+          ? {
+              secondary: {
+                metric: rank.model.secondary.metric,
+                score: rank.model.secondary.score,
+                baselines: { constant: rank.model.baselines.constant.secondary!.score, ridge: rank.model.baselines.ridge.secondary!.score },
+              },
+            }
+          : {}),
+      },
       methods,
       ranking: rank.ranking,
     };
     if (rank.predictions) input.rank.predictions = { actual: rank.predictions.actual, predicted: rank.predictions.predicted };
+    if (rank.completeness) input.rank.completeness = rank.completeness;
     // target against the top feature, coloured by the second
     const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
     if (top.length >= 1) {

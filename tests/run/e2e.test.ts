@@ -44,6 +44,16 @@ describe('surmise demo on the demo census', () => {
     expect(results.dependencies['@tensorflow/tfjs']).toBe('4.22.0');
   });
 
+  it('stores each repeat\'s fitted standardization (training-row means and sample SDs) with the run', () => {
+    const st = results.rank!.repeats[0]!.standardizer;
+    expect(st.names).toContain('vol');
+    const k = st.names.indexOf('vol');
+    // the census' vol has mean 7.526 and SD 3.011 over all rows (surmise inspect; a 70% training
+    // sample must land close: 5 standard errors ≈ 0.13 and 0.1)
+    expect(Math.abs(st.mean[k]! - 7.526)).toBeLessThan(0.13);
+    expect(Math.abs(st.std[k]! - 3.011)).toBeLessThan(0.1);
+  });
+
   it('the network beats both baselines on held-out rows', () => {
     const m = results.rank!.model;
     expect(m.score).toBeGreaterThan(m.baselines.ridge.score + 0.2);
