@@ -49,7 +49,7 @@ export function splitTerms(text: string): string[] {
 export function renderFit(r: FitResult): string {
   const lines: string[] = [];
   const d = r.dropped;
-  const why = [d.missing ? `${d.missing} with missing cells` : '', d.nonFinite ? `${d.nonFinite} with non-finite values` : '', d.duplicates ? `${d.duplicates} exact duplicates` : '']
+  const why = [d.missing ? `${d.missing} with missing cells` : '', d.nonFinite ? `${d.nonFinite} with non-finite values` : '', d.duplicates ? `${d.duplicates} repeating an earlier row in every column used` : '']
     .filter(Boolean)
     .join(', ');
   const drop = d.total > 0 ? `, ${d.total} of ${r.nRows} dropped (${why})` : '';
@@ -112,7 +112,7 @@ export function registerFit(program: Command, io: CliIO): void {
     .option('--folds <k>', 'cross-validation folds', '5')
     .option('--level <p>', 'confidence level of the intervals', '0.95')
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
-    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column (default: drop and count them)')
+    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column used (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .action(async (file: string, o: FitOptions) => {
       const seed = intOption('--seed', o.seed, 0);

@@ -97,7 +97,7 @@ export function registerSearch(program: Command, io: CliIO): void {
     .option('--seed <n>', 'seed for the split', '0')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
-    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column (default: drop and count them)')
+    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column used (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .option('--no-progress', 'no progress output on stderr')
     .action(async (file: string, o: SearchOptions) => {

@@ -26,7 +26,7 @@ export interface FitSpec {
   folds?: number;
   /** Confidence level of the intervals (default 0.95). */
   level?: number;
-  /** Keep rows that repeat an earlier row in every column (default false: drop and count them). */
+  /** Keep rows that repeat an earlier row in every column the target and terms use (default false: drop and count them). */
   keepDuplicates?: boolean;
 }
 
@@ -105,7 +105,7 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
   const warnings: string[] = [];
   if (dropped.total > 0) {
     const parts = dropped.byExpression.filter((d) => d.missing + d.nonFinite > 0).map((d) => `'${d.expression}': ${d.missing} missing, ${d.nonFinite} not finite`);
-    if (dropped.duplicates > 0) parts.push(`${dropped.duplicates} exact repeat${dropped.duplicates === 1 ? '' : 's'} of an earlier row`);
+    if (dropped.duplicates > 0) parts.push(`${dropped.duplicates} repeat${dropped.duplicates === 1 ? '' : 's'} of an earlier row in every column used`);
     warnings.push(`${dropped.total} of ${table.nRows} rows dropped (${parts.join('; ')})`);
   }
   let trainRows: Int32Array = rows;

@@ -34,7 +34,7 @@ export interface SearchSpec {
   maxExhaustive?: number;
   /** Cap on product terms (default 600). */
   maxProducts?: number;
-  /** Keep rows that repeat an earlier row in every column (default false: drop and count them). */
+  /** Keep rows that repeat an earlier row in every column the target and candidate terms use (default false: drop and count them). */
   keepDuplicates?: boolean;
   /** Sample the usable rows (before any split) so that (candidate terms × rows) ≤ this (default 25,000,000). */
   maxCells?: number;

@@ -53,7 +53,7 @@ describe('fitRelation row policy and options', () => {
     expect(r.n).toBe(5);
     expect(r.dropped.duplicates).toBe(1);
     expect(r.dropped.duplicateRule).toMatch(/every used column \(y, x\)/);
-    expect(r.warnings[0]).toMatch(/1 exact repeat of an earlier row/);
+    expect(r.warnings[0]).toMatch(/1 repeat of an earlier row in every column used/);
     const k = fitRelation(u, { target: 'y', terms: ['x'], keepDuplicates: true });
     expect(k.n).toBe(6);
     expect(k.dropped.duplicateRule).toBeUndefined();

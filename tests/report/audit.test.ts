@@ -98,7 +98,7 @@ describe('fit notes and the formula search', () => {
       terms: [{ term: 'sig', coef: 2, se: 0.001, low: 1.99, high: 2.01, rational: { text: '2' } }],
       warnings,
     });
-    const drop = '10 of 20000 rows dropped (10 exact repeats of an earlier row)';
+    const drop = '10 of 20000 rows dropped (10 repeats of an earlier row in every column used)';
     const md = (await renderReport({ ...header(), fits: [fit([drop])] }, { png: false })).markdown;
     expect(md).toContain(drop);
     expect(md).not.toContain('**Flag:**');
