@@ -10,3 +10,14 @@ export function caught(f: () => unknown): SurmiseError {
   }
   throw new Error('expected a SurmiseError');
 }
+
+/** The code of the SurmiseError `f` throws, or 'none' when it throws nothing. */
+export function codeOf(f: () => unknown): string {
+  try {
+    f();
+  } catch (e) {
+    if (e instanceof SurmiseError) return e.code;
+    throw e;
+  }
+  return 'none';
+}

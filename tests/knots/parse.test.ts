@@ -1,16 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { parseDiagram, detectKind, naturalSlope, computeInvariants, splitDiagramLines } from '../../src/knots/index.ts';
 import { SurmiseError } from '../../src/errors.ts';
+import { codeOf } from '../helpers/errors.ts';
 
-function codeOf(f: () => unknown): string {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof SurmiseError) return e.code;
-    throw e;
-  }
-  return 'none';
-}
 
 describe('reading codes', () => {
   it('accepts the trefoil in every form with the same invariants (standard table, from memory)', () => {

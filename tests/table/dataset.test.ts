@@ -3,6 +3,7 @@ import { SurmiseError } from '../../src/errors.ts';
 import type { Column, Table } from '../../src/table/types.ts';
 import { buildDataset, formatDropReport } from '../../src/table/dataset.ts';
 import { caught } from '../helpers/errors.ts';
+import { cplx, label } from '../helpers/columns.ts';
 
 // Row-policy checks are counted by hand on small invented tables (common practice: each count
 // below is derived by reading the table literal).
@@ -12,14 +13,6 @@ const real = (name: string, v: number[], kind: 'real' | 'integer' = 'real', miss
   kind,
   values: Float64Array.from(v),
   missing: Uint8Array.from(v.map((_, i) => (missingAt.includes(i) ? 1 : 0))),
-});
-const label = (name: string, v: string[]): Column => ({ name, kind: 'label', values: v, missing: new Uint8Array(v.length) });
-const cplx = (name: string, re: number[], im: number[]): Column => ({
-  name,
-  kind: 'complex',
-  re: Float64Array.from(re),
-  im: Float64Array.from(im),
-  missing: new Uint8Array(re.length),
 });
 
 function knots(): Table {

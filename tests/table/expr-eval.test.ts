@@ -4,19 +4,13 @@ import { Rng } from '../../src/util/rng.ts';
 import type { Column, Table } from '../../src/table/types.ts';
 import { compileExpression, deriveColumn, evaluateExpression, parseExpression } from '../../src/table/expr/index.ts';
 import { caught } from '../helpers/errors.ts';
+import { cplx } from '../helpers/columns.ts';
 
 const real = (name: string, v: number[], kind: 'real' | 'integer' = 'real'): Column => ({
   name,
   kind,
   values: Float64Array.from(v),
   missing: Uint8Array.from(v.map((x) => (Number.isNaN(x) ? 1 : 0))),
-});
-const cplx = (name: string, re: number[], im: number[]): Column => ({
-  name,
-  kind: 'complex',
-  re: Float64Array.from(re),
-  im: Float64Array.from(im),
-  missing: new Uint8Array(re.length),
 });
 const table = (columns: Column[], nRows: number): Table => ({ source: 'knots.csv', nRows, columns });
 

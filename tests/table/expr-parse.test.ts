@@ -11,16 +11,7 @@ import {
   parseExpression,
   sameExpression,
 } from '../../src/table/expr/index.ts';
-
-function codeOf(f: () => unknown): string {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof SurmiseError) return e.code;
-    throw e;
-  }
-  return 'no error';
-}
+import { codeOf } from '../helpers/errors.ts';
 
 function messageOf(f: () => unknown): string {
   try {
