@@ -215,6 +215,25 @@ export function batchSizeFor(nTrain: number): number {
   return Math.max(8, Math.min(RANK_DEFAULTS.batchSize, b));
 }
 
+/** Held-out scores of the network and both baselines, collected over repeats. */
+class Scores {
+  readonly net: number[] = [];
+  readonly constant: number[] = [];
+  readonly ridge: number[] = [];
+  readonly net2: number[] = [];
+  readonly constant2: number[] = [];
+  readonly ridge2: number[] = [];
+
+  add(f: Fit): void {
+    this.net.push(f.score);
+    this.constant.push(f.constant);
+    this.ridge.push(f.ridge);
+    this.net2.push(f.score2);
+    this.constant2.push(f.constant2);
+    this.ridge2.push(f.ridge2);
+  }
+}
+
 interface Fit {
   net: TrainedNetwork;
   score: number;
@@ -328,12 +347,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const report = (phase: RankProgress['phase'], done: number, message: string) => options.onProgress?.({ phase, done: Math.min(done, total), total, message });
 
   const byMethod = new Map<AttributionMethod, RepeatScores[]>(methods.map((m) => [m, []]));
-  const netScores: number[] = [];
-  const constScores: number[] = [];
-  const ridgeScores: number[] = [];
-  const net2: number[] = [];
-  const const2: number[] = [];
-  const ridge2: number[] = [];
+  const scores = new Scores();
   const epochsRun: number[] = [];
   const completeness: RankResult['completeness'] = [];
   const repeatsInfo: RankResult['repeats'] = [];
@@ -348,12 +362,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const pk = d.kept.length;
     const fit = (await fits.next()).value as Fit;
     try {
-      netScores.push(fit.score);
-      constScores.push(fit.constant);
-      ridgeScores.push(fit.ridge);
-      net2.push(fit.score2);
-      const2.push(fit.constant2);
-      ridge2.push(fit.ridge2);
+      scores.add(fit);
       epochsRun.push(fit.epochsRun);
       report('attribute', (r + 1) * unitsPerRepeat, `${label}: attributing`);
       const rows = subsample(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
@@ -401,8 +410,8 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     features: [...ds.featureNames],
     groups: groups.map((g) => ({ name: g.name, members: g.members.map((j) => ds.featureNames[j]!) })),
     model: {
-      ...skill(metric, netScores, net2),
-      baselines: { constant: skill(metric, constScores, const2), ridge: skill(metric, ridgeScores, ridge2) },
+      ...skill(metric, scores.net, scores.net2),
+      baselines: { constant: skill(metric, scores.constant, scores.constant2), ridge: skill(metric, scores.ridge, scores.ridge2) },
       hidden,
       epochsRun,
     },
@@ -427,30 +436,20 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const dropped = consensus.order.slice(0, dropTop).map((k) => groups[k]!);
     const gone = new Set(dropped.flatMap((g) => g.members));
     const keep = all.filter((j) => !gone.has(j));
-    const s: number[] = [];
-    const c: number[] = [];
-    const rr: number[] = [];
-    const s2: number[] = [];
-    const c2: number[] = [];
-    const rr2: number[] = [];
+    const abScores = new Scores();
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
     for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
       fit.net.dispose();
-      s.push(fit.score);
-      c.push(fit.constant);
-      rr.push(fit.ridge);
-      s2.push(fit.score2);
-      c2.push(fit.constant2);
-      rr2.push(fit.ridge2);
+      abScores.add(fit);
     }
     result.ablation = {
       dropped: dropped.map((g) => g.name),
       features: keep.map((j) => ds.featureNames[j]!),
-      model: skill(metric, s, s2),
-      ridge: skill(metric, rr, rr2),
-      constant: skill(metric, c, c2),
-      full: skill(metric, netScores, net2),
+      model: skill(metric, abScores.net, abScores.net2),
+      ridge: skill(metric, abScores.ridge, abScores.ridge2),
+      constant: skill(metric, abScores.constant, abScores.constant2),
+      full: skill(metric, scores.net, scores.net2),
     };
   }
   report('attribute', total, 'done');

@@ -6,6 +6,7 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
+import { collect } from './options.ts';
 import { SurmiseError } from '../errors.ts';
 import { readTable } from '../table/read.ts';
 import { parseDerive } from '../table/expr/derive.ts';
@@ -107,7 +108,7 @@ export function registerFit(program: Command, io: CliIO): void {
     .requiredOption('--terms <list>', 'terms separated by ";", e.g. "sig; vol/inj^3"')
     .option('--no-intercept', 'fit without the constant term (R² is then uncentred)')
     .option('--split <spec>', 'fit on one part and report the error on another: random:TRAIN,VALIDATION,TEST (fit on train, measure on test) or where:CONDITION')
-    .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
+    .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
     .option('--seed <n>', 'seed for the split and the cross-validation folds', '0')
     .option('--folds <k>', 'cross-validation folds', '5')
     .option('--level <p>', 'confidence level of the intervals', '0.95')

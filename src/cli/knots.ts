@@ -269,9 +269,6 @@ export function registerKnots(program: Command, io: CliIO): void {
     .requiredOption('--length <n>', 'letters per word')
     .option('--count <n>', 'number of words', '100')
     .option('--seed <n>', 'seed', '1')
-    .option('--out <file>', 'diagram file to write (default: stdout)')
-    .option('--force', 'replace an existing file')
-    .option('--json', 'print one JSON object')
     .action((_o: unknown, cmd: Command) => {
       // options shared by name with `knots` (--out, --force, --json) may be parsed by it: merge
       const o = cmd.optsWithGlobals() as { strands: string; length: string; count: string; seed: string; out?: string; force?: boolean; json?: boolean };
@@ -297,9 +294,6 @@ export function registerKnots(program: Command, io: CliIO): void {
     .option('--summands <a..b>', 'number of connected summands', '1')
     .option('--kinks <a..b>', 'number of R1 kinks added', '0')
     .option('--seed <n>', 'seed', '1')
-    .option('--out <file>', 'diagram file to write (default: stdout)')
-    .option('--force', 'replace an existing file')
-    .option('--json', 'print one JSON object')
     .action((_o: unknown, cmd: Command) => {
       const o = cmd.optsWithGlobals() as { strands: string; length: string; count: string; summands: string; kinks: string; seed: string; out?: string; force?: boolean; json?: boolean };
       const strands = parsePositiveInt('--strands', o.strands);
@@ -335,9 +329,6 @@ export function registerKnots(program: Command, io: CliIO): void {
     .option('--on <i..j>', 'strands that get the full twists, e.g. 1..2 (required)')
     .requiredOption('--twists <a..b>', 'numbers of full twists, e.g. 0..20 (negative: left-handed)')
     .option('--name <prefix>', 'name prefix', 'twist')
-    .option('--out <file>', 'diagram file to write (default: stdout)')
-    .option('--force', 'replace an existing file')
-    .option('--json', 'print one JSON object')
     .action((_o: unknown, cmd: Command) => {
       const o = cmd.optsWithGlobals() as { braid: string; strands?: string; on?: string; twists: string; name: string; out?: string; force?: boolean; json?: boolean };
       if (o.on === undefined) throw new SurmiseError('knots.option', "required option '--on <i..j>' not specified (the strands that get the full twists, e.g. 1..2)");
@@ -358,9 +349,6 @@ export function registerKnots(program: Command, io: CliIO): void {
     .requiredOption('--p <a..b>', 'range of p (strands, ≥ 2)')
     .requiredOption('--q <a..b>', 'range of q')
     .option('--coprime', 'only coprime p, q (knots)')
-    .option('--out <file>', 'diagram file to write (default: stdout)')
-    .option('--force', 'replace an existing file')
-    .option('--json', 'print one JSON object')
     .action((_o: unknown, cmd: Command) => {
       const o = cmd.optsWithGlobals() as { p: string; q: string; coprime?: boolean; out?: string; force?: boolean; json?: boolean };
       const [p0, p1] = parseRange('--p', o.p);
@@ -376,6 +364,12 @@ export function registerKnots(program: Command, io: CliIO): void {
       if (lines.length === 0) throw new SurmiseError('knots.option', 'no (p, q) in the ranges');
       emit(lines, o.out, o.force === true, io, o.json === true, 'torus');
     });
+  // every generator writes a diagram file the same way (--out, --force, --json)
+  for (const c of gen.commands) {
+    c.option('--out <file>', 'diagram file to write (default: stdout)')
+      .option('--force', 'replace an existing file')
+      .option('--json', 'print one JSON object');
+  }
   // nested commands report through the same IO and never exit the process
   for (const c of [gen, ...gen.commands]) {
     c.exitOverride();

@@ -7,6 +7,7 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { makeProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
+import { collect } from './options.ts';
 import { SurmiseError } from '../errors.ts';
 import { readTable } from '../table/read.ts';
 import { parseDerive } from '../table/expr/derive.ts';
@@ -95,7 +96,7 @@ export function registerSearch(program: Command, io: CliIO): void {
     .option('--split <spec>', 'selection and held-out parts: random:TRAIN,VALIDATION,TEST (select on train, measure on test) or where:CONDITION; default a random 60/40 split')
     .option('--top <n>', 'candidates to list', '10')
     .option('--seed <n>', 'seed for the split', '0')
-    .option('--derive <name=expr>', 'add a derived column first (repeatable)', (v: string, acc: string[]) => [...acc, v], [] as string[])
+    .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
     .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column used (default: drop and count them)')
     .option('--json', 'print one JSON object')
