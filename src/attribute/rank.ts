@@ -15,7 +15,6 @@ import { SurmiseError } from '../errors.ts';
 import { deriveSeed, Rng } from '../util/rng.ts';
 import { trainNetwork } from '../learn/train.ts';
 import { trainMany } from '../learn/many.ts';
-import { ensureBackend } from '../learn/backend.ts';
 import { networkFromJSON, type TrainedNetwork } from '../learn/trained.ts';
 import { chooseTask, type Task } from '../learn/options.ts';
 import { fitConstant } from '../learn/constant.ts';
@@ -288,8 +287,7 @@ async function* trainAll(
         },
       },
     );
-    await ensureBackend();
-    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!);
+    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!); // on the engine trainMany loaded
     return;
   }
   for (let r = 0; r < datas.length; r++) {
