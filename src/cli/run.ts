@@ -1,8 +1,6 @@
 import type { Command } from 'commander';
 import { resolve } from 'node:path';
 import type { CliIO } from './io.ts';
-import { loadConfig } from '../run/config.ts';
-import { runWithProgress } from './run-shared.ts';
 import { parseEngine } from './options.ts';
 
 export function registerRun(program: Command, io: CliIO): void {
@@ -17,6 +15,8 @@ export function registerRun(program: Command, io: CliIO): void {
     .option('--no-progress', 'no progress on stderr')
     .action(async (config: string, o: { out?: string; force?: boolean; json?: boolean; progress: boolean; engine?: string }) => {
       const engine = o.engine === undefined ? undefined : parseEngine(o.engine);
+      // the run stage (zod, yaml, plotting) loads when the command runs, not at every start
+      const [{ loadConfig }, { runWithProgress }] = await Promise.all([import('../run/config.ts'), import('./run-shared.ts')]);
       const loaded = loadConfig(resolve(io.cwd, config), config);
       await runWithProgress(io, loaded, { ...o, engine, ...(o.out ? { out: resolve(io.cwd, o.out) } : {}) });
     });

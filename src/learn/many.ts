@@ -77,8 +77,12 @@ async function inProcess(jobs: Resolved[], out: NetworkState[], todo: number[], 
   }
 }
 
-/** The worker module is TypeScript; a small JavaScript bootstrap registers tsx in the worker first (execArgv alone did not load .ts here). */
-const WORKER_URL = new URL('./worker-boot.mjs', import.meta.url);
+/**
+ * The worker's entry: compiled (build/learn/worker.js) when this module is compiled; from the
+ * sources, a small JavaScript bootstrap registers tsx in the worker first (execArgv alone did not
+ * load .ts here).
+ */
+const WORKER_URL = import.meta.url.endsWith('.js') ? new URL('./worker.js', import.meta.url) : new URL('./worker-boot.mjs', import.meta.url);
 
 /**
  * Train every job; returns the states in job order. Options are checked for every job before
