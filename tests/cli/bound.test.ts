@@ -104,8 +104,9 @@ describe('surmise bound', () => {
     const [planted, naive] = j.results;
     expect(planted.constant).toBeLessThanOrEqual(PLANTED_C * (1 + 1e-9));
     expect(planted.constant).toBeGreaterThan(0.9 * PLANTED_C);
-    expect(planted.trend.kind).toBe('bounded');
-    expect(naive.trend.verdict).toMatch(/^grows as w decreases/);
+    expect(planted.trend.kind).toBe('none');
+    expect(naive.trend.kind).toBe('down');
+    expect(naive.trend.verdict).toMatch(/^increasing towards low w/);
     expect(naive.extremeStratum).toBe('lowest');
     expect(naive.witnesses[0].labels.family).toBe('thin');
   });
@@ -125,7 +126,7 @@ describe('surmise bound', () => {
       'planted.csv', '--lhs', 'abs(2*a - z)', '--rhs', 'b/w', '--rhs', 'b', '--by', 'w', '--top', '2',
     ]);
     expect(code).toBe(0);
-    expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}b\/w .*bounded: no trend along w\n {2}b .*grows as w decreases\n/);
+    expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}b\/w .*no trend detected along w\n {2}b .*increasing towards low w\n/);
     expect(out).toMatch(/Hyndman & Fan \(1996\) type 7/);
   });
 });
