@@ -16,7 +16,7 @@ import { BOUND_LIMITS } from '../bound/find.ts';
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
 const count = (r: IntegerRange) => z.number().int().min(r.min).max(r.max);
 const exprString = z.string().min(1);
-/** A list, where a single item may be written without brackets (`rhs: vol` = `rhs: [vol]`). */
+/** A list, where a single item may be written without brackets (`rhs: b` = `rhs: [b]`). */
 const listOf = <T extends z.ZodType>(item: T, min = 0) => z.preprocess((v) => (typeof v === 'string' ? [v] : v), z.array(item).min(min));
 
 const NetworkSchema = z.strictObject({
