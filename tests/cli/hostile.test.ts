@@ -43,7 +43,7 @@ export const ROWS: HostileRow[] = [
   { name: 'unknown rank target', args: ['rank', 'xy.csv', '--target', 'q'], files: { 'xy.csv': XY }, exit: 2, code: 'dataset.unknownColumn' },
   { name: 'bad split spec', args: ['fit', 'xy.csv', '--target', 'y', '--terms', 'x', '--split', 'bogus'], files: { 'xy.csv': XY }, exit: 2, code: 'split.badSpec' },
   { name: 'rhs not positive', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x-3'], files: { 'xy.csv': XY }, exit: 2, code: 'bound.badRhs' },
-  { name: 'integer option with trailing text', args: ['demo-data', '--rows', '12abc'], exit: 2, code: 'option.badInteger' },
+  { name: 'integer option with trailing text', args: ['demo-data', '--seed', '12abc'], exit: 2, code: 'option.badInteger' },
   { name: 'too many search terms', args: ['search', 'xy.csv', '--target', 'y', '--from', 'x', '--max-terms', '9'], files: { 'xy.csv': XY }, exit: 2, code: 'relate.badMaxTerms' },
 
   // ---- expressions: length and depth
@@ -72,13 +72,12 @@ export const ROWS: HostileRow[] = [
   { name: 'search --top 1e12', args: ['search', 'xy.csv', '--target', 'y', '--from', 'x', '--top', '1e12'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
   { name: 'bound --bins 1e9', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x', '--bins', '1e9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
   { name: 'bound --top 1e9', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x', '--top', '1e9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
-  { name: 'demo-data --rows 1e12', args: ['demo-data', '--rows', '1e12'], exit: 2, code: 'option.tooLarge', says: 'at most 10,000,000' },
 
   // ---- output folders and files
   { name: 'run --force into a folder of the user\'s files', args: ['run', 'c.yaml', '--force'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/notes.txt': 'mine' }, exit: 2, code: 'output.notRunFolder', says: 'notes.txt' },
   { name: 'run --force into a folder with a forged format string', args: ['run', 'c.yaml', '--force'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/results.json': '{"format":"surmise-run"}' }, exit: 2, code: 'output.notRunFolder' },
   { name: 'run without --force into an existing folder', args: ['run', 'c.yaml'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/notes.txt': 'mine' }, exit: 2, code: 'output.exists' },
-  { name: 'demo-data --out over an existing file', args: ['demo-data', '--rows', '5', '--out', 'xy.csv'], files: { 'xy.csv': XY }, exit: 2, code: 'output.exists' },
+  { name: 'knots generate --out over an existing file', args: ['knots', 'generate', 'torus', '--p', '2..3', '--q', '3..5', '--out', 'xy.csv'], files: { 'xy.csv': XY }, exit: 2, code: 'knots.exists' },
 
   // ---- names that are also constants
   { name: 'bare e that is also a column (fit)', args: ['fit', 'econ.csv', '--target', 'y', '--terms', 'e'], files: { 'econ.csv': 'x,e,y\n1,2,3\n2,3,5\n3,4,7\n4,5,9.5\n5,6,11\n' }, exit: 2, code: 'expr.ambiguousName', says: 'write `e`' },
