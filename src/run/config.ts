@@ -28,6 +28,7 @@ const NetworkSchema = z.strictObject({
   patience: count({ min: 1, max: RANK_LIMITS.epochs.max }).default(8),
   batchSize: count({ min: 1, max: 1 << 20 }).default(256),
   learningRate: z.number().positive().default(0.001),
+  engine: z.enum(['auto', 'native', 'tfjs']).default('auto'),
 });
 
 const AttributionSchema = z.strictObject({
