@@ -9,7 +9,7 @@ import type { Command } from 'commander';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import type { CliIO } from './io.ts';
 import { makeProgress } from './progress.ts';
-import { parseIntOption, parsePositiveInt } from './options.ts';
+import { parseIntOption, parseNonNegativeInt, parsePositiveInt } from './options.ts';
 import { readTable } from '../table/read.ts';
 import { writeTable } from '../table/write.ts';
 import { tableFromRecords } from '../table/columns.ts';
@@ -38,7 +38,8 @@ import {
   type InvariantName,
   type KnotInvariants,
 } from '../knots/index.ts';
-import { invariantColumns, invariantsOf, readDiagramFile, tableRecord } from '../knots/batch.ts';
+import { invariantColumns, readDiagramFile, tableRecord } from '../knots/batch.ts';
+import { invariantsMany } from '../knots/many.ts';
 
 const CONVENTIONS =
   'Conventions: PD crossings X[a,b,c,d] are read counter-clockwise from the incoming under-edge; a crossing is\n' +
@@ -60,6 +61,7 @@ interface KnotsOptions {
   force?: boolean;
   json?: boolean;
   progress?: boolean;
+  workers?: string;
 }
 
 function parseKind(k: string | undefined): DiagramKind | undefined {
@@ -145,14 +147,15 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   const path = resolve(io.cwd, file);
   const sources = await readDiagramFile(path, { column: o.column, nameColumn: o.nameColumn, displayName: file });
   if (sources.length === 0) throw new SurmiseError('knots.empty', `${file} holds no diagrams`);
-  const progress = makeProgress(io, 'knots', o.progress !== false && sources.length >= 200);
-  const results: KnotInvariants[] = [];
-  sources.forEach((s, k) => {
-    results.push(invariantsOf(s, file, kind, { invariants: inv, omega }));
-    if (k % 100 === 99) progress.update(k + 1, sources.length);
-  });
-  progress.update(sources.length, sources.length);
-  progress.stop();
+  const workers = parseNonNegativeInt('--workers', o.workers ?? '2', 64);
+  const slow = inv.includes('hyperbolic');
+  const progress = makeProgress(io, 'knots', o.progress !== false && (sources.length >= 200 || (slow && sources.length >= 20)));
+  let results: KnotInvariants[];
+  try {
+    results = await invariantsMany(sources, file, kind, { invariants: inv, omega }, { workers, onProgress: (d, t) => progress.update(d, t) });
+  } finally {
+    progress.stop();
+  }
 
   const prefix = o.prefix ?? '';
   const records = sources.map((s, k) => tableRecord(s.name, results[k]!, inv));
@@ -269,6 +272,7 @@ export function registerKnots(program: Command, io: CliIO): void {
     .option('--force', 'replace an existing output file')
     .option('--json', 'print one JSON object (Alexander polynomials as coefficient lists, lowest power first)')
     .option('--no-progress', 'no progress on stderr')
+    .option('--workers <n>', 'worker threads for the hyperbolic invariants (0-64; 0 or 1: this thread)', '2')
     .addHelpText('after', `\n${CONVENTIONS}\n\nCodes: PD [[1,5,2,4],[3,1,4,6],[5,3,6,2]] or X[1,5,2,4] X[3,1,4,6] X[5,3,6,2]; braid "1 -2 1 -2",\n"4: 1 2 3" (4 strands) or {"strands":4,"word":[1,2,3]}; DT[4,6,2] (or "4 6 2" with --kind dt).\nA DT code fixes a knot only up to mirror image.\n`)
     .action(async (file: string | undefined, o: KnotsOptions) => {
       if (file === undefined) throw new SurmiseError('knots.option', 'give a file of diagrams (surmise knots FILE), or a subcommand: generate');

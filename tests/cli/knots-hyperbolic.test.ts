@@ -9,6 +9,10 @@ let dir: string;
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'surmise-hyp-'));
   // invented file of standard diagrams; expected values: figure-eight volume 2.0298832128193 and cusp 2√3·i (from memory)
+  // 80 closed braids (the twist family of 5_2's braid and a few torus knots) for the worker test
+  const lines: string[] = [];
+  for (let k = 0; k < 80; k++) lines.push(k % 10 === 9 ? `t${k}\t${Array(2 * (k % 7) + 3).fill(1).join(' ')}` : `k${k}\t${Array(2 * (k % 9) + 3).fill(1).join(' ')} 2 -1 2`);
+  writeFileSync(join(dir, 'many.txt'), lines.join('\n') + '\n');
   writeFileSync(join(dir, 'd.txt'), 'fig8\t1 -2 1 -2\ntrefoil\t1 1 1\nfive2\tX[1,5,2,4] X[3,9,4,8] X[5,1,6,10] X[7,3,8,2] X[9,7,10,6]\n');
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -20,6 +24,17 @@ async function run(args: string[]): Promise<{ code: number; out: string; err: st
 }
 
 describe('surmise knots --invariants hyperbolic', () => {
+  it('worker threads give the same table as one thread (80 rows; ordering and values identical)', async () => {
+    const one = await run(['knots', 'many.txt', '--invariants', 'crossings,hyperbolic', '--workers', '0', '--no-progress']);
+    const two = await run(['knots', 'many.txt', '--invariants', 'crossings,hyperbolic', '--workers', '2', '--no-progress']);
+    expect(one.code).toBe(0);
+    expect(two.code).toBe(0);
+    expect(two.out).toBe(one.out);
+    expect(one.out.split('\n').filter((l) => l.includes(',hyperbolic,')).length).toBe(72);
+    const bad = await run(['knots', 'many.txt', '--invariants', 'hyperbolic', '--workers', '65']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/--workers/);
+  });
   it('adds geometry, geometry_reason, volume, cusp_shape (complex) and natural_slope', async () => {
     const r = await run(['knots', 'd.txt', '--invariants', 'hyperbolic']);
     expect(r.code).toBe(0);
