@@ -15,6 +15,7 @@
  */
 import type { Diagram } from '../diagram.ts';
 import { analysePD } from '../pd.ts';
+import { braidClosurePD, type Braid } from '../braid.ts';
 import { blochWigner } from './dilog.ts';
 import { removeKinks } from './kinks.ts';
 import { solveShapes } from './newton.ts';
@@ -64,7 +65,10 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
     const tk = recogniseTorusBraid(d.braid);
     if (tk) return { geometry: 'not hyperbolic', reason: `torus ${d.info.nComponents === 1 ? 'knot' : 'link'} T(${tk.p},${tk.q}) (Seifert fibred)` };
   }
-  const k = removeKinks(d.info.crossings);
+  // braid words: cancel σ_i σ_i⁻¹ pairs, cyclically (Reidemeister II; the closure is unchanged)
+  const crossings = d.braid ? braidClosurePD(reduceBraid(d.braid)).pd : d.info.crossings;
+  if (crossings.length === 0) return { geometry: 'not hyperbolic', reason: 'the braid word reduces to the empty word: an unlink' };
+  const k = removeKinks(crossings);
   if (k.freeLoops > 0 && d.info.nComponents > 1) return { geometry: 'not hyperbolic', reason: 'split link: a component is an unknotted loop apart from the rest' };
   if (k.pd.length === 0) return { geometry: 'not hyperbolic', reason: 'unknot (no crossings left after removing kinks)' };
   if (k.pd.length <= 2) return { geometry: 'not hyperbolic', reason: `${k.pd.length} crossings after removing kinks: unknot or Hopf link` };
@@ -111,4 +115,18 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   out.cuspShape = cg[0]!.shape;
   out.naturalSlope = cg[0]!.shape[0];
   return out;
+}
+
+/** Free cyclic reduction of a braid word (σ_i σ_i⁻¹ → nothing, also across the closing point). */
+export function reduceBraid(b: Braid): Braid {
+  const out: number[] = [];
+  for (const g of b.word) {
+    if (out.length && out[out.length - 1] === -g) out.pop();
+    else out.push(g);
+  }
+  while (out.length >= 2 && out[0] === -out[out.length - 1]!) {
+    out.shift();
+    out.pop();
+  }
+  return { strands: b.strands, word: out };
 }

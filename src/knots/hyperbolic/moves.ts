@@ -5,7 +5,7 @@
  * numbering with the vertex z_j replaced by a1 (same orientation), so its face opposite z_j is t0's
  * old face and its face opposite a0 is t1's old face opposite z_j.
  */
-import type { Triangulation } from './triangulation.ts';
+import { EDGE_VERTS, type Triangulation } from './triangulation.ts';
 
 type P4 = [number, number, number, number];
 
@@ -94,14 +94,6 @@ export function twoThree(tri: Triangulation, t0: number, f0: number): Triangulat
   return { n: m, nbr: nn, perm: pp };
 }
 
-const EDGES: ReadonlyArray<readonly [number, number]> = [
-  [0, 1],
-  [0, 2],
-  [0, 3],
-  [1, 2],
-  [1, 3],
-  [2, 3],
-];
 /**
  * The 2–0 move (Matveev 2003, §1.2; inverse of the 0–2 "pillow" insertion): an edge ab of valence 2
  * in two distinct tetrahedra t0 = (a, b, c, d) and t1 bounds a pillow; both are removed and the
@@ -115,7 +107,7 @@ export function twoZero(tri: Triangulation, edgeOf: Int32Array, edge: number): {
   if (occ.length !== 2 || occ[0]![0] === occ[1]![0]) return undefined;
   const [t0, k0] = occ[0]!;
   const t1 = occ[1]![0];
-  const [a, b] = EDGES[k0]!;
+  const [a, b] = EDGE_VERTS[k0]!;
   const [c, d] = [0, 1, 2, 3].filter((x) => x !== a && x !== b) as [number, number];
   if (tri.nbr[4 * t0 + c] !== t1 || tri.nbr[4 * t0 + d] !== t1) return undefined;
   const phi = tri.perm.subarray(16 * t0 + 4 * c, 16 * t0 + 4 * c + 4);
