@@ -9,6 +9,8 @@ export interface Interval {
   score: number;
   low: number;
   high: number;
+  /** With noise probes: whether the whole interval lies above the probes' upper reference. */
+  aboveNoise?: boolean;
 }
 
 export interface ReportDrops {
@@ -36,6 +38,8 @@ export interface ReportRank {
   predictions?: { actual: number[]; predicted: number[] };
   /** Integrated gradients only: per repeat, mean and largest |Σ attributions − (f(x) − f(baseline))| and mean |f(x) − f(baseline)|. */
   completeness?: Array<{ meanAbsGap: number; maxAbsGap: number; meanAbsDelta: number }>;
+  /** Noise probes: what they were (words, e.g. "3 permuted copies (of a, b, c) and 3 Gaussian columns") and the headline reference. */
+  noise?: { probes: string; reference: number };
 }
 
 export interface ReportScatter {

@@ -32,6 +32,8 @@ const AttributionSchema = z.strictObject({
   seeds: positiveInt.default(3),
   folds: nonNegativeInt.default(0),
   dropTop: nonNegativeInt.default(0),
+  /** Noise probes per repeat (attribute/probes.ts); at most 50 (MAX_PROBES). */
+  probes: nonNegativeInt.max(50).default(6),
 });
 
 const FitSchema = z.strictObject({

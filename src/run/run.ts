@@ -11,6 +11,7 @@ import { SurmiseError } from '../errors.ts';
 import { VERSION } from '../version.ts';
 import { deriveColumn, evaluateExpression, readTable, type Table } from '../table/index.ts';
 import { rankFeatures, type RankProgress, type RankResult } from '../attribute/rank.ts';
+import { describeProbes } from '../attribute/probes.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchResult } from '../relate/search.ts';
 import { findBound, type BoundResult } from '../bound/find.ts';
@@ -179,6 +180,7 @@ function buildReportInput(
     };
     if (rank.predictions) input.rank.predictions = { actual: rank.predictions.actual, predicted: rank.predictions.predicted };
     if (rank.completeness) input.rank.completeness = rank.completeness;
+    if (rank.noise) input.rank.noise = { probes: describeProbes(rank.noise.probes), reference: rank.noise.reference };
     // target against the top feature, coloured by the second
     const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
     if (top.length >= 1) {
@@ -368,6 +370,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     epochs: config.network.epochs,
     seed: config.seed,
     dropTop: config.attribution.dropTop,
+    probes: config.attribution.probes,
     ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
   });
   timings.rank = seconds(t0);

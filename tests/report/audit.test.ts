@@ -139,3 +139,22 @@ describe('plot subtitles wrap instead of being cut', () => {
     for (const l of spec.title.subtitle) expect(l.length).toBeLessThanOrEqual(subtitleChars(420));
   });
 });
+
+describe('noise level in the report (probes: Stoppiglia et al., JMLR 3, 2003)', () => {
+  it('marks each quantity above or at noise and states the probes and their reference', async () => {
+    const mark = (f: ReturnType<typeof iv>, aboveNoise: boolean) => ({ ...f, aboveNoise });
+    const r = rank([mark(iv('a', 0.6, 0.55, 0.65), true), mark(iv('b', 0.3, 0.25, 0.35), true), mark(iv('c', 0.1, 0.02, 0.12), false)], {
+      noise: { probes: '3 permuted copies (of a, b, c) and 3 Gaussian columns', reference: 0.05 },
+    });
+    const md = (await renderReport({ ...header(), rank: r }, { png: false })).markdown;
+    expect(md).toContain('| rank | quantity | score | low | high | vs noise |');
+    expect(md).toMatch(/\| 3 \| `c` \| 0\.1 \| 0\.02 \| 0\.12 \| at noise \|/);
+    expect(md).toMatch(/\| 1 \| `a` \| 0\.6 \| 0\.55 \| 0\.65 \| above \|/);
+    expect(md).toContain('Noise level: 3 permuted copies (of a, b, c) and 3 Gaussian columns were trained');
+    expect(md).toContain('2 of 3 quantities have their whole interval above it');
+    // without probes the table keeps its five columns
+    const plain = (await renderReport({ ...header(), rank: rank([iv('a', 1, 0.9, 1)]) }, { png: false })).markdown;
+    expect(plain).toContain('| rank | quantity | score | low | high |\n');
+    expect(plain).not.toContain('Noise level');
+  });
+});
