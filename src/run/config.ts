@@ -40,6 +40,8 @@ const FitSchema = z.strictObject({
   target: exprString,
   terms: listOf(exprString, 1),
   intercept: z.boolean().default(true),
+  /** Terms measured with error (errors-in-variables): the fit says their slopes are attenuated. */
+  noisy: listOf(exprString).default([]),
 });
 
 const SearchSchema = z.strictObject({

@@ -377,7 +377,9 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
 
   stage('fitting relations');
   t0 = performance.now();
-  const fits = config.fits.map((f) => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed }));
+  const fits = config.fits.map((f, i) =>
+    inConfig(['fits', i, 'noisy'], at, () => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed, noisyTerms: f.noisy })),
+  );
   timings.fit = seconds(t0);
 
   let search: SearchResult | null = null;
