@@ -314,6 +314,11 @@ function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string
   config.fits.forEach((f, i) => {
     expr(['fits', i, 'target'], f.target);
     f.terms.forEach((t, j) => expr(['fits', i, 'terms', j], t));
+    f.noisy.forEach((t, j) => {
+      if (!f.terms.some((u) => u.replace(/\s+/g, '') === t.replace(/\s+/g, ''))) {
+        throw new SurmiseError('config.badValue', `${at(['fits', i, 'noisy', j])}: fits[${i}].noisy[${j}]: '${t}' is not one of this fit's terms (${f.terms.join('; ')})`);
+      }
+    });
   });
   if (config.search) {
     expr(['search', 'target'], config.search.target);
@@ -377,9 +382,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
 
   stage('fitting relations');
   t0 = performance.now();
-  const fits = config.fits.map((f, i) =>
-    inConfig(['fits', i, 'noisy'], at, () => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed, noisyTerms: f.noisy })),
-  );
+  const fits = config.fits.map((f) => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed, noisyTerms: f.noisy }));
   timings.fit = seconds(t0);
 
   let search: SearchResult | null = null;
