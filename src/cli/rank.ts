@@ -78,7 +78,7 @@ export function parseGroups(specs: string[]): Record<string, string[]> {
   return out;
 }
 
-function parseHidden(raw: string): number[] {
+export function parseHidden(raw: string): number[] {
   if (raw.trim() === '' || raw.trim() === 'none') return [];
   return raw.split(',').map((s) => parsePositiveInt('--hidden (each layer width)', s.trim()));
 }
