@@ -190,6 +190,42 @@ export function attributionSection(input: ReportInput, plan: PlotPlan, set: Sect
   return out;
 }
 
+/** What the first formula leaves over: the residual's ranking and its size's, with noise lines, and the proposed next term. */
+export function residualSection(input: ReportInput): Block[] {
+  const r = input.residual;
+  if (!r) return [];
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'What the fit leaves over', id: 'residual' }];
+  out.push({
+    kind: 'paragraph',
+    parts: [
+      'After the fit ',
+      { text: r.fit, code: true },
+      ` (R² ${formatNumber(r.r2)}, RMSE ${formatNumber(r.rmse)}), its residual `,
+      { text: r.residualName, code: true },
+      ` was ranked against the remaining columns (${r.features.join(', ')}) with the same network, methods and noise probes:`,
+    ],
+  });
+  out.push(rankingTable(r.ranking), ...noiseParagraph(r.ranking, r.noise));
+  if (r.absolute) {
+    out.push({ kind: 'paragraph', parts: ['The size of the error, ', { text: `|${r.residualName}|`, code: true }, ', which a bound on the error must follow:'] });
+    out.push(rankingTable(r.absolute.ranking), ...noiseParagraph(r.absolute.ranking, r.absolute.noise));
+  }
+  if (r.next) {
+    out.push({
+      kind: 'paragraph',
+      parts: [
+        `Next term proposed by the formula search over ${r.next.from.join(', ')}: `,
+        { text: `${r.residualName} ≈ ${r.next.formula}`, code: true },
+        ` (held-out RMSE ${formatNumber(r.next.heldOutRmse)}). Fit next with the terms `,
+        { text: r.next.nextTerms.join('; '), code: true },
+        '.',
+      ],
+    });
+  }
+  for (const n of r.notes) out.push({ kind: 'paragraph', parts: [n] });
+  return out;
+}
+
 /** Fitted relations (coefficients, standard errors, intervals, fractions, warnings, residual plots) and the search front. */
 export function relationsSection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
   const fits = input.fits ?? [];

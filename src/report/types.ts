@@ -101,6 +101,23 @@ export interface ReportSearch {
   notes?: string[];
 }
 
+/** What a first fit leaves over, ranked (the run's `residual` key). */
+export interface ReportResidual {
+  target: string;
+  /** The first fit's equation text, e.g. `y ≈ 1.2 + 3·a^2`, and its figures. */
+  fit: string;
+  r2: number;
+  rmse: number;
+  residualName: string;
+  features: string[];
+  ranking: Interval[];
+  noise?: { probes: string; reference: number };
+  /** Ranking of |residual|, when run. */
+  absolute?: { ranking: Interval[]; noise?: { probes: string; reference: number } };
+  next: { from: string[]; formula: string; heldOutRmse: number; nextTerms: string[] } | null;
+  notes: string[];
+}
+
 export interface ReportWitness {
   row: number;
   lhs: number;
@@ -137,6 +154,7 @@ export interface ReportInput {
   scatter?: ReportScatter;
   fits?: ReportFit[];
   search?: ReportSearch;
+  residual?: ReportResidual;
   bounds?: ReportBound[];
   /** The resolved configuration, shown verbatim. */
   configText?: string;

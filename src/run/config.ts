@@ -52,6 +52,17 @@ const SearchSchema = z.strictObject({
   top: positiveInt.default(10),
 });
 
+/** Residual ranking: fit, then rank the remaining columns on what the fit leaves over (run/residual.ts). */
+const ResidualSchema = z.strictObject({
+  target: exprString,
+  terms: listOf(exprString, 1),
+  intercept: z.boolean().default(true),
+  from: listOf(z.string().min(1), 1).optional(),
+  absolute: z.boolean().default(true),
+  maxTerms: positiveInt.max(3).default(1),
+  powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
+});
+
 const BoundSchema = z.strictObject({
   lhs: exprString,
   rhs: listOf(exprString, 1),
@@ -76,6 +87,7 @@ export const RunConfigSchema = z.strictObject({
   attribution: AttributionSchema.prefault({}),
   fits: z.array(FitSchema).default([]),
   search: SearchSchema.optional(),
+  residual: ResidualSchema.optional(),
   bounds: z.array(BoundSchema).default([]),
   output: z.string().min(1).default('surmise-run'),
 });
@@ -89,6 +101,7 @@ const KNOWN_KEYS: Record<string, readonly string[]> = {
   attribution: Object.keys(AttributionSchema.shape),
   fits: Object.keys(FitSchema.shape),
   search: Object.keys(SearchSchema.shape),
+  residual: Object.keys(ResidualSchema.shape),
   bounds: Object.keys(BoundSchema.shape),
 };
 
@@ -188,6 +201,7 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
     else if (issue.code === 'too_small' && issue.origin === 'number') expected = `expected a number ≥ ${String(issue.minimum)}`;
     else if (issue.code === 'too_small' && issue.origin === 'array') expected = `expected a list of at least ${String(issue.minimum)} item(s)`;
     else if (issue.code === 'too_small' && issue.origin === 'string') expected = 'expected a non-empty text';
+    else if (issue.code === 'too_big' && issue.origin === 'number') expected = `expected a number ≤ ${String(issue.maximum)}`;
     else if (issue.code === 'invalid_value') expected = `expected one of ${issue.values.map((v) => `'${String(v)}'`).join(', ')}`;
     if (got === undefined) {
       throw new SurmiseError('config.missingKey', `${where(node?.range?.[0])}: missing required key '${keyPath(path)}'`);

@@ -12,6 +12,7 @@ import { VERSION } from '../version.ts';
 import { deriveColumn, evaluateExpression, readTable, type Table } from '../table/index.ts';
 import { rankFeatures, type RankProgress, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
+import { residualRanking, type ResidualResult } from './residual.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchResult } from '../relate/search.ts';
 import { findBound, type BoundResult } from '../bound/find.ts';
@@ -54,6 +55,8 @@ export interface RunResults {
   rank: RankResult | null;
   fits: FitResult[];
   search: SearchResult | null;
+  /** Residual ranking (config `residual`), or null. */
+  residual: ResidualResult | null;
   bounds: BoundResult[];
   evidence: string;
 }
@@ -245,6 +248,23 @@ function buildReportInput(
       notes: search.notes,
     };
   }
+  if (results.residual) {
+    const rr = results.residual;
+    const noiseOf = (r: RankResult) => (r.noise ? { noise: { probes: describeProbes(r.noise.probes), reference: r.noise.reference } } : {});
+    input.residual = {
+      target: rr.fit.target,
+      fit: `${rr.fit.target} ≈ ${rr.fit.terms.map((t) => `${Number(t.coef.toPrecision(6))}${t.term === '1' ? '' : `·${t.term}`}`).join(' + ')}`,
+      r2: rr.fit.r2,
+      rmse: rr.fit.rmse,
+      residualName: rr.residualName,
+      features: rr.features,
+      ranking: rr.ranking.ranking,
+      ...noiseOf(rr.ranking),
+      ...(rr.absolute ? { absolute: { ranking: rr.absolute.ranking, ...noiseOf(rr.absolute) } } : {}),
+      next: rr.next?.proposal ? { from: rr.next.from, formula: rr.next.proposal.formula, heldOutRmse: rr.next.proposal.heldOutRmse, nextTerms: rr.next.nextTerms! } : null,
+      notes: rr.notes,
+    };
+  }
   if (bounds.length) {
     input.bounds = bounds.map((b) => {
       const lhs = realValues(table, b.lhs);
@@ -325,6 +345,13 @@ function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string
     config.search.from.forEach((c, j) => expr(['search', 'from', j], c));
     inConfig(['search', 'powers'], at, () => parsePowers(config.search!.powers));
   }
+  if (config.residual) {
+    const r = config.residual;
+    expr(['residual', 'target'], r.target);
+    r.terms.forEach((t, j) => expr(['residual', 'terms', j], t));
+    r.from?.forEach((c, j) => expr(['residual', 'from', j], c));
+    inConfig(['residual', 'powers'], at, () => parsePowers(r.powers));
+  }
   config.bounds.forEach((b, i) => {
     expr(['bounds', i, 'lhs'], b.lhs);
     b.rhs.forEach((r, j) => expr(['bounds', i, 'rhs', j], r));
@@ -401,6 +428,33 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     timings.search = seconds(t0);
   }
 
+  let residual: ResidualResult | null = null;
+  if (config.residual) {
+    const rc = config.residual;
+    stage('ranking what the fit leaves over');
+    t0 = performance.now();
+    residual = await residualRanking(table, {
+      target: rc.target,
+      terms: rc.terms,
+      intercept: rc.intercept,
+      ...(rc.from ? { from: rc.from } : {}),
+      absolute: rc.absolute,
+      rank: {
+        methods: config.attribution.methods,
+        seeds: config.attribution.seeds,
+        folds: config.attribution.folds,
+        split: config.split,
+        hidden: config.network.hidden,
+        epochs: config.network.epochs,
+        probes: config.attribution.probes,
+      },
+      search: { maxTerms: rc.maxTerms, powers: parsePowers(rc.powers) },
+      seed: config.seed,
+      ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
+    });
+    timings.residual = seconds(t0);
+  }
+
   stage('testing bounds');
   t0 = performance.now();
   const bounds = config.bounds.map((b) =>
@@ -425,6 +479,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     rank,
     fits,
     search,
+    residual,
     bounds,
     evidence: 'These findings are statistical evidence on this table, not a proof.',
   };
