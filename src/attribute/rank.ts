@@ -15,9 +15,9 @@ import { SurmiseError } from '../errors.ts';
 import { deriveSeed, Rng } from '../util/rng.ts';
 import { trainNetwork } from '../learn/train.ts';
 import { trainMany } from '../learn/many.ts';
-import { ensureBackend } from '../learn/backend.ts';
 import { networkFromJSON, type TrainedNetwork } from '../learn/trained.ts';
 import { chooseTask, type Task } from '../learn/options.ts';
+import type { EngineChoice, EngineName } from '../learn/engines.ts';
 import { fitConstant } from '../learn/constant.ts';
 import { selectRidge } from '../learn/ridge.ts';
 import { evaluate, type Evaluation } from '../learn/evaluate.ts';
@@ -53,6 +53,8 @@ export interface RankOptions {
   epochs?: number;
   /** The one seed every other is derived from. Default 1. */
   seed?: number;
+  /** Network engine: 'auto' (native when it loads, else tfjs), 'native' or 'tfjs'. Default: learn's default. */
+  engine?: EngineChoice;
   /** Worker threads for training (learn's trainMany); 0 trains here with per-epoch progress. Default 0 (measured faster here; README). */
   workers?: number;
   /** Retrain without the K best groups and report the skill left. Default 0 (off). */
@@ -141,7 +143,7 @@ export interface RankResult {
   task: Task;
   features: string[];
   groups: Array<{ name: string; members: string[] }>;
-  model: Skill & { baselines: { constant: Skill; ridge: Skill }; hidden: number[]; epochsRun: number[] };
+  model: Skill & { baselines: { constant: Skill; ridge: Skill }; hidden: number[]; epochsRun: number[]; engine: EngineName };
   /** The consensus of the methods run (or the one method), best first. */
   ranking: RankEntry[];
   rankingMethod: 'consensus' | AttributionMethod;
@@ -295,7 +297,7 @@ async function* trainAll(
   datas: readonly RepeatData[],
   seeds: readonly number[],
   task: Task,
-  o: { hidden: number[]; epochs: number; workers: number; integerTarget: boolean },
+  o: { hidden: number[]; epochs: number; workers: number; integerTarget: boolean; engine?: EngineChoice },
   onUnits: (done: number, message: string) => void,
   labels: readonly string[],
 ): AsyncGenerator<Fit> {
@@ -307,6 +309,7 @@ async function* trainAll(
     learningRate: RANK_DEFAULTS.learningRate,
     seed,
     task,
+    ...(o.engine ? { engine: o.engine } : {}),
   });
   const score = (net: TrainedNetwork, d: RepeatData): Fit => {
     const e = evaluate(net, d.test);
@@ -331,8 +334,7 @@ async function* trainAll(
         },
       },
     );
-    await ensureBackend();
-    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!);
+    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!); // on the engine trainMany loaded
     return;
   }
   for (let r = 0; r < datas.length; r++) {
@@ -420,6 +422,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const byMethod = new Map<AttributionMethod, RepeatScores[]>(methods.map((m) => [m, []]));
   const scores = new Scores();
   const epochsRun: number[] = [];
+  let engine: EngineName | undefined;
   const completeness: RankResult['completeness'] = [];
   const repeatsInfo: RankResult['repeats'] = [];
   const metric: 'r2' | 'accuracy' = task === 'regression' ? 'r2' : 'accuracy';
@@ -428,7 +431,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const dsProbed = probes.length ? withProbes(ds, probes, probeColumns(ds, probes, deriveSeed(seed, 'probes'))) : ds;
   const datas = plans.map((plan) => repeatData(dsProbed, plan, probes.length ? allWithProbes : all));
   let predictions: RankResult['predictions'];
-  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers, integerTarget }, (u, m) => report('train', u, m), plans.map((q) => q.label));
+  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers, integerTarget, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
     const d = datas[r]!;
@@ -438,6 +441,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     try {
       scores.add(fit);
       epochsRun.push(fit.epochsRun);
+      engine ??= fit.net.engine;
       report('attribute', (r + 1) * unitsPerRepeat, `${label}: attributing`);
       const rows = subsample(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
       const xa = new Float64Array(rows.length * pk);
@@ -497,6 +501,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       baselines: { constant: skill(metric, scores.constant, scores.constant2, scores.constantExact), ridge: skill(metric, scores.ridge, scores.ridge2, scores.ridgeExact) },
       hidden,
       epochsRun,
+      engine: engine!,
     },
     ranking: marked(consensusAll),
     rankingMethod: methods.length > 1 ? 'consensus' : methods[0]!,
@@ -531,7 +536,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const abScores = new Scores();
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
-    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers, integerTarget }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
+    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers, integerTarget, engine: options.engine }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
       fit.net.dispose();
       abScores.add(fit);
     }

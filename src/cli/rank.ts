@@ -14,12 +14,13 @@ import { formatDropReport } from '../table/dataset.ts';
 import { rankFeatures, RANK_DEFAULTS, type RankResult, type RankEntry } from '../attribute/rank.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod } from '../attribute/types.ts';
 import { MAX_PROBES, describeProbes } from '../attribute/probes.ts';
-import { collect, parseNonNegativeInt, parsePositiveInt, parseIntOption } from './options.ts';
+import { collect, parseEngine, parseNonNegativeInt, parsePositiveInt, parseIntOption } from './options.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
 
 interface RankCliOptions {
   target: string;
+  engine: string;
   features?: string;
   exclude?: string;
   derive: string[];
@@ -133,7 +134,7 @@ export function formatRank(r: RankResult, source: string): string {
   const secName = sec ? (sec.metric === 'rmse' ? 'RMSE' : 'balanced accuracy') : '';
   const also = (s: { secondary?: { score: number } }) => (sec && s.secondary ? `   ${secName} ${fmt(s.secondary.score)}` : '');
   L.push(`held-out ${metricName}${sec ? ` and ${secName}` : ''} (mean over repeats):`);
-  L.push(`  network ${r.model.hidden.join('×') || 'linear'}   ${fmt(r.model.score)}${also(r.model)}   (per repeat ${r.model.perRepeat.map((v) => fmt(v)).join(', ')})`);
+  L.push(`  network ${r.model.hidden.join('×') || 'linear'} (${r.model.engine} engine)   ${fmt(r.model.score)}${also(r.model)}   (per repeat ${r.model.perRepeat.map((v) => fmt(v)).join(', ')})`);
   L.push(`  ridge baseline       ${fmt(r.model.baselines.ridge.score)}${also(r.model.baselines.ridge)}`);
   L.push(`  constant baseline    ${fmt(r.model.baselines.constant.score)}${also(r.model.baselines.constant)}`);
   if (r.model.roundedExact) {
@@ -209,6 +210,7 @@ export function registerRank(program: Command, io: CliIO): void {
     .option('--permutation-loss <loss>', 'classification loss for permutation importance: error (drop in accuracy) | cross-entropy', 'error')
     .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
     .option('--probes <n>', `noise probes per repeat (half permuted copies of features, half Gaussian columns; 0 = none, at most ${MAX_PROBES})`, String(RANK_DEFAULTS.probes))
+    .option('--engine <engine>', 'network engine: auto (native when it loads) | native | tfjs', 'auto')
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
     .option('--out <dir>', 'also write rank.json into this folder')
@@ -246,6 +248,7 @@ export function registerRank(program: Command, io: CliIO): void {
         dropTop: parseNonNegativeInt('--drop-top', o.dropTop),
         workers: parseNonNegativeInt('--workers', o.workers),
         probes: parseProbes(o.probes),
+        engine: parseEngine(o.engine),
         permutationLoss: o.permutationLoss as 'error' | 'cross-entropy',
       };
       let outFile: string | undefined;
