@@ -30,5 +30,5 @@ export {
   type NoiseLevel,
   type Skill,
 } from './rank.ts';
-export { describeProbes, MAX_PROBES, noiseReference, planProbes, probeColumns, type ProbeSpec } from './probes.ts';
+export { describeProbes, noiseReference, planProbes, probeColumns, type ProbeSpec } from './probes.ts';
 export { roundedHitRate } from './rounded.ts';

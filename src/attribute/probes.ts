@@ -22,9 +22,6 @@ export interface ProbeSpec {
   of?: string;
 }
 
-/** Most probes a ranking may ask for (each costs one input of the network and one attribution group). */
-export const MAX_PROBES = 50;
-
 /**
  * Which probes: ⌈count/2⌉ permuted copies of features drawn without replacement (seeded; cycling
  * when there are fewer features) and ⌊count/2⌋ Gaussian columns.

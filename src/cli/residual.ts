@@ -7,7 +7,7 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
-import { collect, parseIntOption, parseNonNegativeInt, parsePositiveInt } from './options.ts';
+import { collect, parseIntOption, parseNonNegativeInt, parsePositiveInt, rangeHelp } from './options.ts';
 import { makeProgress } from './progress.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
@@ -16,7 +16,8 @@ import { withDerived } from '../relate/rows.ts';
 import { toJson } from '../relate/text.ts';
 import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
-import { residualRanking, type ResidualResult } from '../run/residual.ts';
+import { residualRanking, RESIDUAL_LIMITS, type ResidualResult } from '../run/residual.ts';
+import { RANK_LIMITS } from '../attribute/limits.ts';
 import { parseHidden, parseMethods, parseNameList, parseProbes, rankingTable } from './rank.ts';
 import { splitTerms } from './fit.ts';
 import { parsePowers } from './search.ts';
@@ -43,8 +44,6 @@ interface ResidualCliOptions {
   progress: boolean;
 }
 
-/** Most terms the next-term search may add (each step multiplies the subsets tried). */
-const MAX_NEXT_TERMS = 3;
 
 const f3 = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? 'n/a' : x.toFixed(3));
 
@@ -96,7 +95,7 @@ export function registerResidual(program: Command, io: CliIO): void {
     .option('--probes <n>', 'noise probes per repeat (0 = none, at most 50)', String(RANK_DEFAULTS.probes))
     .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
     .option('--no-absolute', 'do not rank the absolute residual')
-    .option('--max-terms <k>', `most terms the next-term search adds (1..${MAX_NEXT_TERMS})`, '1')
+    .option('--max-terms <k>', `most terms the next-term search adds${rangeHelp(RESIDUAL_LIMITS.maxTerms)}`, '1')
     .option('--powers <lo..hi>', 'integer powers for the next-term search', '-3..3')
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object')
@@ -107,16 +106,15 @@ export function registerResidual(program: Command, io: CliIO): void {
       }
       const seed = parseIntOption('--seed', o.seed);
       if (seed < 0 || seed > 0xffffffff) throw new SurmiseError('option.badInteger', `expected --seed to be an integer in [0, 4294967295], got ${o.seed}`);
-      const maxTerms = parsePositiveInt('--max-terms', o.maxTerms);
-      if (maxTerms > MAX_NEXT_TERMS) throw new SurmiseError('option.badInteger', `expected --max-terms to be at most ${MAX_NEXT_TERMS}, got ${o.maxTerms}`);
+      const maxTerms = parsePositiveInt('--max-terms', o.maxTerms, RESIDUAL_LIMITS.maxTerms.max);
       const rank = {
         methods: parseMethods(o.method),
-        seeds: parsePositiveInt('--seeds', o.seeds),
+        seeds: parsePositiveInt('--seeds', o.seeds, RANK_LIMITS.seeds.max),
         ...(o.split !== undefined ? { split: o.split } : {}),
         hidden: parseHidden(o.hidden),
-        epochs: parsePositiveInt('--epochs', o.epochs),
+        epochs: parsePositiveInt('--epochs', o.epochs, RANK_LIMITS.epochs.max),
         probes: parseProbes(o.probes),
-        workers: parseNonNegativeInt('--workers', o.workers),
+        workers: parseNonNegativeInt('--workers', o.workers, RANK_LIMITS.workers.max),
       };
       const terms = splitTerms(o.terms);
       const powers = parsePowers(o.powers);

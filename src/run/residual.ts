@@ -7,11 +7,20 @@
  * top of them. Evidence on this table, not a proof.
  */
 import { SurmiseError, didYouMean } from '../errors.ts';
+import { checkInteger, type IntegerRange } from '../util/integer.ts';
 import type { Column, Table } from '../table/types.ts';
 import { expressionColumns, parseExpression } from '../table/expr/index.ts';
 import { rankFeatures, type RankOptions, type RankProgress, type RankResult } from '../attribute/rank.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
+
+/** Ranges of the residual ranking's own count options (the ranking's are RANK_LIMITS). */
+export const RESIDUAL_LIMITS = Object.freeze({
+  /** Terms the next-term search may add: each more multiplies the subsets tried. */
+  maxTerms: { min: 1, max: 3 },
+  /** Leading columns the next-term search draws from. */
+  columns: { min: 1, max: 20 },
+} satisfies Record<string, IntegerRange>);
 
 export interface ResidualSpec {
   target: string;
@@ -72,6 +81,8 @@ function realColumn(name: string, n: number, rows: Int32Array, values: ArrayLike
 /** Fit, rank the remaining columns on the residual (and |residual|), and search the next term. */
 export async function residualRanking(table: Table, spec: ResidualSpec): Promise<ResidualResult> {
   const seed = spec.seed ?? spec.rank?.seed ?? 1;
+  if (spec.search?.maxTerms !== undefined) checkInteger('maxTerms', spec.search.maxTerms, RESIDUAL_LIMITS.maxTerms, 'residual.badOption');
+  if (spec.search?.columns !== undefined) checkInteger('columns', spec.search.columns, RESIDUAL_LIMITS.columns, 'residual.badOption');
   const fitFull = fitRelation(table, { target: spec.target, terms: spec.terms, intercept: spec.intercept ?? true, seed, keepResiduals: true });
   const { residuals, ...fit } = fitFull;
   const res = residuals!;

@@ -100,7 +100,7 @@ describe('surmise rank', () => {
       [['--split', 'kfold:1'], /kfold needs a whole number of folds >= 2/],
       [['--permutation-loss', 'entropy'], /--permutation-loss entropy: expected error or cross-entropy/],
       [['--workers', '-1'], /expected --workers to be a non-negative integer, got -1/],
-      [['--probes', '51'], /expected --probes to be at most 50, got 51/],
+      [['--probes', '51'], /expected --probes to be at most 50 \(its ceiling\), got 51/],
       [['--engine', 'gpu'], /--engine gpu: expected one of auto, native, tfjs \[option\.badEngine\]/],
     ];
     for (const [args, re] of cases) {

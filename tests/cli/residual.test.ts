@@ -43,8 +43,8 @@ describe('surmise residual', () => {
     expect(j.ranking.ranking.map((e: { feature: string }) => e.feature).sort()).toEqual(['b', 'c']);
     expect(j.fit.terms.map((t: { term: string }) => t.term)).toEqual(['1', 'a']);
     const cases: Array<[string[], RegExp]> = [
-      [['--max-terms', '4'], /expected --max-terms to be at most 3, got 4/],
-      [['--probes', '99'], /expected --probes to be at most 50, got 99/],
+      [['--max-terms', '4'], /expected --max-terms to be at most 3 \(its ceiling\), got 4/],
+      [['--probes', '99'], /expected --probes to be at most 50 \(its ceiling\), got 99/],
       [['--from', 'a,,b'], /--from a,,b: expected comma-separated names with none empty/],
       [['--powers', '3..1'], /--powers 3\.\.1: the lower end 3 exceeds the upper end 1/],
     ];

@@ -69,8 +69,8 @@ describe('run configuration', () => {
     expect(config.residual).toEqual({ target: 'y', terms: ['a^2'], intercept: true, absolute: true, maxTerms: 1, powers: '-3..3' });
     expect(config.attribution.probes).toBe(6);
     expect(refusal('table: a.csv\ntarget: y\nattribution:\n  probes: 51\n')).toEqual({
-      code: 'config.badValue',
-      message: 'cfg.yaml:4:11: attribution.probes: expected a number ≤ 50, got 51',
+      code: 'option.tooLarge',
+      message: 'cfg.yaml:4:11: attribution.probes: expected at most 50 (its ceiling), got 51',
     });
     expect(refusal('table: a.csv\ntarget: y\nresidual:\n  target: y\n  terms: [a]\n  maxTerm: 2\n')).toEqual({
       code: 'config.unknownKey',
