@@ -165,26 +165,54 @@ function swapF(a: Float64Array, i: number, j: number): void {
   a[j] = t;
 }
 
-/**
- * The type-7 quantile at `p` of the ratio within each stratum (strata as returned by
- * equalCountStrata: a row belongs to the last stratum whose `low` is ≤ its `by`). O(n log k + n).
- * @example stratumQuantiles(by, ratio, rows, strata, 0.9) // [q₀.₉ of stratum 1, …]
- */
-export function stratumQuantiles(by: Float64Array, ratio: Float64Array, rows: Int32Array, strata: Stratum[], p: number): { p: number; values: number[] } {
-  const k = strata.length;
-  const buckets = strata.map((s) => new Float64Array(s.n));
-  const fill = new Int32Array(k);
+/** Strata of `by` fixed once (they do not depend on the ratio), for many ratios along the same quantity. */
+export interface Stratification {
+  /** The strata with `constant` and `witness` not yet meaningful. */
+  shells: Stratum[];
+  /** Stratum of rows[t], for each position t. */
+  of: Uint16Array;
+  rows: Int32Array;
+  by: Float64Array;
+}
+
+/** The equal-count strata of `by` over `rows` (see equalCountStrata) and the stratum of every row. */
+export function stratify(by: Float64Array, rows: Int32Array, bins: number): Stratification {
+  const shells = equalCountStrata(by, by, rows, Math.min(bins, 65535), true);
+  const k = shells.length;
+  const of = new Uint16Array(rows.length);
   for (let t = 0; t < rows.length; t++) {
-    const r = rows[t]!;
-    const b = by[r]!;
+    const b = by[rows[t]!]!;
     let lo = 0;
     let hi = k - 1;
     while (lo < hi) {
       const mid = (lo + hi + 1) >>> 1;
-      if (strata[mid]!.low <= b) lo = mid;
+      if (shells[mid]!.low <= b) lo = mid;
       else hi = mid - 1;
     }
-    buckets[lo]![fill[lo]!++] = ratio[r]!;
+    of[t] = lo;
   }
-  return { p, values: buckets.map((a, s) => quantilesType7InPlace(a.subarray(0, fill[s]!), [p])[0]!) };
+  return { shells, of, rows, by };
+}
+
+/**
+ * Per stratum: the tightest constant (max ratio, lower form min; ties to the earlier row) with its
+ * row, and the type-7 quantile at `p` of the ratio (Hyndman & Fan 1996). One pass plus one
+ * selection per stratum, O(n).
+ */
+export function stratumStats(st: Stratification, ratio: Float64Array, upper: boolean, p: number): { strata: Stratum[]; q: { p: number; values: number[] } } {
+  const { shells, of, rows } = st;
+  const k = shells.length;
+  const buckets = shells.map((s) => new Float64Array(s.n));
+  const fill = new Int32Array(k);
+  const best = new Int32Array(k).fill(-1);
+  for (let t = 0; t < rows.length; t++) {
+    const r = rows[t]!;
+    const s = of[t]!;
+    const v = ratio[r]!;
+    buckets[s]![fill[s]!++] = v;
+    const w = best[s]!;
+    if (w < 0 || (upper ? v > ratio[w]! || (v === ratio[w]! && r < w) : v < ratio[w]! || (v === ratio[w]! && r < w))) best[s] = r;
+  }
+  const strata = shells.map((sh, s) => ({ ...sh, constant: ratio[best[s]!]!, witness: best[s]! }));
+  return { strata, q: { p, values: buckets.map((a, s) => quantilesType7InPlace(a.subarray(0, fill[s]!), [p])[0]!) } };
 }
