@@ -8,6 +8,7 @@ import { dirname, resolve } from 'node:path';
 import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
 import { z } from 'zod';
 import { SurmiseError, didYouMean } from '../errors.ts';
+import { DISCOVER_OPTIONS } from '../bound/discover.ts';
 
 const positiveInt = z.number().int().min(1);
 const nonNegativeInt = z.number().int().min(0);
@@ -57,6 +58,20 @@ const BoundSchema = z.strictObject({
   skipInvalid: z.boolean().default(false),
 });
 
+/** Right-hand-side discovery: ranges and defaults from the bound stage's one options table. */
+const DiscoverSchema = z.strictObject({
+  lhs: exprString,
+  from: listOf(exprString, 1),
+  lower: z.boolean().default(false),
+  skipInvalid: z.boolean().default(false),
+  ...Object.fromEntries(
+    DISCOVER_OPTIONS.filter((o) => o.key !== 'seed').map((o) => {
+      const n = (o.integer ? z.number().int() : z.number()).min(o.min).max(o.max);
+      return [o.key, o.default === null ? n.optional() : n.default(o.default)];
+    }),
+  ),
+});
+
 export const RunConfigSchema = z.strictObject({
   table: z.string().min(1),
   format: z.enum(['csv', 'tsv', 'json', 'jsonl']).optional(),
@@ -73,6 +88,7 @@ export const RunConfigSchema = z.strictObject({
   fits: z.array(FitSchema).default([]),
   search: SearchSchema.optional(),
   bounds: z.array(BoundSchema).default([]),
+  discover: z.array(DiscoverSchema).default([]),
   output: z.string().min(1).default('surmise-run'),
 });
 
@@ -86,6 +102,7 @@ const KNOWN_KEYS: Record<string, readonly string[]> = {
   fits: Object.keys(FitSchema.shape),
   search: Object.keys(SearchSchema.shape),
   bounds: Object.keys(BoundSchema.shape),
+  discover: Object.keys(DiscoverSchema.shape),
 };
 
 export interface LoadedConfig {

@@ -14,6 +14,7 @@ import { rankFeatures, type RankProgress, type RankResult } from '../attribute/r
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchResult } from '../relate/search.ts';
 import { findBound, type BoundResult } from '../bound/find.ts';
+import { discoverBound, type DiscoverResult } from '../bound/discover.ts';
 import { largestIndices, renderReport, sampleIndices, type ReportInput } from '../report/index.ts';
 import { keyPath, type RunConfig, type LoadedConfig } from './config.ts';
 import { parseSplitSpec } from '../table/split.ts';
@@ -54,6 +55,8 @@ export interface RunResults {
   fits: FitResult[];
   search: SearchResult | null;
   bounds: BoundResult[];
+  /** Right-hand-side searches (config key `discover`), in order. */
+  discoveries: DiscoverResult[];
   evidence: string;
 }
 
@@ -143,7 +146,9 @@ function buildReportInput(
   table: Table,
   configText: string,
 ): ReportInput {
-  const { config, rank, fits, search, bounds } = results;
+  const { config, rank, fits, search } = results;
+  // each search's proposals are shown as bounds along its first quantity
+  const bounds = [...results.bounds, ...results.discoveries.map(discoveryAsBounds)];
   const input: ReportInput = {
     title: `surmise: what predicts ${config.target}`,
     createdAt: results.createdAt,
@@ -265,6 +270,7 @@ function buildReportInput(
               lhs: w.lhs,
               rhs: w.rhs,
               ratio: w.ratio,
+              by: w.by,
               labels: Object.fromEntries(Object.entries(w.labels).map(([k, v]) => [k, v === null ? '' : String(v)])),
             })),
             quantiles,
@@ -318,6 +324,10 @@ function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string
     config.search.from.forEach((c, j) => expr(['search', 'from', j], c));
     inConfig(['search', 'powers'], at, () => parsePowers(config.search!.powers));
   }
+  config.discover.forEach((d, i) => {
+    expr(['discover', i, 'lhs'], d.lhs);
+    d.from.forEach((f, j) => expr(['discover', i, 'from', j], f));
+  });
   config.bounds.forEach((b, i) => {
     expr(['bounds', i, 'lhs'], b.lhs);
     b.rhs.forEach((r, j) => expr(['bounds', i, 'rhs', j], r));
@@ -398,6 +408,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
   const bounds = config.bounds.map((b) =>
     findBound(table, { lhs: b.lhs, rhs: b.rhs, ...(b.by ? { by: b.by } : {}), bins: b.bins, top: b.top, skipInvalid: b.skipInvalid }),
   );
+  const discoveries = config.discover.map((d) => discoverBound(table, { ...d, seed: config.seed }));
   timings.bound = seconds(t0);
 
   const configText = stringify({ ...config, table: config.table, output: outDir });
@@ -418,6 +429,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     fits,
     search,
     bounds,
+    discoveries,
     evidence: 'These findings are statistical evidence on this table, not a proof.',
   };
 
@@ -448,4 +460,34 @@ export function jsonReplacer(_key: string, value: unknown): unknown {
   if (typeof value === 'number' && !Number.isFinite(value)) return String(value);
   if (ArrayBuffer.isView(value) && !(value instanceof DataView)) return Array.from(value as unknown as ArrayLike<number>);
   return value;
+}
+
+/** A right-hand-side search seen as bounds along its first quantity, for the report. */
+function discoveryAsBounds(d: DiscoverResult): BoundResult {
+  const by = d.from[0]!;
+  return {
+    source: d.source,
+    lhs: d.lhs,
+    by,
+    form: d.form,
+    n: d.n,
+    dropped: d.dropped,
+    results: d.proposals.map((p) => {
+      const { strata, ...trend } = p.trend.along[by]!;
+      return {
+        rhs: p.rhs,
+        by,
+        constant: p.constant,
+        n: d.used,
+        dropped: d.dropped,
+        witnesses: p.witnesses,
+        quantiles: [],
+        quantileDefinition: '',
+        strata,
+        trend,
+        extremeStratum: null,
+        notes: [],
+      };
+    }),
+  };
 }

@@ -127,6 +127,7 @@ describe('rerun and compare', () => {
       'attribution: { methods: [saliency, permutation], seeds: 1 }',
       'fits: [{ target: slope, terms: [sig] }]',
       'bounds: [{ lhs: abs(2*sig - slope), rhs: [vol, vol/inj], by: inj, bins: 5 }]',
+      'discover: [{ lhs: abs(2*sig - slope), from: [vol, inj], proposals: 2, skipInvalid: true }]',
       'output: small-run',
     ].join('\n') + '\n',
   );
@@ -142,6 +143,10 @@ describe('rerun and compare', () => {
     expect(same.rank!.model.score).toBe(a.rank!.model.score);
     expect(same.fits).toEqual(a.fits);
     expect(same.bounds).toEqual(a.bounds);
+    // the config key `discover` searches the rhs: the demo census's planted vol/inj (src/demo/census.ts) comes first
+    expect(a.discoveries[0]!.proposals[0]!.rhs).toBe('vol/inj');
+    expect(same.discoveries).toEqual(a.discoveries);
+    expect(readFileSync(join(runA, 'report.md'), 'utf8')).toContain('abs(2*sig - slope) ≤ c · (vol/inj)');
 
     // Plant a change: one row now breaks the planted bound three times over.
     const changed = lines.slice(0, 4001);
