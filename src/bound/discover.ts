@@ -215,11 +215,7 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
   const ratio = new Float64Array(n);
   const evaluated: Array<{ key: string; exps: SmallRational[]; envelope: number[]; sc: number; hc: number; exceed: number; gap: number; along: Array<ReturnType<typeof trendAlong>>; trended: number; complexity: number }> = [];
   for (const [key, c] of candidates) {
-    for (const i of keep) {
-      let r = 1;
-      for (let j = 0; j < d; j++) if (c.exps[j]!.num !== 0) r *= Math.pow(xs[j]!.values[i]!, c.exps[j]!.value);
-      ratio[i] = lhs.values[i]! / r;
-    }
+    monomialRatio(lhs.values, xs.map((x) => x.values), c.exps, rows, ratio);
     let sc = upper ? -Infinity : Infinity;
     for (let t = 0; t < sel.length; t++) sc = upper ? Math.max(sc, ratio[sel[t]!]!) : Math.min(sc, ratio[sel[t]!]!);
     let hc = upper ? -Infinity : Infinity;
@@ -257,11 +253,7 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
   const proposals: BoundProposal[] = [];
   for (const e of evaluated.slice(0, o.proposals)) {
     const rhsText = monomialText(o.from, e.exps);
-    for (const i of keep) {
-      let r = 1;
-      for (let j = 0; j < d; j++) if (e.exps[j]!.num !== 0) r *= Math.pow(xs[j]!.values[i]!, e.exps[j]!.value);
-      ratio[i] = lhs.values[i]! / r;
-    }
+    monomialRatio(lhs.values, xs.map((x) => x.values), e.exps, rows, ratio);
     const w = topK(ratio, rows, o.top, upper);
     const sup = estimateSupremum(ratio, rows, { upper, ...(o.exceedances !== null ? { exceedances: o.exceedances } : {}) });
     const along: Record<string, Trend & { strata: BoundStratum[] }> = {};
@@ -313,6 +305,28 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
 function witness(table: Table, idCols: ReturnType<typeof idColumns>, i: number, lhs: RealValues, ratio: number): BoundWitness {
   const l = lhs.values[i]!;
   return { row: i + 1, line: table.lines ? table.lines[i]! : null, labels: labelsOf(idCols, i), lhs: l, rhs: l / ratio, ratio, by: l / ratio };
+}
+
+/**
+ * ratio[i] = lhs[i] / Π x_j[i]^{e_j} for i in rows, computed directly (not through logarithms) so
+ * that equality cases come out exact: powers ±1 and ±2 by multiplication, the rest by Math.pow.
+ */
+export function monomialRatio(lhs: Float64Array, xs: readonly Float64Array[], exps: readonly SmallRational[], rows: Int32Array, ratio: Float64Array): void {
+  const n = rows.length;
+  for (let t = 0; t < n; t++) ratio[rows[t]!] = 1;
+  exps.forEach((e, j) => {
+    if (e.num === 0) return;
+    const x = xs[j]!;
+    const v = e.value;
+    if (v === 1) for (let t = 0; t < n; t++) ratio[rows[t]!]! *= x[rows[t]!]!;
+    else if (v === 2) for (let t = 0; t < n; t++) ratio[rows[t]!]! *= x[rows[t]!]! * x[rows[t]!]!;
+    else if (v === -1) for (let t = 0; t < n; t++) ratio[rows[t]!]! *= 1 / x[rows[t]!]!;
+    else for (let t = 0; t < n; t++) ratio[rows[t]!]! *= Math.pow(x[rows[t]!]!, v);
+  });
+  for (let t = 0; t < n; t++) {
+    const r = rows[t]!;
+    ratio[r] = lhs[r]! / ratio[r]!;
+  }
 }
 
 /** `s^2`, `A*B`, `x^(1/2)/y`, `1/z^3`, `1` — in the table's expression language. */

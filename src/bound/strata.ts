@@ -202,17 +202,20 @@ export function stratify(by: Float64Array, rows: Int32Array, bins: number): Stra
 export function stratumStats(st: Stratification, ratio: Float64Array, upper: boolean, p: number): { strata: Stratum[]; q: { p: number; values: number[] } } {
   const { shells, of, rows } = st;
   const k = shells.length;
-  const buckets = shells.map((s) => new Float64Array(s.n));
-  const fill = new Int32Array(k);
+  // one scratch array, stratum s filling [start[s], start[s] + n_s)
+  const scratch = new Float64Array(rows.length);
+  const start = new Int32Array(k + 1);
+  for (let s = 0; s < k; s++) start[s + 1] = start[s]! + shells[s]!.n;
+  const fill = Int32Array.from(start.subarray(0, k));
   const best = new Int32Array(k).fill(-1);
   for (let t = 0; t < rows.length; t++) {
     const r = rows[t]!;
     const s = of[t]!;
     const v = ratio[r]!;
-    buckets[s]![fill[s]!++] = v;
+    scratch[fill[s]!++] = v;
     const w = best[s]!;
     if (w < 0 || (upper ? v > ratio[w]! || (v === ratio[w]! && r < w) : v < ratio[w]! || (v === ratio[w]! && r < w))) best[s] = r;
   }
   const strata = shells.map((sh, s) => ({ ...sh, constant: ratio[best[s]!]!, witness: best[s]! }));
-  return { strata, q: { p, values: buckets.map((a, s) => quantilesType7InPlace(a.subarray(0, fill[s]!), [p])[0]!) } };
+  return { strata, q: { p, values: shells.map((_, s) => quantilesType7InPlace(scratch.subarray(start[s]!, fill[s]!), [p])[0]!) } };
 }
