@@ -130,22 +130,19 @@ describe('surmise bound', () => {
     expect(out).toMatch(/Hyndman & Fan \(1996\) type 7/);
   });
 
-  // The demo census's documented model (src/demo/census.ts; the project's own model, not an outside source):
-  // the planted bound |2·sig − slope| ≤ 0.1·vol/inj should be found among monomials of vol, inj and geo.
-  it('--from searches the rhs: the planted vol/inj comes first with c = 0.1, in the JSON contract', async () => {
-    const { code, out, err } = await run([
-      'census.csv', '--lhs', 'abs(2*sig - natural_slope(lon, mer))', '--from', 'vol,inj,geo', '--skip-invalid', '--json', '--proposals', '3',
-    ]);
+  // The planted table above (invented): |2a − z| ≤ 0.1·b/w should be found among monomials of b and w.
+  it('--from searches the rhs: the planted b/w comes first with c = 0.1, in the JSON contract', async () => {
+    const { code, out, err } = await run(['planted.csv', '--lhs', 'abs(2*a - z)', '--from', 'b,w', '--json', '--proposals', '3']);
     expect(err).toBe('');
     expect(code).toBe(0);
     const j = JSON.parse(out);
     expect(j.proposals).toHaveLength(3);
     const best = j.proposals[0];
     expect(Object.keys(best)).toEqual(expect.arrayContaining(['rhs', 'exponents', 'constant', 'heldOutConstant', 'heldOutExceed', 'supremum', 'trend']));
-    expect(best.rhs).toBe('vol/inj');
-    expect(best.exponents).toEqual({ vol: 1, inj: -1, geo: 0 });
-    expect(best.constant).toBeLessThanOrEqual(PLANTED_BOUND_CONSTANT);
-    expect(best.constant).toBeGreaterThan(0.99 * PLANTED_BOUND_CONSTANT);
+    expect(best.rhs).toBe('b/w');
+    expect(best.exponents).toEqual({ b: 1, w: -1 });
+    expect(best.constant).toBeLessThanOrEqual(PLANTED_C * (1 + 1e-9));
+    expect(best.constant).toBeGreaterThan(0.99 * PLANTED_C);
     expect(best.trend.kind).toBe('none');
     expect(best.heldOutExceed).toBeLessThanOrEqual(3);
   });
@@ -175,7 +172,7 @@ describe('surmise bound', () => {
     expect(none.err).toMatch(/give a right-hand side with --rhs, or search for one with --from/);
     const stray = await run(['taylor.csv', '--lhs', 'x', '--rhs', 'x', '--max-exponent', '3']);
     expect(stray.err).toBe('surmise: --max-exponent applies to --from [option.conflict]\n');
-    const big = await run(['census.csv', '--lhs', 'vol', '--from', 'inj', '--max-exponent', '99']);
+    const big = await run(['planted.csv', '--lhs', 'b', '--from', 'w', '--max-exponent', '99']);
     expect(big.code).toBe(2);
     expect(big.err).toBe("surmise: expected --max-exponent to be an integer from 1 to 12, got '99' [option.badValue]\n");
   });
