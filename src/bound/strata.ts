@@ -35,55 +35,8 @@ export function equalCountStrata(
   bins: number,
   upper: boolean,
 ): Stratum[] {
-  const m = rows.length;
-  if (m === 0 || bins < 1) return [];
-  const a = new Float64Array(m);
-  for (let t = 0; t < m; t++) a[t] = by[rows[t]!]!;
-  const cuts = evenCuts(a, bins) ?? tieAwareCuts(a, bins);
-  const k = cuts.length - 1;
-  // stratum s holds the values from its smallest (its threshold) up to the next stratum's threshold
-  const thresholds = new Float64Array(k);
-  for (let s = 0; s < k; s++) {
-    let low = Infinity;
-    for (let j = cuts[s]!; j < cuts[s + 1]!; j++) if (a[j]! < low) low = a[j]!;
-    thresholds[s] = low;
-  }
-  const best = new Int32Array(k).fill(-1);
-  const count = new Int32Array(k);
-  for (let t = 0; t < m; t++) {
-    const r = rows[t]!;
-    const b = by[r]!;
-    // largest s with thresholds[s] ≤ b
-    let lo = 0;
-    let hi = k - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >>> 1;
-      if (thresholds[mid]! <= b) lo = mid;
-      else hi = mid - 1;
-    }
-    count[lo]!++;
-    const w = best[lo]!;
-    if (w < 0) {
-      best[lo] = r;
-      continue;
-    }
-    const v = ratio[r]!;
-    const bv = ratio[w]!;
-    if (upper ? v > bv || (v === bv && r < w) : v < bv || (v === bv && r < w)) best[lo] = r;
-  }
-  const out: Stratum[] = [];
-  for (let s = 0; s < k; s++) {
-    const lo = cuts[s]!;
-    const hi = cuts[s + 1]! - 1;
-    let low = Infinity;
-    let high = -Infinity;
-    for (let j = lo; j <= hi; j++) {
-      if (a[j]! < low) low = a[j]!;
-      if (a[j]! > high) high = a[j]!;
-    }
-    out.push({ low, high, n: count[s]!, constant: ratio[best[s]!]!, centre: medianOfRange(a, lo, hi), witness: best[s]! });
-  }
-  return out;
+  if (rows.length === 0 || bins < 1) return [];
+  return stratumStats(stratify(by, rows, bins), ratio, upper, 0.5).strata;
 }
 
 /**
@@ -175,13 +128,34 @@ export interface Stratification {
   by: Float64Array;
 }
 
-/** The equal-count strata of `by` over `rows` (see equalCountStrata) and the stratum of every row. */
+/**
+ * The equal-count strata of `by` over `rows` (the cutting rule of equalCountStrata) and the stratum
+ * of every row: selection for the cuts, then one pass with a binary search per row.
+ */
 export function stratify(by: Float64Array, rows: Int32Array, bins: number): Stratification {
-  const shells = equalCountStrata(by, by, rows, Math.min(bins, 65535), true);
-  const k = shells.length;
-  const of = new Uint16Array(rows.length);
-  for (let t = 0; t < rows.length; t++) {
+  const m = rows.length;
+  const of = new Uint16Array(m);
+  if (m === 0 || bins < 1) return { shells: [], of, rows, by };
+  const a = new Float64Array(m);
+  for (let t = 0; t < m; t++) a[t] = by[rows[t]!]!;
+  const cuts = evenCuts(a, Math.min(bins, 65535)) ?? tieAwareCuts(a, Math.min(bins, 65535));
+  const k = cuts.length - 1;
+  // stratum s holds the values from its smallest (its threshold) up to the next stratum's threshold
+  const shells: Stratum[] = [];
+  for (let s = 0; s < k; s++) {
+    const lo = cuts[s]!;
+    const hi = cuts[s + 1]! - 1;
+    let low = Infinity;
+    let high = -Infinity;
+    for (let j = lo; j <= hi; j++) {
+      if (a[j]! < low) low = a[j]!;
+      if (a[j]! > high) high = a[j]!;
+    }
+    shells.push({ low, high, n: 0, constant: NaN, centre: medianOfRange(a, lo, hi), witness: -1 });
+  }
+  for (let t = 0; t < m; t++) {
     const b = by[rows[t]!]!;
+    // largest s with shells[s].low ≤ b
     let lo = 0;
     let hi = k - 1;
     while (lo < hi) {
@@ -190,6 +164,7 @@ export function stratify(by: Float64Array, rows: Int32Array, bins: number): Stra
       else hi = mid - 1;
     }
     of[t] = lo;
+    shells[lo]!.n++;
   }
   return { shells, of, rows, by };
 }
