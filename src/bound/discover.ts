@@ -133,36 +133,36 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
   // rows: missing → non-finite → a quantity ≤ 0 → lhs ≤ 0
   const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };
   const bad: Array<{ i: number; why: string }> = [];
-  const keep: number[] = [];
+  // first reason per row, one column at a time: 1 missing, 2 not finite, 3 + j quantity j ≤ 0, 9 lhs ≤ 0
+  const reason = new Uint8Array(n);
+  const mark = (i: number, r: number) => {
+    if (reason[i] === 0 || r < reason[i]!) reason[i] = r;
+  };
+  const cols = [lhs, ...xs];
+  for (const c of cols) for (let i = 0; i < n; i++) if (c.missing[i]) mark(i, 1);
+  for (const c of cols) for (let i = 0; i < n; i++) if (!Number.isFinite(c.values[i]!)) mark(i, 2);
+  xs.forEach((x, j) => {
+    for (let i = 0; i < n; i++) if (!(x.values[i]! > 0)) mark(i, 3 + j);
+  });
+  for (let i = 0; i < n; i++) if (!(lhs.values[i]! > 0)) mark(i, 9);
   let lhsNonPositive = 0;
+  let kept = 0;
+  const keepAll = new Int32Array(n);
   for (let i = 0; i < n; i++) {
-    let why = '';
-    if (lhs.missing[i] || xs.some((x) => x.missing[i])) {
-      why = 'a missing cell';
-      dropped.missing++;
-    } else if (!Number.isFinite(lhs.values[i]!) || xs.some((x) => !Number.isFinite(x.values[i]!))) {
-      why = 'a value that is not finite';
-      dropped.nonFinite++;
-    } else {
-      const j = xs.findIndex((x) => !(x.values[i]! > 0));
-      if (j >= 0) {
-        why = `${o.from[j]} ≤ 0`;
-        dropped.rhsNonPositive++;
-      } else if (!(lhs.values[i]! > 0)) {
-        if (upper) {
-          lhsNonPositive++; // holds for every c ≥ 0: kept out of the fit, counted in a note
-          continue;
-        }
-        why = 'lhs ≤ 0 (no positive lower bound)';
-        dropped.rhsNonPositive++;
-      }
-    }
-    if (why) {
-      dropped.total++;
-      if (bad.length < 5) bad.push({ i, why });
+    const r = reason[i]!;
+    if (r === 0) {
+      keepAll[kept++] = i;
       continue;
     }
-    keep.push(i);
+    if (r === 9 && upper) {
+      lhsNonPositive++; // holds for every c ≥ 0: kept out of the fit, counted in a note
+      continue;
+    }
+    if (r === 1) dropped.missing++;
+    else if (r === 2) dropped.nonFinite++;
+    else dropped.rhsNonPositive++;
+    dropped.total++;
+    if (bad.length < 5) bad.push({ i, why: r === 1 ? 'a missing cell' : r === 2 ? 'a value that is not finite' : r === 9 ? 'lhs ≤ 0 (no positive lower bound)' : `${o.from[r - 3]} ≤ 0` });
   }
   if (dropped.total > 0 && !o.skipInvalid) {
     const first = bad.map((b) => `row ${b.i + 1}${lineOf(table, b.i)} (${b.why})`).join('; ');
@@ -173,7 +173,7 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
       { counts: dropped, rows: bad.map((b) => b.i + 1) },
     );
   }
-  const rows = Int32Array.from(keep);
+  const rows = keepAll.slice(0, kept);
   const m = rows.length;
   if (m < 20) throw new SurmiseError('bound.tooFewRows', `${table.source}: only ${m} usable rows to search ${o.lhs} over ${o.from.join(', ')}; at least 20 are needed`);
   const notes: string[] = [];
@@ -189,10 +189,14 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
 
   const y = new Float64Array(n);
   const z = xs.map(() => new Float64Array(n));
-  for (const i of keep) {
+  for (let t = 0; t < m; t++) {
+    const i = rows[t]!;
     y[i] = Math.log(lhs.values[i]!);
-    xs.forEach((x, j) => (z[j]![i] = Math.log(x.values[i]!)));
   }
+  xs.forEach((x, j) => {
+    const zj = z[j]!;
+    for (let t = 0; t < m; t++) zj[rows[t]!] = Math.log(x.values[rows[t]!]!);
+  });
   const d = o.from.length;
   // every subset's envelope, then snapped candidates (deduplicated by exponent vector)
   const candidates = new Map<string, { exps: SmallRational[]; envelope: number[] }>();

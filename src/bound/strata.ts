@@ -126,6 +126,8 @@ export interface Stratification {
   of: Uint16Array;
   rows: Int32Array;
   by: Float64Array;
+  /** Reused by stratumStats across ratios (allocated on first use). */
+  scratch?: Float64Array;
 }
 
 /**
@@ -178,7 +180,7 @@ export function stratumStats(st: Stratification, ratio: Float64Array, upper: boo
   const { shells, of, rows } = st;
   const k = shells.length;
   // one scratch array, stratum s filling [start[s], start[s] + n_s)
-  const scratch = new Float64Array(rows.length);
+  const scratch = (st.scratch ??= new Float64Array(rows.length));
   const start = new Int32Array(k + 1);
   for (let s = 0; s < k; s++) start[s + 1] = start[s]! + shells[s]!.n;
   const fill = Int32Array.from(start.subarray(0, k));
