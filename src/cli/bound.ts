@@ -2,8 +2,9 @@ import type { Command } from 'commander';
 import { resolve } from 'node:path';
 import { readingProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
-import { collect, parsePositiveInt } from './options.ts';
+import { collect, parsePositiveInt, rangeHelp } from './options.ts';
 import { SurmiseError } from '../errors.ts';
+import { BOUND_LIMITS } from '../bound/find.ts';
 import { readTable, type TableFormat } from '../table/read.ts';
 import { writeTable } from '../table/write.ts';
 import { findBound, BOUND_FORMS, type BoundForm } from '../bound/find.ts';
@@ -62,8 +63,8 @@ export function registerBound(program: Command, io: CliIO): void {
     .option('--rhs <expr>', 'right-hand side expression, > 0 on every row (repeat to compare candidates)', collect, [])
     .option('--from <exprs>', 'search the rhs among monomials of these positive quantities (comma-separated, 1 to 6)')
     .option('--by <expr>', 'with --rhs: stratify by this expression (default: each candidate by its own rhs)')
-    .option('--bins <n>', 'number of equal-count strata (default 10)')
-    .option('--top <k>', 'number of witness rows shown', '5')
+    .option('--bins <n>', `number of equal-count strata (default 10)${rangeHelp(BOUND_LIMITS.bins)}`)
+    .option('--top <k>', `number of witness rows shown${rangeHelp(BOUND_LIMITS.top)}`, '5')
     .option('--id <col>', 'column shown beside witness rows (repeat or comma-separate; default: every label column)', collect, [])
     .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. slope=re(lon/mer) (repeatable)', collect, [])
     .option('--skip-invalid', 'drop and count rows with a missing cell, a non-finite value or rhs ≤ 0 instead of refusing them')
@@ -93,7 +94,7 @@ export function registerBound(program: Command, io: CliIO): void {
           if (k !== 'bins' && opts[k] !== undefined) throw new SurmiseError('option.conflict', `${flagName(k)} applies to --from`);
         }
       }
-      const top = parsePositiveInt('--top', opts.top);
+      const top = parsePositiveInt('--top', opts.top, BOUND_LIMITS.top.max);
       const id = opts.id.flatMap((s) => s.split(',')).map((s) => s.trim()).filter((s) => s.length > 0);
       const witnessPath = opts.witnesses !== undefined ? resolve(io.cwd, opts.witnesses) : null;
       const reading = readingProgress(io, file, opts.progress);
@@ -130,7 +131,7 @@ export function registerBound(program: Command, io: CliIO): void {
           lhs: opts.lhs,
           rhs: opts.rhs,
           ...(opts.by !== undefined ? { by: opts.by } : {}),
-          ...(opts.bins !== undefined ? { bins: parsePositiveInt('--bins', opts.bins) } : {}),
+          ...(opts.bins !== undefined ? { bins: parsePositiveInt('--bins', opts.bins, BOUND_LIMITS.bins.max) } : {}),
           form: opts.form as BoundForm,
           ...common,
         });
