@@ -24,6 +24,7 @@ export { rankFeatures } from './attribute/rank.ts';
 export { fitRelation } from './relate/fit.ts';
 export { searchRelations } from './relate/search.ts';
 export { findBound } from './bound/find.ts';
+export { discoverBound } from './bound/discover.ts';
 export { renderReport } from './report/index.ts';
 export { executeRun, loadConfig, parseConfig, compareRuns } from './run/index.ts';
 export { generateDemoKnots } from './demo/knots.ts';

@@ -1,5 +1,5 @@
 import { quantilesType7InPlace, QUANTILE_DEFINITION } from './quantile.ts';
-import { equalCountStrata, stratumQuantiles, type Stratum } from './strata.ts';
+import { stratify, stratumStats, type Stratification, type Stratum } from './strata.ts';
 import { topK } from './topk.ts';
 import { slopeInterval } from './trend.ts';
 
@@ -92,30 +92,50 @@ export function boundArrays(
   let trend: Trend = undetermined('no stratifying expression', 'median');
   let extremeStratum: ArrayBound['extremeStratum'] = null;
   if (by) {
-    strata = equalCountStrata(by, ratio, rows, opts.bins, upper);
-    const k = strata.length;
-    const kWord = `${k} ${k === 1 ? 'stratum' : 'strata'}`;
-    if (k < Math.min(opts.bins, n)) {
-      notes.push(`${byName} has tied values, which are never split between strata: ${kWord} instead of ${Math.min(opts.bins, n)}${k > 1 ? ', of unequal size' : ''}`);
-    } else if (n < opts.bins) {
-      notes.push(`only ${n} rows: ${kWord} instead of ${opts.bins}`);
-    }
-    let byMin = Infinity;
-    for (let t = 0; t < n; t++) byMin = Math.min(byMin, by[rows[t]!]!);
-    const basis: Trend['basis'] = byMin > 0 ? 'median' : 'rank';
-    if (basis === 'rank') notes.push(`${byName} takes values ≤ 0 (min ${byMin}), so the trend uses log of the stratum rank instead of log of its median`);
-    trend = fitTrend(strata, basis, upper, byName, stratumQuantiles(by, ratio, rows, strata, upper ? 0.9 : 0.1), { ratio, by, rows });
-    const s = strata.findIndex((st) => st.witness === witnessRows[0]);
-    if (strata.length >= 2 && s === 0) extremeStratum = 'lowest';
-    if (strata.length >= 2 && s === strata.length - 1) extremeStratum = 'highest';
-    if (extremeStratum) {
-      const st = strata[s]!;
-      notes.push(
-        `the overall ${upper ? 'maximum' : 'minimum'} ratio sits in the ${extremeStratum} stratum of ${byName} (${fmt(st.low)} ≤ ${byName} ≤ ${fmt(st.high)})`,
-      );
-    }
+    const along = trendAlong(ratio, stratify(by, rows, opts.bins), { upper, byName, bins: opts.bins }, witnessRows[0]!);
+    ({ strata, trend, extremeStratum } = along);
+    notes.push(...along.notes);
   }
   return { constant, witnessRows, quantiles, quantileDefinition: QUANTILE_DEFINITION, strata, trend, extremeStratum, notes };
+}
+
+/**
+ * Per-stratum constants of `ratio` along a fixed stratification, their trend (maximum and high
+ * quantile), and notes: ties that merged strata, a `by` with values ≤ 0 (rank basis), and whether
+ * the overall witness `topRow` sits in an extreme stratum.
+ */
+export function trendAlong(
+  ratio: Float64Array,
+  st: Stratification,
+  opts: { upper: boolean; byName: string; bins: number },
+  topRow: number,
+): { strata: Stratum[]; trend: Trend; extremeStratum: 'lowest' | 'highest' | null; notes: string[] } {
+  const { upper, byName, bins } = opts;
+  const { by, rows } = st;
+  const n = rows.length;
+  const notes: string[] = [];
+  const { strata, q } = stratumStats(st, ratio, upper, upper ? 0.9 : 0.1);
+  const k = strata.length;
+  const kWord = `${k} ${k === 1 ? 'stratum' : 'strata'}`;
+  if (k < Math.min(bins, n)) {
+    notes.push(`${byName} has tied values, which are never split between strata: ${kWord} instead of ${Math.min(bins, n)}${k > 1 ? ', of unequal size' : ''}`);
+  } else if (n < bins) {
+    notes.push(`only ${n} rows: ${kWord} instead of ${bins}`);
+  }
+  let byMin = Infinity;
+  for (let t = 0; t < n; t++) byMin = Math.min(byMin, by[rows[t]!]!);
+  const basis: Trend['basis'] = byMin > 0 ? 'median' : 'rank';
+  if (basis === 'rank') notes.push(`${byName} takes values ≤ 0 (min ${byMin}), so the trend uses log of the stratum rank instead of log of its median`);
+  const trend = fitTrend(strata, basis, upper, byName, q, { ratio, by, rows });
+  let extremeStratum: 'lowest' | 'highest' | null = null;
+  const s = strata.findIndex((x) => x.witness === topRow);
+  if (k >= 2 && s === 0) extremeStratum = 'lowest';
+  if (k >= 2 && s === k - 1) extremeStratum = 'highest';
+  if (extremeStratum) {
+    const x = strata[s]!;
+    notes.push(`the overall ${upper ? 'maximum' : 'minimum'} ratio sits in the ${extremeStratum} stratum of ${byName} (${fmt(x.low)} ≤ ${byName} ≤ ${fmt(x.high)})`);
+  }
+  return { strata, trend, extremeStratum, notes };
 }
 
 /** One log-log trend line of per-stratum values (all > 0). */

@@ -1,5 +1,6 @@
 import { SurmiseError } from '../errors.ts';
 import { kahanSum } from '../util/sum.ts';
+import { topK } from './topk.ts';
 
 /** The tightest linear envelope y ≤ a + Σ k_j z_j (upper) or y ≥ a + Σ k_j z_j (lower) of a point cloud. */
 export interface Envelope {
@@ -35,7 +36,12 @@ export interface EnvelopeOptions {
  * above the current plane (Dantzig's rule), switching to Bland's smallest-index rule after a run of
  * degenerate pivots (R. G. Bland, Math. Oper. Res. 2, 1977), so it terminates. Data are centred
  * and scaled first, and the intercept is finally raised by the largest remaining violation so the
- * plane holds on every row in floating point. Each pivot costs one pass over the rows, O(n·d).
+ * plane holds on every row in floating point. Each pivot costs one pass over the rows, O(n·d); above
+ * 50,000 rows the LP is solved on a working set (every ⌈n/20000⌉-th row) and the rows its plane
+ * violates are added, at most 5000 a round, until none is violated — constraint generation in the
+ * manner of K. L. Clarkson, "Las Vegas algorithms for linear and integer programming when the
+ * dimension is small", J. ACM 42 (1995); exact, since each working-set LP is a relaxation with the
+ * same objective.
  * @example tightestEnvelope(Float64Array.of(1, 2, 2.5), [Float64Array.of(0, 1, 3)], Int32Array.of(0, 1, 2), { upper: true, maxSlope: 4 })
  * // intercept 1.75, slopes [0.25]: the hull edge through (1, 2) and (3, 2.5), the one over z̄ = 4/3
  */
@@ -73,6 +79,115 @@ export function tightestEnvelope(y: Float64Array, z: readonly Float64Array[], ro
     box[j] = (K * zs[j]!) / sy;
   }
 
+  const maxIter = opts.maxIterations ?? 200 + 50 * m;
+  let pi: Float64Array;
+  let iterations = 0;
+  if (n <= WORKING_SET_ABOVE) ({ pi, iterations } = simplexOnDual(yc, zc, n, d, box, maxIter));
+  else {
+    // constraint generation: the LP on a working set of rows is a relaxation with the same
+    // objective, so once its plane violates no row it is the optimum of the whole LP
+    const inSet = new Uint8Array(n);
+    let set: number[] = [];
+    const stride = Math.ceil(n / 20000);
+    for (let t = 0; t < n; t += stride) set.push(t);
+    for (const t of set) inSet[t] = 1;
+    const violation = new Float64Array(n);
+    for (;;) {
+      const k = set.length;
+      const ys = new Float64Array(k);
+      const zs2 = new Float64Array(k * d);
+      set.forEach((t, u) => {
+        ys[u] = yc[t]!;
+        for (let j = 0; j < d; j++) zs2[u * d + j] = zc[t * d + j]!;
+      });
+      const r = simplexOnDual(ys, zs2, k, d, box, maxIter);
+      pi = r.pi;
+      iterations += r.iterations;
+      const add: number[] = [];
+      for (let t = 0; t < n; t++) {
+        let v = yc[t]! - pi[0]!;
+        for (let j = 0; j < d; j++) v -= pi[j + 1]! * zc[t * d + j]!;
+        violation[t] = v;
+        if (v > PRICING_TOL && !inSet[t]) add.push(t);
+      }
+      if (add.length === 0) break;
+      // the most violated rows first, at most 5000 a round
+      const chosen = add.length <= 5000 ? add : Array.from(topK(violation, Int32Array.from(add), 5000, true));
+      for (const t of chosen) inSet[t] = 1;
+      set = set.concat(chosen);
+    }
+  }
+  // back to original units: k_j = sign·sy·k'_j/s_j, a = ȳ + sign·sy·a' − k·z̄
+  const slopes = new Float64Array(d);
+  let a = yMean + sign * sy * pi[0]!;
+  const atLimit: boolean[] = [];
+  for (let j = 0; j < d; j++) {
+    slopes[j] = (sign * sy * pi[j + 1]!) / zs[j]!;
+    a -= slopes[j]! * zMean[j]!;
+    atLimit.push(box[j]! > 0 && Math.abs(pi[j + 1]!) >= box[j]! * (1 - 1e-9));
+  }
+  // raise (lower) the intercept by the largest remaining violation, then the mean gap
+  let worst = 0;
+  for (let t = 0; t < n; t++) {
+    const r = rows[t]!;
+    let v = y[r]! - a;
+    for (let j = 0; j < d; j++) v -= slopes[j]! * z[j]![r]!;
+    if (sign * v > worst) worst = sign * v;
+  }
+  a += sign * worst;
+  let gap = 0;
+  for (let t = 0; t < n; t++) {
+    const r = rows[t]!;
+    let v = a - y[r]!;
+    for (let j = 0; j < d; j++) v += slopes[j]! * z[j]![r]!;
+    gap += sign * v;
+  }
+  return { intercept: a, slopes, meanGap: gap / n, iterations, atLimit };
+}
+
+/** B⁻¹ of the basis columns by Gauss–Jordan elimination with partial pivoting, and x_B = B⁻¹ b. */
+function invertBasis(basis: Int32Array, column: (q: number, out: Float64Array) => void, m: number, Binv: Float64Array, b: Float64Array, xB: Float64Array): void {
+  const w = 2 * m;
+  const M = new Float64Array(m * w);
+  const col = new Float64Array(m);
+  for (let r = 0; r < m; r++) {
+    column(basis[r]!, col);
+    for (let k = 0; k < m; k++) M[k * w + r] = col[k]!;
+    M[r * w + m + r] = 1;
+  }
+  for (let c = 0; c < m; c++) {
+    let p = c;
+    for (let r = c + 1; r < m; r++) if (Math.abs(M[r * w + c]!) > Math.abs(M[p * w + c]!)) p = r;
+    if (Math.abs(M[p * w + c]!) < 1e-14) throw new SurmiseError('bound.lpSingular', 'the envelope linear program reached a singular basis', undefined, 1);
+    if (p !== c) for (let k = 0; k < w; k++) [M[c * w + k], M[p * w + k]] = [M[p * w + k]!, M[c * w + k]!];
+    const piv = M[c * w + c]!;
+    for (let k = 0; k < w; k++) M[c * w + k]! /= piv;
+    for (let r = 0; r < m; r++) {
+      if (r === c) continue;
+      const f = M[r * w + c]!;
+      if (f === 0) continue;
+      for (let k = 0; k < w; k++) M[r * w + k]! -= f * M[c * w + k]!;
+    }
+  }
+  for (let r = 0; r < m; r++) for (let k = 0; k < m; k++) Binv[r * m + k] = M[r * w + m + k]!;
+  for (let r = 0; r < m; r++) {
+    let s = 0;
+    for (let k = 0; k < m; k++) s += Binv[r * m + k]! * b[k]!;
+    xB[r] = s;
+  }
+}
+
+/** Tolerance of the reduced costs on the centred, scaled data (y' spans [−1, 1]). */
+const PRICING_TOL = 1e-11;
+/** Above this many rows the LP is solved by constraint generation on a working set. */
+const WORKING_SET_ABOVE = 50_000;
+
+/**
+ * Revised simplex on the dual of the centred envelope LP (see tightestEnvelope) for n rows (yc, zc
+ * row-major n×d) and the slope box; returns the simplex multipliers π = (a', k') and the pivots.
+ */
+function simplexOnDual(yc: Float64Array, zc: Float64Array, n: number, d: number, box: Float64Array, maxIter: number): { pi: Float64Array; iterations: number } {
+  const m = d + 1;
   // column q < n: (1, z'_q), cost y'_q; q = n + 2j: +e_{j+1}, q = n + 2j + 1: −e_{j+1}, cost −box_j
   const column = (q: number, out: Float64Array): void => {
     out.fill(0);
@@ -102,8 +217,7 @@ export function tightestEnvelope(y: Float64Array, z: readonly Float64Array[], ro
 
   const pi = new Float64Array(m);
   const u = new Float64Array(m);
-  const maxIter = opts.maxIterations ?? 200 + 50 * m;
-  const tol = 1e-11;
+  const tol = PRICING_TOL;
   let iterations = 0;
   let degenerate = 0;
   for (;;) {
@@ -173,62 +287,5 @@ export function tightestEnvelope(y: Float64Array, z: readonly Float64Array[], ro
       xB[leave] = ratio;
     }
   }
-  // back to original units: k_j = sign·sy·k'_j/s_j, a = ȳ + sign·sy·a' − k·z̄
-  const slopes = new Float64Array(d);
-  let a = yMean + sign * sy * pi[0]!;
-  const atLimit: boolean[] = [];
-  for (let j = 0; j < d; j++) {
-    slopes[j] = (sign * sy * pi[j + 1]!) / zs[j]!;
-    a -= slopes[j]! * zMean[j]!;
-    atLimit.push(box[j]! > 0 && Math.abs(pi[j + 1]!) >= box[j]! * (1 - 1e-9));
-  }
-  // raise (lower) the intercept by the largest remaining violation, then the mean gap
-  let worst = 0;
-  for (let t = 0; t < n; t++) {
-    const r = rows[t]!;
-    let v = y[r]! - a;
-    for (let j = 0; j < d; j++) v -= slopes[j]! * z[j]![r]!;
-    if (sign * v > worst) worst = sign * v;
-  }
-  a += sign * worst;
-  let gap = 0;
-  for (let t = 0; t < n; t++) {
-    const r = rows[t]!;
-    let v = a - y[r]!;
-    for (let j = 0; j < d; j++) v += slopes[j]! * z[j]![r]!;
-    gap += sign * v;
-  }
-  return { intercept: a, slopes, meanGap: gap / n, iterations, atLimit };
-}
-
-/** B⁻¹ of the basis columns by Gauss–Jordan elimination with partial pivoting, and x_B = B⁻¹ b. */
-function invertBasis(basis: Int32Array, column: (q: number, out: Float64Array) => void, m: number, Binv: Float64Array, b: Float64Array, xB: Float64Array): void {
-  const w = 2 * m;
-  const M = new Float64Array(m * w);
-  const col = new Float64Array(m);
-  for (let r = 0; r < m; r++) {
-    column(basis[r]!, col);
-    for (let k = 0; k < m; k++) M[k * w + r] = col[k]!;
-    M[r * w + m + r] = 1;
-  }
-  for (let c = 0; c < m; c++) {
-    let p = c;
-    for (let r = c + 1; r < m; r++) if (Math.abs(M[r * w + c]!) > Math.abs(M[p * w + c]!)) p = r;
-    if (Math.abs(M[p * w + c]!) < 1e-14) throw new SurmiseError('bound.lpSingular', 'the envelope linear program reached a singular basis', undefined, 1);
-    if (p !== c) for (let k = 0; k < w; k++) [M[c * w + k], M[p * w + k]] = [M[p * w + k]!, M[c * w + k]!];
-    const piv = M[c * w + c]!;
-    for (let k = 0; k < w; k++) M[c * w + k]! /= piv;
-    for (let r = 0; r < m; r++) {
-      if (r === c) continue;
-      const f = M[r * w + c]!;
-      if (f === 0) continue;
-      for (let k = 0; k < w; k++) M[r * w + k]! -= f * M[c * w + k]!;
-    }
-  }
-  for (let r = 0; r < m; r++) for (let k = 0; k < m; k++) Binv[r * m + k] = M[r * w + m + k]!;
-  for (let r = 0; r < m; r++) {
-    let s = 0;
-    for (let k = 0; k < m; k++) s += Binv[r * m + k]! * b[k]!;
-    xB[r] = s;
-  }
+  return { pi, iterations };
 }

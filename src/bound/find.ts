@@ -1,8 +1,9 @@
 import { checkInteger, type IntegerRange } from '../util/integer.ts';
-import { SurmiseError, didYouMean } from '../errors.ts';
+import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
-import { deriveColumn, evaluateExpression, parseDerive } from '../table/expr/index.ts';
 import { boundArrays, fmt, type Trend } from './core.ts';
+import { affineEnvelope } from './affine.ts';
+import { evalReal, idColumns, labelsOf, lineOf, withDerived, type RealValues } from './inputs.ts';
 
 /** What to bound: lhs ≤ c·rhs (or lhs ≥ c·rhs with `lower`), for each rhs candidate. */
 export interface BoundSpec {
@@ -24,6 +25,23 @@ export interface BoundSpec {
   lower?: boolean;
   /** Derived columns `NAME=EXPRESSION`, added in order before anything is evaluated (the table is not changed). */
   derive?: readonly string[];
+  /** 'ratio' (default): lhs ≤ c·rhs; 'affine': also lhs ≤ c·rhs + d; 'two-sided': also c₁·rhs + d₁ ≤ lhs ≤ c₂·rhs + d₂. */
+  form?: BoundForm;
+}
+
+export const BOUND_FORMS = ['ratio', 'affine', 'two-sided'] as const;
+export type BoundForm = (typeof BOUND_FORMS)[number];
+
+/** An affine bound with its rows closest to equality. */
+export interface AffineBound {
+  form: 'upper' | 'lower';
+  /** c in lhs ≤ c·rhs + d (lower: ≥) */
+  slope: number;
+  /** d */
+  offset: number;
+  meanGap: number;
+  atLimit: boolean;
+  witnesses: BoundWitness[];
 }
 
 /** Rows not used, by first reason (missing cell, then non-finite value, then rhs ≤ 0). */
@@ -74,6 +92,8 @@ export interface BoundCandidate {
   strata: BoundStratum[];
   trend: Trend;
   extremeStratum: 'lowest' | 'highest' | null;
+  /** With form 'affine' (one side, by --lower) or 'two-sided' (both sides). */
+  affine?: AffineBound[];
   notes: string[];
 }
 
@@ -142,6 +162,20 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
       throw new SurmiseError('bound.noRows', `${table.source}: no row is left to bound ${opts.lhs} by ${rhsSrc} (${dropped.total} rows dropped)`);
     }
     const used = rows.subarray(0, m);
+    const witnessOf = (i: number): BoundWitness => ({
+      row: i + 1,
+      line: table.lines ? table.lines[i]! : null,
+      labels: labelsOf(idCols, i),
+      lhs: lhs.values[i]!,
+      rhs: rhs.values[i]!,
+      ratio: ratio[i]!,
+      by: by.values[i]!,
+    });
+    const sides = opts.form === 'ratio' ? [] : opts.form === 'two-sided' ? [true, false] : [upper];
+    const affine = sides.map((up): AffineBound => {
+      const a = affineEnvelope(lhs.values, rhs.values, used, up, opts.top);
+      return { form: a.form, slope: a.slope, offset: a.offset, meanGap: a.meanGap, atLimit: a.atLimit, witnesses: Array.from(a.witnessRows, witnessOf) };
+    });
     const core = boundArrays(ratio, by.values, used, { bins: opts.bins, top: opts.top, upper, byName });
     if (opts.by === null) core.notes.push(`no --by given: strata are taken along the rhs ${rhsSrc}`);
     const rowNo = (i: number) => i + 1;
@@ -151,20 +185,13 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
       constant: core.constant,
       n: m,
       dropped,
-      witnesses: Array.from(core.witnessRows, (i) => ({
-        row: rowNo(i),
-        line: table.lines ? table.lines[i]! : null,
-        labels: labelsOf(idCols, i),
-        lhs: lhs.values[i]!,
-        rhs: rhs.values[i]!,
-        ratio: ratio[i]!,
-        by: by.values[i]!,
-      })),
+      witnesses: Array.from(core.witnessRows, witnessOf),
       quantiles: core.quantiles,
       quantileDefinition: core.quantileDefinition,
       strata: core.strata.map((s) => ({ low: s.low, high: s.high, n: s.n, constant: s.constant, centre: s.centre, row: rowNo(s.witness) })),
       trend: core.trend,
       extremeStratum: core.extremeStratum,
+      ...(affine.length ? { affine } : {}),
       notes: core.notes,
     });
   }
@@ -178,21 +205,6 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
     else dropped.rhsNonPositive++;
   }
   return { source: table.source, lhs: opts.lhs, by: opts.by, form: upper ? 'upper' : 'lower', n, dropped, results };
-}
-
-/** A shallow copy of `table` with the derived columns appended (each may use the ones before it). */
-function withDerived(table: Table, derive: readonly string[]): Table {
-  if (derive.length === 0) return table;
-  let t: Table = { ...table, columns: [...table.columns] };
-  for (const spec of derive) {
-    const { name, source } = parseDerive(spec);
-    if (t.columns.some((c) => c.name === name)) {
-      throw new SurmiseError('bound.deriveClash', `${table.source}: --derive ${spec}: the table already has a column '${name}'; choose another name`);
-    }
-    const col = deriveColumn(t, name, source);
-    t = { ...t, columns: [...t.columns, col] };
-  }
-  return t;
 }
 
 /** Ranges of findBound's count options (strata and witness rows); the ceilings keep output finite. */
@@ -210,6 +222,7 @@ interface CheckedSpec {
   id: string[] | null;
   skipInvalid: boolean;
   lower: boolean;
+  form: BoundForm;
 }
 
 /** Options checked once, against one table of constraints. */
@@ -230,56 +243,14 @@ function checkSpec(spec: BoundSpec): CheckedSpec {
     id: spec.id ? [...spec.id] : null,
     skipInvalid: Boolean(spec.skipInvalid),
     lower: Boolean(spec.lower),
+    form: checkForm(spec.form),
   };
 }
 
-interface RealValues {
-  values: Float64Array;
-  missing: Uint8Array;
-}
-
-/** Evaluates an expression and insists on real values (a complex result must be reduced by re/im/abs). */
-function evalReal(table: Table, source: string, role: string): RealValues {
-  const v = evaluateExpression(table, source);
-  if (v.im) {
-    for (let i = 0; i < table.nRows; i++) {
-      if (!v.missing[i] && v.im[i] !== 0 && !Number.isNaN(v.im[i]!)) {
-        throw new SurmiseError(
-          'bound.complexValue',
-          `${table.source}: ${role} '${source}' is complex on row ${i + 1}${lineOf(table, i)} (imaginary part ${fmt(v.im[i]!)}); take re(), im() or abs() of it`,
-        );
-      }
-    }
-  }
-  return { values: v.re, missing: v.missing };
-}
-
-function lineOf(table: Table, i: number): string {
-  return table.lines ? `, line ${table.lines[i]}` : '';
-}
-
-function idColumns(table: Table, id: string[] | null): Array<{ name: string; value: (i: number) => string | number | null }> {
-  const names = table.columns.map((c) => c.name);
-  const chosen = id ?? table.columns.filter((c) => c.kind === 'label').map((c) => c.name);
-  return chosen.map((name) => {
-    const col = table.columns.find((c) => c.name === name);
-    if (!col) {
-      throw new SurmiseError('bound.unknownColumn', `${table.source}: no column '${name}' to show beside the witness rows${didYouMean(name, names)}`);
-    }
-    const value = (i: number): string | number | null => {
-      if (col.missing[i]) return null;
-      if (col.kind === 'label') return col.values[i]!;
-      if (col.kind === 'complex') return `${col.re[i]}${col.im[i]! < 0 ? '-' : '+'}${Math.abs(col.im[i]!)}j`;
-      return col.values[i]!;
-    };
-    return { name, value };
-  });
-}
-
-function labelsOf(cols: ReturnType<typeof idColumns>, i: number): Record<string, string | number | null> {
-  const out: Record<string, string | number | null> = {};
-  for (const c of cols) out[c.name] = c.value(i);
-  return out;
+function checkForm(f: unknown): BoundForm {
+  if (f === undefined) return 'ratio';
+  if (typeof f === 'string' && (BOUND_FORMS as readonly string[]).includes(f)) return f as BoundForm;
+  throw new SurmiseError('bound.badOption', `expected form to be one of ${BOUND_FORMS.join(', ')}, got ${String(f)}`, { key: 'form' });
 }
 
 function refuse(

@@ -35,55 +35,8 @@ export function equalCountStrata(
   bins: number,
   upper: boolean,
 ): Stratum[] {
-  const m = rows.length;
-  if (m === 0 || bins < 1) return [];
-  const a = new Float64Array(m);
-  for (let t = 0; t < m; t++) a[t] = by[rows[t]!]!;
-  const cuts = evenCuts(a, bins) ?? tieAwareCuts(a, bins);
-  const k = cuts.length - 1;
-  // stratum s holds the values from its smallest (its threshold) up to the next stratum's threshold
-  const thresholds = new Float64Array(k);
-  for (let s = 0; s < k; s++) {
-    let low = Infinity;
-    for (let j = cuts[s]!; j < cuts[s + 1]!; j++) if (a[j]! < low) low = a[j]!;
-    thresholds[s] = low;
-  }
-  const best = new Int32Array(k).fill(-1);
-  const count = new Int32Array(k);
-  for (let t = 0; t < m; t++) {
-    const r = rows[t]!;
-    const b = by[r]!;
-    // largest s with thresholds[s] ≤ b
-    let lo = 0;
-    let hi = k - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >>> 1;
-      if (thresholds[mid]! <= b) lo = mid;
-      else hi = mid - 1;
-    }
-    count[lo]!++;
-    const w = best[lo]!;
-    if (w < 0) {
-      best[lo] = r;
-      continue;
-    }
-    const v = ratio[r]!;
-    const bv = ratio[w]!;
-    if (upper ? v > bv || (v === bv && r < w) : v < bv || (v === bv && r < w)) best[lo] = r;
-  }
-  const out: Stratum[] = [];
-  for (let s = 0; s < k; s++) {
-    const lo = cuts[s]!;
-    const hi = cuts[s + 1]! - 1;
-    let low = Infinity;
-    let high = -Infinity;
-    for (let j = lo; j <= hi; j++) {
-      if (a[j]! < low) low = a[j]!;
-      if (a[j]! > high) high = a[j]!;
-    }
-    out.push({ low, high, n: count[s]!, constant: ratio[best[s]!]!, centre: medianOfRange(a, lo, hi), witness: best[s]! });
-  }
-  return out;
+  if (rows.length === 0 || bins < 1) return [];
+  return stratumStats(stratify(by, rows, bins), ratio, upper, 0.5).strata;
 }
 
 /**
@@ -165,26 +118,81 @@ function swapF(a: Float64Array, i: number, j: number): void {
   a[j] = t;
 }
 
+/** Strata of `by` fixed once (they do not depend on the ratio), for many ratios along the same quantity. */
+export interface Stratification {
+  /** The strata with `constant` and `witness` not yet meaningful. */
+  shells: Stratum[];
+  /** Stratum of rows[t], for each position t. */
+  of: Uint16Array;
+  rows: Int32Array;
+  by: Float64Array;
+  /** Reused by stratumStats across ratios (allocated on first use). */
+  scratch?: Float64Array;
+}
+
 /**
- * The type-7 quantile at `p` of the ratio within each stratum (strata as returned by
- * equalCountStrata: a row belongs to the last stratum whose `low` is ≤ its `by`). O(n log k + n).
- * @example stratumQuantiles(by, ratio, rows, strata, 0.9) // [q₀.₉ of stratum 1, …]
+ * The equal-count strata of `by` over `rows` (the cutting rule of equalCountStrata) and the stratum
+ * of every row: selection for the cuts, then one pass with a binary search per row.
  */
-export function stratumQuantiles(by: Float64Array, ratio: Float64Array, rows: Int32Array, strata: Stratum[], p: number): { p: number; values: number[] } {
-  const k = strata.length;
-  const buckets = strata.map((s) => new Float64Array(s.n));
-  const fill = new Int32Array(k);
-  for (let t = 0; t < rows.length; t++) {
-    const r = rows[t]!;
-    const b = by[r]!;
+export function stratify(by: Float64Array, rows: Int32Array, bins: number): Stratification {
+  const m = rows.length;
+  const of = new Uint16Array(m);
+  if (m === 0 || bins < 1) return { shells: [], of, rows, by };
+  const a = new Float64Array(m);
+  for (let t = 0; t < m; t++) a[t] = by[rows[t]!]!;
+  const cuts = evenCuts(a, Math.min(bins, 65535)) ?? tieAwareCuts(a, Math.min(bins, 65535));
+  const k = cuts.length - 1;
+  // stratum s holds the values from its smallest (its threshold) up to the next stratum's threshold
+  const shells: Stratum[] = [];
+  for (let s = 0; s < k; s++) {
+    const lo = cuts[s]!;
+    const hi = cuts[s + 1]! - 1;
+    let low = Infinity;
+    let high = -Infinity;
+    for (let j = lo; j <= hi; j++) {
+      if (a[j]! < low) low = a[j]!;
+      if (a[j]! > high) high = a[j]!;
+    }
+    shells.push({ low, high, n: 0, constant: NaN, centre: medianOfRange(a, lo, hi), witness: -1 });
+  }
+  for (let t = 0; t < m; t++) {
+    const b = by[rows[t]!]!;
+    // largest s with shells[s].low ≤ b
     let lo = 0;
     let hi = k - 1;
     while (lo < hi) {
       const mid = (lo + hi + 1) >>> 1;
-      if (strata[mid]!.low <= b) lo = mid;
+      if (shells[mid]!.low <= b) lo = mid;
       else hi = mid - 1;
     }
-    buckets[lo]![fill[lo]!++] = ratio[r]!;
+    of[t] = lo;
+    shells[lo]!.n++;
   }
-  return { p, values: buckets.map((a, s) => quantilesType7InPlace(a.subarray(0, fill[s]!), [p])[0]!) };
+  return { shells, of, rows, by };
+}
+
+/**
+ * Per stratum: the tightest constant (max ratio, lower form min; ties to the earlier row) with its
+ * row, and the type-7 quantile at `p` of the ratio (Hyndman & Fan 1996). One pass plus one
+ * selection per stratum, O(n).
+ */
+export function stratumStats(st: Stratification, ratio: Float64Array, upper: boolean, p: number): { strata: Stratum[]; q: { p: number; values: number[] } } {
+  const { shells, of, rows } = st;
+  const k = shells.length;
+  // one scratch array, stratum s filling [start[s], start[s] + n_s)
+  const scratch = (st.scratch ??= new Float64Array(rows.length));
+  const start = new Int32Array(k + 1);
+  for (let s = 0; s < k; s++) start[s + 1] = start[s]! + shells[s]!.n;
+  const fill = Int32Array.from(start.subarray(0, k));
+  const best = new Int32Array(k).fill(-1);
+  for (let t = 0; t < rows.length; t++) {
+    const r = rows[t]!;
+    const s = of[t]!;
+    const v = ratio[r]!;
+    scratch[fill[s]!++] = v;
+    const w = best[s]!;
+    if (w < 0 || (upper ? v > ratio[w]! || (v === ratio[w]! && r < w) : v < ratio[w]! || (v === ratio[w]! && r < w))) best[s] = r;
+  }
+  const strata = shells.map((sh, s) => ({ ...sh, constant: ratio[best[s]!]!, witness: best[s]! }));
+  return { strata, q: { p, values: shells.map((_, s) => quantilesType7InPlace(scratch.subarray(start[s]!, fill[s]!), [p])[0]!) } };
 }

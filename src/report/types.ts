@@ -123,6 +123,8 @@ export interface ReportWitness {
   lhs: number;
   rhs: number;
   ratio: number;
+  /** The stratifying value of the row (the plot marks witnesses at (by, ratio)). */
+  by?: number;
   labels?: Record<string, string>;
 }
 

@@ -12,6 +12,7 @@ import type { IntegerRange } from '../util/integer.ts';
 import { RANK_LIMITS } from '../attribute/limits.ts';
 import { RELATE_LIMITS } from '../relate/limits.ts';
 import { BOUND_LIMITS } from '../bound/find.ts';
+import { DISCOVER_OPTIONS } from '../bound/discover.ts';
 import { RESIDUAL_LIMITS } from './residual.ts';
 
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
@@ -78,6 +79,20 @@ const BoundSchema = z.strictObject({
   skipInvalid: z.boolean().default(false),
 });
 
+/** Right-hand-side discovery: ranges and defaults from the bound stage's one options table. */
+const DiscoverSchema = z.strictObject({
+  lhs: exprString,
+  from: listOf(exprString, 1),
+  lower: z.boolean().default(false),
+  skipInvalid: z.boolean().default(false),
+  ...Object.fromEntries(
+    DISCOVER_OPTIONS.filter((o) => o.key !== 'seed').map((o) => {
+      const n = (o.integer ? z.number().int() : z.number()).min(o.min).max(o.max);
+      return [o.key, o.default === null ? n.optional() : n.default(o.default)];
+    }),
+  ),
+});
+
 export const RunConfigSchema = z.strictObject({
   table: z.string().min(1),
   format: z.enum(['csv', 'tsv', 'json', 'jsonl']).optional(),
@@ -95,6 +110,7 @@ export const RunConfigSchema = z.strictObject({
   search: SearchSchema.optional(),
   residual: ResidualSchema.optional(),
   bounds: z.array(BoundSchema).default([]),
+  discover: z.array(DiscoverSchema).default([]),
   output: z.string().min(1).default('surmise-run'),
 });
 
@@ -109,6 +125,7 @@ const KNOWN_KEYS: Record<string, readonly string[]> = {
   search: Object.keys(SearchSchema.shape),
   residual: Object.keys(ResidualSchema.shape),
   bounds: Object.keys(BoundSchema.shape),
+  discover: Object.keys(DiscoverSchema.shape),
 };
 
 export interface LoadedConfig {

@@ -17,6 +17,7 @@ import { residualRanking, type ResidualResult } from './residual.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchResult } from '../relate/search.ts';
 import { findBound, type BoundResult } from '../bound/find.ts';
+import { discoverBound, type DiscoverResult } from '../bound/discover.ts';
 import { largestIndices, renderReport, sampleIndices, type ReportInput } from '../report/index.ts';
 import { keyPath, type RunConfig, type LoadedConfig } from './config.ts';
 import { parseSplitSpec } from '../table/split.ts';
@@ -61,6 +62,8 @@ export interface RunResults {
   /** Residual ranking (config `residual`), or null. */
   residual: ResidualResult | null;
   bounds: BoundResult[];
+  /** Right-hand-side searches (config key `discover`), in order. */
+  discoveries: DiscoverResult[];
   evidence: string;
 }
 
@@ -155,7 +158,9 @@ function buildReportInput(
   table: Table,
   configText: string,
 ): ReportInput {
-  const { config, rank, fits, search, bounds } = results;
+  const { config, rank, fits, search } = results;
+  // each search's proposals are shown as bounds along its first quantity
+  const bounds = [...results.bounds, ...results.discoveries.map(discoveryAsBounds)];
   const input: ReportInput = {
     title: `surmise: what predicts ${config.target}`,
     createdAt: results.createdAt,
@@ -295,6 +300,7 @@ function buildReportInput(
               lhs: w.lhs,
               rhs: w.rhs,
               ratio: w.ratio,
+              by: w.by,
               labels: Object.fromEntries(Object.entries(w.labels).map(([k, v]) => [k, v === null ? '' : String(v)])),
             })),
             quantiles,
@@ -359,6 +365,10 @@ function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string
     });
     inConfig(['search', 'powers'], at, () => parsePowers(config.search!.powers));
   }
+  config.discover.forEach((d, i) => {
+    expr(['discover', i, 'lhs'], d.lhs);
+    d.from.forEach((f, j) => expr(['discover', i, 'from', j], f));
+  });
   if (config.residual) {
     const r = config.residual;
     expr(['residual', 'target'], r.target);
@@ -475,6 +485,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
   const bounds = config.bounds.map((b) =>
     findBound(table, { lhs: b.lhs, rhs: b.rhs, ...(b.by ? { by: b.by } : {}), bins: b.bins, top: b.top, skipInvalid: b.skipInvalid }),
   );
+  const discoveries = config.discover.map((d) => discoverBound(table, { ...d, seed: config.seed }));
   timings.bound = seconds(t0);
 
   const configText = stringify({ ...config, table: config.table, output: outDir });
@@ -496,6 +507,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     search,
     residual,
     bounds,
+    discoveries,
     evidence: 'These findings are statistical evidence on this table, not a proof.',
   };
 
@@ -526,4 +538,34 @@ export function jsonReplacer(_key: string, value: unknown): unknown {
   if (typeof value === 'number' && !Number.isFinite(value)) return String(value);
   if (ArrayBuffer.isView(value) && !(value instanceof DataView)) return Array.from(value as unknown as ArrayLike<number>);
   return value;
+}
+
+/** A right-hand-side search seen as bounds along its first quantity, for the report. */
+function discoveryAsBounds(d: DiscoverResult): BoundResult {
+  const by = d.from[0]!;
+  return {
+    source: d.source,
+    lhs: d.lhs,
+    by,
+    form: d.form,
+    n: d.n,
+    dropped: d.dropped,
+    results: d.proposals.map((p) => {
+      const { strata, ...trend } = p.trend.along[by]!;
+      return {
+        rhs: p.rhs,
+        by,
+        constant: p.constant,
+        n: d.used,
+        dropped: d.dropped,
+        witnesses: p.witnesses,
+        quantiles: [],
+        quantileDefinition: '',
+        strata,
+        trend,
+        extremeStratum: null,
+        notes: [],
+      };
+    }),
+  };
 }

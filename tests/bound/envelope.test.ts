@@ -91,3 +91,27 @@ function solve3(A: number[][], b: number[]): number[] | null {
   }
   return [M[0]![3]! / M[0]![0]!, M[1]![3]! / M[1]![1]!, M[2]![3]! / M[2]![2]!];
 }
+
+describe('constraint generation above 50,000 rows', () => {
+  // The working-set path must still give the exact plane: AM–GM's envelope log(ab) ≤ 2·log(a + b) − log 4,
+  // with the equality family a = b on every 50th row, and a decoy that must get exponent 0.
+  it('finds AM–GM exactly on 120,000 rows (Hardy, Littlewood & Pólya §2.5)', () => {
+    const rng = new Rng(12);
+    const n = 120000;
+    const y = new Float64Array(n);
+    const s = new Float64Array(n);
+    const decoy = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const a = rng.uniform(0.1, 10);
+      const b = i % 50 === 0 ? a : rng.uniform(0.1, 10);
+      y[i] = Math.log(a * b);
+      s[i] = Math.log(a + b);
+      decoy[i] = Math.log(a) + rng.uniform(-1, 1);
+    }
+    const e = tightestEnvelope(y, [s, decoy], all(n), { upper: true, maxSlope: 4 });
+    expect(e.slopes[0]).toBeCloseTo(2, 8);
+    expect(e.slopes[1]).toBeCloseTo(0, 8);
+    expect(Math.exp(e.intercept)).toBeCloseTo(0.25, 8);
+    for (let i = 0; i < n; i += 7) expect(y[i]!).toBeLessThanOrEqual(e.intercept + e.slopes[0]! * s[i]! + e.slopes[1]! * decoy[i]!);
+  });
+});

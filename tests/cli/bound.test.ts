@@ -1,5 +1,5 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { mkdtempSync, writeFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, writeFileSync, rmSync, readFileSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.ts';
@@ -128,5 +128,61 @@ describe('surmise bound', () => {
     expect(code).toBe(0);
     expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}b\/w .*no trend detected along w\n {2}b .*increasing towards low w\n/);
     expect(out).toMatch(/Hyndman & Fan \(1996\) type 7/);
+  });
+
+  // The planted table above (invented): |2a − z| ≤ 0.1·b/w should be found among monomials of b and w.
+  it('--from searches the rhs: the planted b/w comes first with c = 0.1, in the JSON contract', async () => {
+    const { code, out, err } = await run(['planted.csv', '--lhs', 'abs(2*a - z)', '--from', 'b,w', '--json', '--proposals', '3']);
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(j.proposals).toHaveLength(3);
+    const best = j.proposals[0];
+    expect(Object.keys(best)).toEqual(expect.arrayContaining(['rhs', 'exponents', 'constant', 'heldOutConstant', 'heldOutExceed', 'supremum', 'trend']));
+    expect(best.rhs).toBe('b/w');
+    expect(best.exponents).toEqual({ b: 1, w: -1 });
+    expect(best.constant).toBeLessThanOrEqual(PLANTED_C * (1 + 1e-9));
+    expect(best.constant).toBeGreaterThan(0.99 * PLANTED_C);
+    expect(best.trend.kind).toBe('none');
+    expect(best.heldOutExceed).toBeLessThanOrEqual(3);
+  });
+
+  it('--witnesses writes the witness rows with every column, atomically, and refuses to overwrite without --force', async () => {
+    const args = ['taylor.csv', '--lhs', 'abs(exp(x) - 1 - x)', '--rhs', 'x^2', '--top', '2', '--witnesses', 'w.csv'];
+    const first = await run(args);
+    expect(first.code).toBe(0);
+    expect(first.out).toMatch(/witness rows written to w\.csv\n$/);
+    const lines = readFileSync(join(dir, 'w.csv'), 'utf8').trimEnd().split('\n');
+    expect(lines[0]).toBe('bound_rhs,bound_rank,bound_row,bound_ratio,bound_lhs,bound_rhs_value,name,x');
+    expect(lines[1]).toMatch(/^x\^2,1,3,0\.71828\d*,0\.71828\d*,1,p3,1$/); // e − 2 at x = 1
+    expect(lines).toHaveLength(3);
+    const again = await run(args);
+    expect(again.code).toBe(2);
+    expect(again.err).toMatch(/w\.csv already exists.*--force/);
+    expect((await run([...args, '--force'])).code).toBe(0);
+    expect(readdirSync(dir).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+  });
+
+  it('refuses --rhs with --from, neither, and discovery flags without --from, with exit 2', async () => {
+    const both = await run(['taylor.csv', '--lhs', 'x', '--rhs', 'x', '--from', 'x']);
+    expect(both.code).toBe(2);
+    expect(both.err).toBe('surmise: give either --rhs or --from, not both [option.conflict]\n');
+    const none = await run(['taylor.csv', '--lhs', 'x']);
+    expect(none.code).toBe(2);
+    expect(none.err).toMatch(/give a right-hand side with --rhs, or search for one with --from/);
+    const stray = await run(['taylor.csv', '--lhs', 'x', '--rhs', 'x', '--max-exponent', '3']);
+    expect(stray.err).toBe('surmise: --max-exponent applies to --from [option.conflict]\n');
+    const big = await run(['planted.csv', '--lhs', 'b', '--from', 'w', '--max-exponent', '99']);
+    expect(big.code).toBe(2);
+    expect(big.err).toBe("surmise: expected --max-exponent to be an integer from 1 to 12, got '99' [option.badValue]\n");
+  });
+
+  it('--form two-sided adds both affine sides to each candidate', async () => {
+    const { code, out } = await run(['taylor.csv', '--lhs', 'exp(x)', '--rhs', 'x + 2', '--form', 'two-sided', '--json']);
+    expect(code).toBe(0);
+    const a = JSON.parse(out).results[0].affine;
+    expect(a.map((s: { form: string }) => s.form)).toEqual(['upper', 'lower']);
+    // on the six points the upper side is the chord through x = −1 and x = 1 (convexity): slope sinh(1)
+    expect(a[0].slope).toBeCloseTo(Math.sinh(1), 10);
   });
 });

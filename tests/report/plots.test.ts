@@ -89,6 +89,21 @@ describe('plot specs render to SVG with the expected marks', () => {
     expect(svg).toContain('keeping the 25 largest ratios');
   });
 
+  it('bound: witness rows are ringed, and both axes are logarithmic when every value is positive', async () => {
+    const r0 = input.bounds![0]!.results[0]!;
+    const r = { ...r0, witnesses: r0.witnesses.map((w, k) => ({ ...w, by: r0.strata[0]!.low + k * 1e-3 })) };
+    const spec = boundSpec('|2*sig - slope|', 'inj', r, 400, 5);
+    const svg = await specToSvg(spec, 'w');
+    expect(countMarks(svg, 'witnesses')).toBe(r.witnesses.length);
+    const layers = spec.layer as Array<{ name: string; encoding: { x: { scale: { type?: string } }; y: { scale: { type?: string } } } }>;
+    const positive = r.points!.by.every((v) => v > 0) && r.points!.ratio.every((v) => !Number.isFinite(v) || v > 0);
+    expect(positive).toBe(true); // the fixture: inj > 0 and ratios > 0
+    for (const l of layers.filter((x) => x.name !== 'overall')) expect([l.encoding.x.scale.type, l.encoding.y.scale.type]).toEqual(['log', 'log']);
+    // a ratio ≤ 0 among the points switches the ratio axis back to linear
+    const flat = boundSpec('|2*sig - slope|', 'inj', { ...r, points: { by: r.points!.by, ratio: r.points!.ratio.map((v, i) => (i === 0 ? 0 : v)) } }, 400, 5);
+    expect((flat.layer as typeof layers).find((l) => l.name === 'points')!.encoding.y.scale.type).toBeUndefined();
+  });
+
   it('escapes a malicious name in every piece of SVG text (titles, axes, legend)', async () => {
     const s = { x: [1, 2, 3], y: [3, 1, 2], color: [0, 1, 2], xName: EVIL, yName: EVIL, colorName: EVIL };
     const svg = await specToSvg(scatterSpec(s, { maxPoints: 100, mode: 'bin', seed: 0 }), 'j');

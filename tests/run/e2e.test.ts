@@ -159,6 +159,7 @@ describe('rerun and compare', () => {
       'attribution: { methods: [saliency, permutation], seeds: 1 }',
       'fits: [{ target: alexander_at_minus1, terms: [determinant*cos(pi*signature/2)], intercept: false }]',
       'bounds: [{ lhs: abs(signature), rhs: [crossings - seifert_circles + 1, strands], by: crossings, bins: 5 }]',
+      'discover: [{ lhs: abs(signature), from: [crossings - seifert_circles + 1, strands], proposals: 3 }]',
       'output: small-run',
     ].join('\n') + '\n',
   );
@@ -174,6 +175,15 @@ describe('rerun and compare', () => {
     expect(same.rank!.model.score).toBe(a.rank!.model.score);
     expect(same.fits).toEqual(a.fits);
     expect(same.bounds).toEqual(a.bounds);
+    // the config key `discover` searches the rhs; reproducible, and shown in the report. Seifert's bound
+    // |σ| ≤ c − s + 1 (reference-checks: random braids) means any proposal with that quantity alone has c* ≤ 1.
+    const d = a.discoveries[0]!;
+    expect(same.discoveries).toEqual(a.discoveries);
+    expect(d.proposals.length).toBeGreaterThan(0);
+    for (const p of d.proposals) {
+      if (p.exponents['crossings - seifert_circles + 1'] === 1 && p.exponents.strands === 0) expect(p.constant).toBeLessThanOrEqual(1);
+    }
+    expect(readFileSync(join(runA, 'report.md'), 'utf8')).toContain(`abs(signature) ≤ c · (${d.proposals[0]!.rhs})`);
 
     // Plant a change: one random knot's signature now breaks Seifert's bound three times over.
     const changed = lines.slice(0, 801);

@@ -6,8 +6,10 @@ import { formatNumber } from '../format.ts';
 
 /**
  * The ratio lhs/rhs of a bound against the `by` quantity (layer `points`, a seeded sample above
- * `maxPoints` that always keeps the largest ratios), the per-stratum maximum as a horizontal
- * segment across each stratum (layer `strata`), and the overall constant (layer `overall`).
+ * `maxPoints` that always keeps the largest ratios), the witness rows ringed (layer `witnesses`),
+ * the per-stratum maximum as a horizontal segment across each stratum (layer `strata`), and the
+ * overall constant (layer `overall`). Both axes are logarithmic when every value drawn on them is
+ * positive, as the trend is fitted log–log there.
  */
 export function boundSpec(
   lhs: string,
@@ -20,6 +22,13 @@ export function boundSpec(
   const layers: unknown[] = [];
   let subtitle = '';
   const pts = r.points;
+  const strata = r.strata.filter((s) => Number.isFinite(s.low) && Number.isFinite(s.high) && Number.isFinite(s.constant));
+  const wits = r.witnesses.filter((w) => w.by !== undefined && Number.isFinite(w.by) && Number.isFinite(w.ratio));
+  const positive = (xs: ArrayLike<number>) => Array.from(xs).every((v) => !Number.isFinite(v) || v > 0);
+  const logX = (!pts || positive(pts.by)) && strata.every((s) => s.low > 0) && wits.every((w) => w.by! > 0);
+  const logY = (!pts || positive(pts.ratio)) && strata.every((s) => s.constant > 0) && wits.every((w) => w.ratio > 0) && r.constant > 0;
+  const xScale = logX ? { type: 'log' } : { zero: false };
+  const yScale = logY ? { type: 'log' } : { zero: false };
   if (pts) {
     const n = Math.min(pts.by.length, pts.ratio.length);
     const keep = largestIndices(pts.ratio.slice(0, n), keepLargest);
@@ -31,21 +40,31 @@ export function boundSpec(
       data: { values: rows.map((p) => ({ b: p.x, q: p.y })) },
       mark: { type: 'circle', size: 10, opacity: 0.5, color: '#4c78a8' },
       encoding: {
-        x: { field: 'b', type: 'quantitative', title: by, scale: { zero: false } },
-        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})` },
+        x: { field: 'b', type: 'quantitative', title: by, scale: xScale },
+        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})`, scale: yScale },
       },
     });
   }
-  const strata = r.strata.filter((s) => Number.isFinite(s.low) && Number.isFinite(s.high) && Number.isFinite(s.constant));
+  if (wits.length > 0) {
+    layers.push({
+      name: 'witnesses',
+      data: { values: wits.map((w) => ({ b: w.by!, q: w.ratio, row: w.row })) },
+      mark: { type: 'point', size: 90, filled: false, strokeWidth: 2, color: '#d62728' },
+      encoding: {
+        x: { field: 'b', type: 'quantitative', title: by, scale: xScale },
+        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})`, scale: yScale },
+      },
+    });
+  }
   if (strata.length > 0) {
     layers.push({
       name: 'strata',
       data: { values: strata.map((s) => ({ b: s.low, b2: s.high, q: s.constant })) },
       mark: { type: 'rule', color: '#d62728', strokeWidth: 2.5 },
       encoding: {
-        x: { field: 'b', type: 'quantitative', title: by, scale: { zero: false } },
+        x: { field: 'b', type: 'quantitative', title: by, scale: xScale },
         x2: { field: 'b2' },
-        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})` },
+        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})`, scale: yScale },
       },
     });
   }
@@ -57,7 +76,8 @@ export function boundSpec(
       encoding: { y: { field: 'q', type: 'quantitative' } },
     });
   }
-  const note = `red: largest ratio within each stratum of ${by}; dashed: overall constant ${formatNumber(r.constant)}`;
+  const axes = logX && logY ? '; log–log axes' : logX ? `; log axis for ${by}` : logY ? '; log axis for the ratio' : '';
+  const note = `red: largest ratio within each stratum of ${by}${wits.length ? ', rings: witness rows' : ''}; dashed: overall constant ${formatNumber(r.constant)}${axes}`;
   return {
     ...baseSpec(`${lhs} ≤ c · (${r.rhs}): ratio against ${by}`, subtitle ? [subtitle, note] : note, 560, 340),
     layer: layers,
