@@ -163,7 +163,7 @@ export function joinSum(items: string[]): string {
 
 /** Canonical text of a tree. */
 export function treeText(t: Tree): string {
-  if (t.op === 'add' || t.op === 'sub' || t.op === 'shift') return sumText(t);
+  if (t.op === 'add' || t.op === 'sub' || t.op === 'shift' || t.op === 'scale') return atomText(t);
   return monomialText({ num: 1, den: 1 }, t);
 }
 

@@ -44,6 +44,8 @@ export interface EnumerateOptions {
   /** Called every few hundred terms; returns true to stop (time budget). */
   stop: () => boolean;
   progress?: (level: number) => void;
+  /** How a skipped term names screening row i (default `screening row i+1`). */
+  rowName?: (i: number) => string;
 }
 
 export interface EnumerateResult {
@@ -277,7 +279,7 @@ export function enumerateTerms(o: EnumerateOptions): EnumerateResult {
         let why: string | null = null;
         for (let i = 0; i < n && why === null; i++) { why = op.undefinedAt(p.values[i]!); bad = i; }
         if (why !== null) {
-          if (p.tree.op === 'base') skipped.push({ name: op.label(p.tree.text), reason: `'${p.tree.text}' ${why} on screening row ${bad + 1}` });
+          if (p.tree.op === 'base') skipped.push({ name: op.label(p.tree.text), reason: `'${p.tree.text}' ${why} at ${o.rowName ? o.rowName(bad) : `screening row ${bad + 1}`}` });
           continue;
         }
         emit(tree, c, level, bestOfLevel, (lo, hi) => op.apply(p.values, scratch, lo, hi));

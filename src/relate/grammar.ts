@@ -29,7 +29,7 @@ const notPow = (a: Tree): boolean => a.op !== 'pow';
 const isFn = (a: Tree, ...fs: string[]): boolean => a.op === 'fn' && fs.includes(a.f);
 
 function power(num: number, den: number): UnaryOp {
-  const text = den === 1 ? (num < 0 ? `1/x^${-num}` : `x^${num}`) : num === 1 ? 'sqrt(x)' : `x^(${num}/${den})`;
+  const text = den === 1 ? (num < 0 ? `1/x^${-num}` : `x^${num}`) : num === 1 ? 'sqrt(x)' : num === -1 ? '1/sqrt(x)' : `x^(${num}/${den})`;
   return {
     label: (arg) => (num === -1 && den === 1 ? `1/${arg}` : text.replace('x', arg)),
     cost: powCost(num, den),

@@ -7,7 +7,8 @@
  * that lowers the RSS and multiplied by 4 otherwise (Nocedal & Wright, "Numerical Optimization",
  * 2nd ed., §10.3). Standard errors from σ̂²(JᵀJ)⁻¹ at the optimum (the profiled Jacobian gives the
  * asymptotic covariance of θ; Golub & Pereyra 1973), then each constant becomes the simplest
- * rational inside its 95% interval (denominator ≤ 100), or keeps 6 significant digits.
+ * rational inside its 95% interval (denominator ≤ 100), or keeps 6 significant digits. Each
+ * constant stays within a factor 4 of its starting value: a step that leaves that range is refused.
  */
 import { constantsOf, evaluateTree, withConstants, type Tree } from './tree.ts';
 import { simplestRational } from './rational.ts';
@@ -98,6 +99,12 @@ export function fitInnerConstants(terms: Tree[], bases: Float64Array[], rows: Ar
   };
   const resid = (th: number[]): Float64Array | null => residualVector(split(th).map((t) => evaluateTree(t, bases, rows)), y);
   const ss = (r: Float64Array): number => r.reduce((s, x) => s + x * x, 0);
+  // each constant stays within a factor 4 of the grammar's constant it started from (same sign):
+  // outside, a function degenerates into its Taylor polynomial (cos(εx) with huge coefficients)
+  const inRange = (th: number[]): boolean => th.every((v, k) => {
+    const q = v / theta0[k]!;
+    return theta0[k] === 0 || (q >= 0.25 && q <= 4);
+  });
   let theta = theta0.slice();
   let r = resid(theta);
   if (!r) return null;
@@ -128,7 +135,7 @@ export function fitInnerConstants(terms: Tree[], bases: Float64Array[], rows: Ar
       const step = solve(A, g.map((v) => -v));
       if (!step) { lambda *= 4; continue; }
       const cand = theta.map((v, k) => v + step[k]!);
-      const r2 = resid(cand);
+      const r2 = inRange(cand) ? resid(cand) : null;
       const rss2 = r2 ? ss(r2) : Infinity;
       if (rss2 < rss) {
         const rel = (rss - rss2) / Math.max(rss, 1e-300);

@@ -215,6 +215,7 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   const grow = (targets: Float64Array[], levels: number, from: number, span: number): EnumerateResult =>
     enumerateTerms({
       bases: screenBases, targets, unary, maxComplexity: levels, parentsPerLevel: beam, poolPerTarget, perLevel: 4, stop,
+      rowName: (i) => `data row ${screenRows[i]! + 1}`,
       progress: (c) => progress(Math.round(from + (span * c) / levels), TOTAL),
     });
   const standardize = (v: Float64Array): Float64Array => {
