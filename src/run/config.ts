@@ -12,7 +12,7 @@ import { SurmiseError, didYouMean } from '../errors.ts';
 const positiveInt = z.number().int().min(1);
 const nonNegativeInt = z.number().int().min(0);
 const exprString = z.string().min(1);
-/** A list, where a single item may be written without brackets (`rhs: vol` = `rhs: [vol]`). */
+/** A list, where a single item may be written without brackets (`rhs: b` = `rhs: [b]`). */
 const listOf = <T extends z.ZodType>(item: T, min = 0) => z.preprocess((v) => (typeof v === 'string' ? [v] : v), z.array(item).min(min));
 
 const NetworkSchema = z.strictObject({
@@ -24,6 +24,7 @@ const NetworkSchema = z.strictObject({
   patience: positiveInt.default(8),
   batchSize: positiveInt.default(256),
   learningRate: z.number().positive().default(0.001),
+  engine: z.enum(['auto', 'native', 'tfjs']).default('auto'),
 });
 
 const AttributionSchema = z.strictObject({

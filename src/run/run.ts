@@ -35,6 +35,8 @@ export interface RunOptions {
   onRankProgress?: (e: RankProgress) => void;
   /** Called when the search screens subsets. */
   onSearchProgress?: (done: number, total: number) => void;
+  /** The network engine, over the configuration's `network.engine`. */
+  engine?: 'auto' | 'native' | 'tfjs';
 }
 
 export interface RunResults {
@@ -270,7 +272,7 @@ function buildReportInput(
             quantiles,
             strata: r.strata.map((s) => ({ low: s.low, high: s.high, n: s.n, constant: s.constant })),
             trend: r.trend && r.trend.slope !== null && r.trend.low !== null && r.trend.high !== null
-              ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, verdict: r.trend.verdict }
+              ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, kind: r.trend.kind, verdict: r.trend.verdict }
               : null,
             points: { by: pick(by, idx), ratio: pick(ratio, idx) },
           };
@@ -366,6 +368,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     ...(config.network.task !== 'auto' ? { task: config.network.task } : {}),
     hidden: config.network.hidden,
     epochs: config.network.epochs,
+    engine: opts.engine ?? config.network.engine,
     seed: config.seed,
     dropTop: config.attribution.dropTop,
     ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
