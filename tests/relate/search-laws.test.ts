@@ -30,7 +30,8 @@ const LAWS: Law[] = [
 function lawTable(l: Law, seed: number) {
   const rng = new Rng(seed);
   const u = () => Float64Array.from({ length: N }, () => rng.uniform(0.5, 3));
-  const cols = l.complex ? { a: u(), z: { re: u(), im: u() }, d: u(), g: u(), h: u() } : { a: u(), b: u(), c: u(), d: u(), g: u() };
+  type Cols = Record<string, Float64Array | { re: Float64Array; im: Float64Array }>;
+  const cols: Cols = l.complex ? { a: u(), z: { re: u(), im: u() }, d: u(), g: u(), h: u() } : { a: u(), b: u(), c: u(), d: u(), g: u() };
   const exact = compileExpression(makeTable(cols), l.law).evaluate().re;
   const mean = exact.reduce((s, x) => s + x, 0) / N;
   const sd = Math.sqrt(exact.reduce((s, x) => s + (x - mean) ** 2, 0) / N);
