@@ -16,6 +16,8 @@ import { splitRows } from '../relate/split-option.ts';
 import { withDerived } from '../relate/rows.ts';
 import { alignTable, num, toJson } from '../relate/text.ts';
 import { intOption } from './fit.ts';
+import { rangeHelp } from './options.ts';
+import { RELATE_LIMITS } from '../relate/limits.ts';
 
 interface SearchOptions {
   target: string;
@@ -112,13 +114,13 @@ export function registerSearch(program: Command, io: CliIO): void {
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
     .requiredOption('--target <expr>', 'expression to predict')
     .requiredOption('--from <columns>', 'columns to build terms from, comma-separated')
-    .option('--max-terms <k>', 'largest number of terms besides the intercept (at most 6)', '2')
+    .option('--max-terms <k>', `largest number of terms besides the intercept${rangeHelp(RELATE_LIMITS.maxTerms)}`, '2')
     .option('--powers <lo..hi>', 'integer powers in the grammar', '-3..3')
-    .option('--max-complexity <c>', 'largest complexity of one term (1 to 12)', '7')
+    .option('--max-complexity <c>', `largest complexity of one term${rangeHelp(RELATE_LIMITS.maxComplexity)}`, '7')
     .option('--time <duration>', 'time budget for growing terms, e.g. 60s or 2m', '60s')
     .option('--lattice <step>', 'integer target: auto (detect the lattice), off, or a step; reports how often rounding the formula to it is exact', 'auto')
     .option('--split <spec>', 'selection and held-out parts: random:TRAIN,VALIDATION,TEST (select on train, measure on test) or where:CONDITION; default a random 60/40 split')
-    .option('--top <n>', 'candidates to list', '10')
+    .option('--top <n>', `candidates to list${rangeHelp(RELATE_LIMITS.top)}`, '10')
     .option('--seed <n>', 'seed for the split', '0')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
@@ -128,14 +130,11 @@ export function registerSearch(program: Command, io: CliIO): void {
     .action(async (file: string, o: SearchOptions) => {
       const seed = intOption('--seed', o.seed, 0);
       const maxTerms = intOption('--max-terms', o.maxTerms, 1);
-      const top = intOption('--top', o.top, 1);
+      const top = intOption('--top', o.top, 1, RELATE_LIMITS.top.max);
       const powers = parsePowers(o.powers);
       const timeLimit = parseDuration(o.time);
       const lattice = parseLattice(o.lattice);
-      const maxComplexity = intOption('--max-complexity', o.maxComplexity, 1);
-      if (maxComplexity > 12) throw new SurmiseError('relate.badOption', `expected --max-complexity to be an integer from 1 to 12, got ${maxComplexity}`);
-      if (maxTerms > 6) throw new SurmiseError('relate.badMaxTerms', `expected --max-terms to be an integer from 1 to 6, got ${maxTerms}`);
-      if (top > 1000) throw new SurmiseError('relate.badTop', `expected --top to be an integer from 1 to 1000, got ${top}`);
+      const maxComplexity = intOption('--max-complexity', o.maxComplexity, 1, RELATE_LIMITS.maxComplexity.max);
       const from = o.from.split(',').map((s) => s.trim());
       from.forEach((c, i) => {
         if (c === '') throw new SurmiseError('relate.badOption', `--from: column ${i + 1} of the list is empty (columns are separated by ',')`);

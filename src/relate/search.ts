@@ -9,6 +9,8 @@
  * measured on the HELD-OUT rows, which took no part in any choice.
  */
 import { SurmiseError } from '../errors.ts';
+import { tooLarge } from '../util/integer.ts';
+import { RELATE_LIMITS } from './limits.ts';
 import type { Table } from '../table/types.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import { baseQuantities, type SkippedTerm } from './bases.ts';
@@ -115,8 +117,8 @@ export interface SearchResult {
 interface OptionRule { key: keyof SearchSpec; ok: (v: number) => boolean; expected: string; code: string }
 const OPTION_RULES: OptionRule[] = [
   { key: 'maxTerms', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 6, expected: 'the maximum number of terms to be an integer from 1 to 6', code: 'relate.badMaxTerms' },
-  { key: 'top', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 1000, expected: 'the number of candidates to report to be an integer from 1 to 1000', code: 'relate.badTop' },
-  { key: 'maxComplexity', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 12, expected: 'the largest complexity of a term to be an integer from 1 to 12', code: 'relate.badOption' },
+  { key: 'top', ok: (v) => Number.isInteger(v) && v >= 1, expected: 'the number of candidates to report to be a positive integer', code: 'relate.badTop' },
+  { key: 'maxComplexity', ok: (v) => Number.isInteger(v) && v >= 1, expected: 'the largest complexity of a term to be a positive integer', code: 'relate.badOption' },
   { key: 'beam', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 5000, expected: 'the beam width to be an integer from 1 to 5000', code: 'relate.badOption' },
   { key: 'maxExhaustive', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 50_000_000, expected: 'the subset limit to be an integer from 1 to 50,000,000', code: 'relate.badOption' },
   { key: 'screenRows', ok: (v) => Number.isInteger(v) && v >= 50 && v <= 1_000_000, expected: 'the screening rows to be an integer from 50 to 1,000,000', code: 'relate.badOption' },
@@ -129,6 +131,10 @@ function checkOptions(spec: SearchSpec): void {
     const v = spec[r.key];
     if (v !== undefined && !(typeof v === 'number' && r.ok(v)))
       throw new SurmiseError(r.code, `expected ${r.expected}, got ${String(v)}`, { key: r.key });
+  }
+  for (const key of ['top', 'maxComplexity'] as const) {
+    const v = spec[key];
+    if (v !== undefined && v > RELATE_LIMITS[key].max) throw tooLarge(key, v, RELATE_LIMITS[key]);
   }
   const p = spec.powers;
   if (p && !(Number.isInteger(p[0]) && Number.isInteger(p[1]) && p[0] <= p[1] && Math.max(-p[0], p[1]) <= 12 && (p[0] !== 0 || p[1] !== 0)))
@@ -296,7 +302,9 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   if (process.env.SEARCH_DEBUG) console.error('refit', ((now() - tB) / 1000).toFixed(2));
   // merge formulas that are the same function: equal rounded predictions on probe rows
   const probe = heldRows.slice(0, Math.min(64, heldRows.length));
-  const order2 = rankBest(survivors, heldRows.length);
+  const yHeld = gather(target.values, heldRows);
+  const yHeldMean = yHeld.reduce((q, x) => q + x, 0) / yHeld.length;
+  const order2 = rankBest(survivors, heldRows.length, Math.sqrt(yHeld.reduce((q, x) => q + (x - yHeldMean) ** 2, 0) / yHeld.length));
   const seenFn = new Map<string, SearchCandidate>();
   let merged = 0;
   const distinct: SearchCandidate[] = [];
@@ -340,9 +348,9 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
  * an RMSE estimate under Gaussian residuals, common practice); the formulas with RMSE ≤ τ·e* "reach"
  * it and come first, simplest first (then by RMSE); the rest follow by RMSE.
  */
-export function rankBest<C extends { heldOutRmse: number; complexity: number }>(cands: C[], nHeld: number): C[] {
+export function rankBest<C extends { heldOutRmse: number; complexity: number }>(cands: C[], nHeld: number, targetSd = 0): C[] {
   const best = Math.min(...cands.map((c) => c.heldOutRmse));
-  const reach = best * (1 + 2 / Math.sqrt(2 * Math.max(nHeld, 1)));
+  const reach = best * (1 + 2 / Math.sqrt(2 * Math.max(nHeld, 1))) + 1e-9 * targetSd;
   return cands.slice().sort((a, b) => {
     const ra = a.heldOutRmse <= reach ? 0 : 1;
     const rb = b.heldOutRmse <= reach ? 0 : 1;
@@ -384,7 +392,11 @@ function refit(
   const all = Int32Array.from({ length: heldRows.length }, (_, i) => heldRows[i]!);
   const pred = predict(fit.coef);
   const heldOutRmse = rmseOn(pred, y, all);
-  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simplestRational(fit.low[j]!, fit.high[j]!, 1000)));
+  // an exact law is known only to double rounding: each interval is at least ±1e-9·SD(y)/SD(term)
+  const sd = (v: Float64Array): number => { const m = v.reduce((q, x) => q + x, 0) / v.length; return Math.sqrt(v.reduce((q, x) => q + (x - m) ** 2, 0) / v.length); };
+  const sdY = sd(gather(y, selRows));
+  const eps = [1e-9 * sdY, ...cols.map((c) => 1e-9 * sdY / (sd(c) || 1))];
+  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simplestRational(fit.low[j]! - eps[j]!, fit.high[j]! + eps[j]!, 1000)));
   const rounded = Float64Array.from(fit.coef, (c, j) => (rationals[j] ? rationals[j]!.num / rationals[j]!.den : c));
   const rpred = predict(rounded);
   const coefs = Array.from(fit.coef);

@@ -5,6 +5,8 @@
  * G = ZᵀZ, b = Zᵀy (e.g. A. Miller, "Subset Selection in Regression", 2nd ed., ch. 3); the depth-
  * first enumeration extends a Cholesky factor of Gₛ by one row per added term, so a subset costs
  * O(k²). A pivot ≤ 1e-9 (collinear within 1e-9 of a unit diagonal) ends that branch and is counted.
+ * An RSS below 1e-12·yᵀy is floored there (the Gram arithmetic cannot rank such fits); ties in BIC
+ * go to the simpler subset.
  */
 
 export interface ScoredSubset {
@@ -94,14 +96,14 @@ export function subsetSearch(
       L[k * K + k] = piv;
       z[k] = zj / piv;
       const e = explained + z[k]! * z[k]!;
-      const rss = Math.max(yy - e, 1e-300 * yy);
+      const rss = Math.max(yy - e, 1e-12 * yy); // below ~1e-12·yᵀy the Gram arithmetic cannot tell fits apart: ties
       const c = cx + complexities[j]!;
       s.push(j);
       const bic = n * Math.log(rss / n) + (s.length + 2) * Math.log(n);
-      if (pool.length < keep || bic < worst) {
+      if (pool.length < keep || bic <= worst) {
         pool.push({ s: s.slice(), rss, bic, complexity: c });
         if (pool.length >= 2 * keep) {
-          pool.sort((x, w) => x.bic - w.bic);
+          pool.sort((x, w) => x.bic - w.bic || x.complexity - w.complexity);
           pool = pool.slice(0, keep);
           worst = pool[keep - 1]!.bic;
         }
@@ -115,7 +117,7 @@ export function subsetSearch(
     }
   };
   rec(0, 0, 0);
-  pool.sort((x, w) => x.bic - w.bic);
+  pool.sort((x, w) => x.bic - w.bic || x.complexity - w.complexity);
   pool = pool.slice(0, keep);
   const inPool = new Set(pool.map((p) => p.s.join(',')));
   const extra = [...bestAt.values()].filter((p) => !inPool.has(p.s.join(','))).sort((x, w) => x.complexity - w.complexity);
