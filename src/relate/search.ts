@@ -21,7 +21,7 @@ import { unaryOps } from './grammar.ts';
 import { fitInnerConstants, residualVector } from './inner-constants.ts';
 import { detectLattice, exactFraction, type Lattice } from './lattice.ts';
 import { lstsq } from './lstsq.ts';
-import { simplestRational, type Rational } from './rational.ts';
+import { simpleFraction, type Rational } from './rational.ts';
 import { completeRows, realExpression, withDerived, type DroppedRows } from './rows.ts';
 import { countSubsets, subsetSearch } from './subsets.ts';
 import { complexity, constantsOf, evaluateTree, firstBase, type Tree } from './tree.ts';
@@ -70,7 +70,7 @@ export interface SearchCandidate {
   se: number[];
   low: number[];
   high: number[];
-  /** Simplest rational inside each interval, or null. */
+  /** The one fraction with denominator ≤ 12 inside each interval (simpleFraction), or null. */
   rationals: Array<Rational | null>;
   intercept: { coef: number; se: number; low: number; high: number; rational: Rational | null };
   /** Numeric constants inside the terms, fitted by Levenberg–Marquardt: estimate, SE, value used. */
@@ -396,7 +396,7 @@ function refit(
   const sd = (v: Float64Array): number => { const m = v.reduce((q, x) => q + x, 0) / v.length; return Math.sqrt(v.reduce((q, x) => q + (x - m) ** 2, 0) / v.length); };
   const sdY = sd(gather(y, selRows));
   const eps = [1e-9 * sdY, ...cols.map((c) => 1e-9 * sdY / (sd(c) || 1))];
-  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simplestRational(fit.low[j]! - eps[j]!, fit.high[j]! + eps[j]!, 1000)));
+  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simpleFraction(fit.low[j]! - eps[j]!, fit.high[j]! + eps[j]!).rational));
   const rounded = Float64Array.from(fit.coef, (c, j) => (rationals[j] ? rationals[j]!.num / rationals[j]!.den : c));
   const rpred = predict(rounded);
   const coefs = Array.from(fit.coef);
