@@ -22,7 +22,7 @@ export { gordonLitherland, checkerboard, type GordonLitherland } from './goeritz
 export { foxAlexander } from './fox.ts';
 export { levineTristram, alexanderUnitRoots, polynomialRoots, symmetricEigenvalues } from './levine.ts';
 export { naturalSlope } from './slope.ts';
-export { parseCode, detectKind, splitDiagramLines, DIAGRAM_KINDS, type DiagramKind, type ParsedCode, type DiagramSource } from './parse.ts';
+export { parseCode, detectKind, splitDiagramLines, checkDiagramSize, MAX_STRANDS, MAX_CROSSINGS, DIAGRAM_KINDS, type DiagramKind, type ParsedCode, type DiagramSource } from './parse.ts';
 export { parseDiagram, diagramFrom, type Diagram } from './diagram.ts';
 export {
   computeInvariants,

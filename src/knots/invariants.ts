@@ -17,7 +17,7 @@
  * Levine–Tristram signatures at ω ≠ −1) comes from the braid that Vogel's algorithm produces, and
  * its signature is checked against Gordon–Litherland (a mismatch is an internal error, exit 1).
  */
-import { braidSeifertMatrix, burauAlexander } from './braid.ts';
+import { braidSeifertMatrix, burauAlexander, burauAlexanderExact } from './braid.ts';
 import type { Diagram } from './diagram.ts';
 import { symmetricInertia } from './exact.ts';
 import { foxAlexander } from './fox.ts';
@@ -26,6 +26,9 @@ import { alexanderUnitRoots, levineTristram } from './levine.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
 import { pdToBraid } from './vogel.ts';
 import { centre, exactOut, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
+
+/** Braid words up to this length use the float64 Burau product first (fast for short words). */
+const FLOAT_BURAU_MAX_LENGTH = 100;
 
 export const INVARIANT_NAMES = [
   'crossings',
@@ -156,12 +159,11 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
     const inertia = needSig || needAlex ? symmetricInertia(S) : undefined;
     if (inertia && want.has('signature')) res.signature = inertia.positive - inertia.negative;
     if (needAlex) {
+      // float64 Burau for short words while every coefficient stays below 2^52; packed big integers
+      // for long words (their polynomial determinant is where the time goes) and beyond 2^52
+      const raw = (d.braid.word.length <= FLOAT_BURAU_MAX_LENGTH ? burauAlexander(d.braid) : undefined) ?? burauAlexanderExact(d.braid);
       let alex: LaurentPolynomial;
-      const raw = burauAlexander(d.braid);
-      if (raw === undefined) {
-        // exact fallback: Δ = t^{-m/2} det(V − tVᵀ)
-        alex = centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V![j]![i]!))));
-      } else if (isKnot) alex = normaliseKnot(raw);
+      if (isKnot) alex = normaliseKnot(raw);
       else alex = fixLinkSign(centre(raw), V, inertia!);
       res.alexander = alex;
       res.alexanderText = formatLaurent(alex);
