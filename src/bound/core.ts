@@ -1,5 +1,5 @@
 import { quantilesType7InPlace, QUANTILE_DEFINITION } from './quantile.ts';
-import { equalCountStrata, type Stratum } from './strata.ts';
+import { equalCountStrata, stratumQuantiles, type Stratum } from './strata.ts';
 import { topK } from './topk.ts';
 import { slopeInterval } from './trend.ts';
 
@@ -7,22 +7,35 @@ import { slopeInterval } from './trend.ts';
 export const UPPER_PROBABILITIES = [0.5, 0.9, 0.99, 0.999] as const;
 export const LOWER_PROBABILITIES = [0.5, 0.1, 0.01, 0.001] as const;
 
-export interface Trend {
-  /** Least-squares slope of log(stratum constant) on log(stratum centre) (or log(stratum rank)). */
+/** Fitted log-log slope of one stratum statistic along `by`, with its 95% interval. */
+export interface TrendLine {
+  /** Least-squares slope of log(stratum statistic) on log(stratum centre) (or log(stratum rank)); null when undetermined. */
   slope: number | null;
   /** 95% interval of the slope (Student's t, strata − 2 degrees of freedom). */
   low: number | null;
   high: number | null;
+  /** 'none': the interval contains 0 (or no slope could be fitted); 'up': the statistic increases towards high `by`; 'down': towards low `by`. */
+  kind: 'none' | 'up' | 'down';
+}
+
+export interface Trend extends TrendLine {
   level: number;
   /** 'median': x = log of the median of `by` in each stratum; 'rank': x = log(1, 2, …) because `by` takes values ≤ 0. */
   basis: 'median' | 'rank';
-  /** 'bounded': the slope interval contains 0; 'unbounded': the constant worsens (grows, or shrinks in the lower form) along one direction of `by`. */
-  kind: 'bounded' | 'unbounded' | 'undetermined';
-  /** Direction of `by` in which the constant worsens (upper form: grows; lower form: shrinks). */
-  direction: 'increasing' | 'decreasing' | null;
-  /** The verdict in words. */
+  /** false when no slope could be tested (fewer than 3 strata, a stratum constant ≤ 0, one centre): kind is then 'none'. */
+  determined: boolean;
+  /** The same trend for a high stratum quantile of the ratio (upper form 0.9, lower form 0.1). */
+  quantile: (TrendLine & { p: number }) | null;
+  /** When the stratum constant trends: the rows beyond every stratum constant of the other half of `by`. */
+  drivers: { rows: number; share: number; side: 'low' | 'high'; limit: number } | null;
+  /** The verdict in words: starts with "no trend detected", "increasing towards high …" or "increasing towards low …". */
   verdict: string;
+  /** Kept with every verdict. */
+  caveat: string;
 }
+
+export const TREND_CAVEAT =
+  'a trend towards a finite limit is still a trend, and "no trend detected" on this table is evidence, not a proof that a constant holds';
 
 export interface ArrayBound {
   /** Upper form: c* = max ratio; lower form: min ratio. */
@@ -91,7 +104,7 @@ export function boundArrays(
     for (let t = 0; t < n; t++) byMin = Math.min(byMin, by[rows[t]!]!);
     const basis: Trend['basis'] = byMin > 0 ? 'median' : 'rank';
     if (basis === 'rank') notes.push(`${byName} takes values ≤ 0 (min ${byMin}), so the trend uses log of the stratum rank instead of log of its median`);
-    trend = fitTrend(strata, basis, upper, byName);
+    trend = fitTrend(strata, basis, upper, byName, stratumQuantiles(by, ratio, rows, strata, upper ? 0.9 : 0.1), { ratio, by, rows });
     const s = strata.findIndex((st) => st.witness === witnessRows[0]);
     if (strata.length >= 2 && s === 0) extremeStratum = 'lowest';
     if (strata.length >= 2 && s === strata.length - 1) extremeStratum = 'highest';
@@ -105,32 +118,105 @@ export function boundArrays(
   return { constant, witnessRows, quantiles, quantileDefinition: QUANTILE_DEFINITION, strata, trend, extremeStratum, notes };
 }
 
-function fitTrend(strata: Stratum[], basis: Trend['basis'], upper: boolean, byName: string): Trend {
+/** One log-log trend line of per-stratum values (all > 0). */
+function trendLine(xs: number[], values: number[]): TrendLine | null {
+  if (values.some((v) => !(v > 0))) return null;
+  const fit = slopeInterval(xs, values.map(Math.log), 0.95);
+  if (!fit) return null;
+  const kind = fit.low > 0 ? 'up' : fit.high < 0 ? 'down' : 'none';
+  return { slope: fit.slope, low: fit.low, high: fit.high, kind };
+}
+
+function fitTrend(
+  strata: Stratum[],
+  basis: Trend['basis'],
+  upper: boolean,
+  byName: string,
+  q: { p: number; values: number[] },
+  data: { ratio: Float64Array; by: Float64Array; rows: Int32Array },
+): Trend {
   if (strata.length < 3) return undetermined(`only ${strata.length} ${strata.length === 1 ? 'stratum' : 'strata'}: at least 3 are needed for a slope interval`, basis);
   const bad = strata.filter((s) => !(s.constant > 0)).length;
   if (bad > 0) return undetermined(`${bad} strata have a constant ≤ 0, so log(constant) is undefined`, basis);
   const x = strata.map((s, i) => Math.log(basis === 'median' ? s.centre : i + 1));
-  const y = strata.map((s) => Math.log(s.constant));
-  const fit = slopeInterval(x, y, 0.95);
-  if (!fit) return undetermined(`every stratum has the same centre of ${byName}`, basis);
-  const what = basis === 'median' ? `log-log slope of the stratum constant on the median of ${byName}` : `slope of log(stratum constant) on log(stratum rank)`;
+  const line = trendLine(x, strata.map((s) => s.constant));
+  if (!line) return undetermined(`every stratum has the same centre of ${byName}`, basis);
+  const ql = trendLine(x, q.values);
+  const stat = upper ? 'stratum maximum' : 'stratum minimum';
+  const what = basis === 'median' ? `log-log slope of the ${stat} on the median of ${byName}` : `slope of log(${stat}) on log(stratum rank)`;
   const cs = strata.map((s) => s.constant);
-  const spread = `; stratum c* from ${fmt(Math.min(...cs))} to ${fmt(Math.max(...cs))}`;
-  const ci = `${fmt(fit.slope)}, 95% interval [${fmt(fit.low)}, ${fmt(fit.high)}]`;
-  const base = { slope: fit.slope, low: fit.low, high: fit.high, level: 0.95, basis };
-  if (fit.low <= 0 && fit.high >= 0) {
-    return { ...base, kind: 'bounded', direction: null, verdict: `bounded: no trend along ${byName} (${what} ${ci} contains 0${spread})` };
+  const ci = `${fmt(line.slope!)}, 95% interval [${fmt(line.low!)}, ${fmt(line.high!)}]`;
+  const parts = [`${what} ${ci}; ${stat} from ${fmt(Math.min(...cs))} to ${fmt(Math.max(...cs))}`];
+  let drivers: Trend['drivers'] = null;
+  if (line.kind !== 'none') {
+    drivers = findDrivers(strata, line.kind, upper, data);
+    const cmp = drivers.side === 'low' ? '≤' : '≥';
+    parts.push(`set by ${drivers.rows} ${drivers.rows === 1 ? 'row' : 'rows'} (${fmtShare(drivers.share)}) with ${byName} ${cmp} ${fmt(drivers.limit)} beyond every ${stat} of the other half`);
   }
-  // upper form worsens where the constant grows; lower form where it shrinks
-  const rising = fit.low > 0;
-  const direction = rising === upper ? 'increasing' : 'decreasing';
-  const verb = upper ? 'grows' : 'shrinks';
-  const words = direction === 'increasing' ? `${verb} along ${byName}` : `${verb} as ${byName} decreases`;
-  return { ...base, kind: 'unbounded', direction, verdict: `${words} (${what} ${ci} excludes 0${spread})` };
+  if (ql) parts.push(`${q.p} quantile: ${words(ql.kind, byName)} (slope ${fmt(ql.slope!)}, [${fmt(ql.low!)}, ${fmt(ql.high!)}])`);
+  return {
+    ...line,
+    level: 0.95,
+    basis,
+    determined: true,
+    quantile: ql ? { ...ql, p: q.p } : null,
+    drivers,
+    verdict: `${words(line.kind, byName)} (${parts.join('; ')})`,
+    caveat: TREND_CAVEAT,
+  };
+}
+
+function words(kind: TrendLine['kind'], byName: string): string {
+  return kind === 'none' ? `no trend detected along ${byName}` : `increasing towards ${kind === 'up' ? 'high' : 'low'} ${byName}`;
+}
+
+function fmtShare(s: number): string {
+  return `${Number((100 * s).toPrecision(2))}% of rows`;
+}
+
+/**
+ * The rows that make the stratum constant trend: at the worse end of `by` (upper form: where the
+ * maximum is larger; lower form: where the minimum is smaller), the rows whose ratio lies beyond
+ * every stratum constant of the other half, with the `by` value that bounds them.
+ */
+function findDrivers(
+  strata: Stratum[],
+  kind: 'up' | 'down',
+  upper: boolean,
+  { ratio, by, rows }: { ratio: Float64Array; by: Float64Array; rows: Int32Array },
+): NonNullable<Trend['drivers']> {
+  const side: 'low' | 'high' = (kind === 'up') === upper ? 'high' : 'low';
+  const half = Math.floor(strata.length / 2);
+  const other = side === 'high' ? strata.slice(0, half) : strata.slice(strata.length - half);
+  const ref = upper ? Math.max(...other.map((s) => s.constant)) : Math.min(...other.map((s) => s.constant));
+  let count = 0;
+  let limit = side === 'low' ? -Infinity : Infinity;
+  for (let t = 0; t < rows.length; t++) {
+    const r = rows[t]!;
+    const v = ratio[r]!;
+    if (upper ? v > ref : v < ref) {
+      count++;
+      const b = by[r]!;
+      if (side === 'low' ? b > limit : b < limit) limit = b;
+    }
+  }
+  return { rows: count, share: count / rows.length, side, limit };
 }
 
 function undetermined(reason: string, basis: Trend['basis']): Trend {
-  return { slope: null, low: null, high: null, level: 0.95, basis, kind: 'undetermined', direction: null, verdict: `undetermined: ${reason}` };
+  return {
+    slope: null,
+    low: null,
+    high: null,
+    kind: 'none',
+    level: 0.95,
+    basis,
+    determined: false,
+    quantile: null,
+    drivers: null,
+    verdict: `no trend detected: not testable, ${reason}`,
+    caveat: TREND_CAVEAT,
+  };
 }
 
 /** Short numeric display: `digits` significant figures (default 4). */

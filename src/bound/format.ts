@@ -41,6 +41,7 @@ export function formatBound(res: BoundResult): string {
       );
     }
     out.push(`  trend: ${r.trend.verdict}`);
+    if (r.trend.determined) out.push(`  caveat: ${r.trend.caveat}`);
     for (const note of r.notes) out.push(`  note: ${note}`);
   }
   if (res.results.length > 1) {

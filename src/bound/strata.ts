@@ -1,4 +1,5 @@
 import { selectValues } from './select.ts';
+import { quantilesType7InPlace } from './quantile.ts';
 
 /** One stratum of the rows by the value of `by`. */
 export interface Stratum {
@@ -162,4 +163,28 @@ function swapF(a: Float64Array, i: number, j: number): void {
   const t = a[i]!;
   a[i] = a[j]!;
   a[j] = t;
+}
+
+/**
+ * The type-7 quantile at `p` of the ratio within each stratum (strata as returned by
+ * equalCountStrata: a row belongs to the last stratum whose `low` is ≤ its `by`). O(n log k + n).
+ * @example stratumQuantiles(by, ratio, rows, strata, 0.9) // [q₀.₉ of stratum 1, …]
+ */
+export function stratumQuantiles(by: Float64Array, ratio: Float64Array, rows: Int32Array, strata: Stratum[], p: number): { p: number; values: number[] } {
+  const k = strata.length;
+  const buckets = strata.map((s) => new Float64Array(s.n));
+  const fill = new Int32Array(k);
+  for (let t = 0; t < rows.length; t++) {
+    const r = rows[t]!;
+    const b = by[r]!;
+    let lo = 0;
+    let hi = k - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >>> 1;
+      if (strata[mid]!.low <= b) lo = mid;
+      else hi = mid - 1;
+    }
+    buckets[lo]![fill[lo]!++] = ratio[r]!;
+  }
+  return { p, values: buckets.map((a, s) => quantilesType7InPlace(a.subarray(0, fill[s]!), [p])[0]!) };
 }

@@ -326,7 +326,7 @@ export function boundsSection(input: ReportInput, plan: PlotPlan, set: SectionSe
             `Trend of the per-stratum constant along ${b.by ?? 'the strata'}: slope ${formatMaybe(r.trend.slope)} (interval ${formatInterval(r.trend.low, r.trend.high)}); verdict: `,
             { text: r.trend.verdict, strong: true },
             grows
-              ? '. The constant changes systematically along this quantity and grows towards one end: no fixed constant may hold on the whole family.'
+              ? '. The constant changes systematically along this quantity. A trend towards a finite limit is still a trend: this alone does not show that no constant holds, only that the table does not pin one down along this quantity.'
               : '.',
           ],
         });

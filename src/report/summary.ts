@@ -105,7 +105,7 @@ export function summaryBlocks(input: ReportInput): Block[] {
         flags.push([
           'The constant of ',
           { text: `${b.lhs} ≤ c · (${res.rhs})`, code: true },
-          ` is not stable along ${by}:${span} trend slope ${formatMaybe(res.trend.slope)} (interval ${formatInterval(res.trend.low, res.trend.high)}), verdict: ${res.trend.verdict}. It grows towards one end, so no fixed constant may hold on the whole family there.`,
+          ` is not stable along ${by}:${span} trend slope ${formatMaybe(res.trend.slope)} (interval ${formatInterval(res.trend.low, res.trend.high)}), verdict: ${res.trend.verdict}. A trend towards a finite limit is still a trend: this alone does not show that no constant holds.`,
         ]);
       }
     });

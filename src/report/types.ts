@@ -112,7 +112,7 @@ export interface ReportBoundResult {
   quantiles: Record<string, number>;
   strata: Array<{ low: number; high: number; n: number; constant: number }>;
   /** Trend of the per-stratum constant along `by`; slope and interval may be null when undetermined. */
-  trend: { slope: number | null; low: number | null; high: number | null; verdict: string } | null;
+  trend: { slope: number | null; low: number | null; high: number | null; kind?: 'none' | 'up' | 'down'; verdict: string } | null;
   points?: { by: number[]; ratio: number[] };
 }
 

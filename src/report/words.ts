@@ -107,8 +107,9 @@ export function witnessLabels(w: ReportWitness): string {
  * trend's interval excludes zero (either sign: growth as `by` shrinks counts too) or the verdict
  * says it grows.
  */
-export function trendGrows(t: { slope: number | null; low: number | null; high: number | null; verdict: string } | null): boolean {
+export function trendGrows(t: { slope: number | null; low: number | null; high: number | null; kind?: 'none' | 'up' | 'down'; verdict: string } | null): boolean {
   if (t === null) return false;
+  if (t.kind !== undefined) return t.kind !== 'none';
   const excludesZero = (t.low !== null && Number.isFinite(t.low) && t.low > 0) || (t.high !== null && Number.isFinite(t.high) && t.high < 0);
   return excludesZero || /\b(grow|grows|growing|increas\w*|unbounded|diverg\w*)\b/i.test(t.verdict);
 }

@@ -270,7 +270,7 @@ function buildReportInput(
             quantiles,
             strata: r.strata.map((s) => ({ low: s.low, high: s.high, n: s.n, constant: s.constant })),
             trend: r.trend && r.trend.slope !== null && r.trend.low !== null && r.trend.high !== null
-              ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, verdict: r.trend.verdict }
+              ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, kind: r.trend.kind, verdict: r.trend.verdict }
               : null,
             points: { by: pick(by, idx), ratio: pick(ratio, idx) },
           };

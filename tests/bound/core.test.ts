@@ -111,7 +111,8 @@ describe('known inequalities', () => {
     expect(res.constant).toBeGreaterThan(1 / 6 - 1e-3);
     expect(x[res.witnessRows[0]!]).toBe(Math.min(...x));
     // c* per stratum rises towards 1/6 as x decreases (ratio = 1/6 − x²/120 + …), so the mildest trend is flagged with its direction
-    expect(res.trend.direction).toBe('decreasing');
+    expect(res.trend.kind).toBe('down');
+    expect(res.trend.verdict).toMatch(/^increasing towards low x /);
     expect(res.extremeStratum).toBe('lowest');
   });
 
@@ -159,30 +160,33 @@ describe('trend of the per-stratum constant', () => {
   };
 
   // On ratio = t·u (u uniform), per-stratum max ≈ the stratum's top t: log-log slope 1 (by construction).
-  it('ratio growing like t: "grows along t", slope ≈ 1', () => {
+  it('ratio growing like t: "increasing towards high t", slope ≈ 1, for the maximum and the 0.9 quantile', () => {
     const res = family(1, (t, u) => t * u);
-    expect(res.trend.kind).toBe('unbounded');
-    expect(res.trend.direction).toBe('increasing');
-    expect(res.trend.verdict).toMatch(/^grows along t /);
+    expect(res.trend.kind).toBe('up');
+    expect(res.trend.verdict).toMatch(/^increasing towards high t /);
+    expect(res.trend.quantile!.kind).toBe('up');
+    expect(res.trend.quantile!.slope!).toBeCloseTo(1, 1);
+    expect(res.trend.caveat).toMatch(/finite limit is still a trend/);
     expect(res.trend.slope!).toBeCloseTo(1, 1);
     expect(res.extremeStratum).toBe('highest');
   });
 
-  it('ratio = u/t: "grows as t decreases", slope ≈ −1', () => {
+  it('ratio = u/t: "increasing towards low t", slope ≈ −1', () => {
     const res = family(2, (t, u) => u / t);
-    expect(res.trend.direction).toBe('decreasing');
-    expect(res.trend.verdict).toMatch(/^grows as t decreases /);
+    expect(res.trend.kind).toBe('down');
+    expect(res.trend.verdict).toMatch(/^increasing towards low t /);
     expect(res.trend.slope!).toBeCloseTo(-1, 1);
     expect(res.extremeStratum).toBe('lowest');
   });
 
   // Bounded ratio (uniform noise, independent of t): the 95% interval should contain 0 in about 95% of seeds
   // (coverage of the t interval, common practice); 40 seeds, at most 6 alarms (binomial tail ≈ 1.4%).
-  it('bounded ratio (uniform noise): verdict bounded in at least 34 of 40 seeds', () => {
-    let bounded = 0;
-    for (let s = 0; s < 40; s++) if (family(100 + s, (_t, u) => u).trend.kind === 'bounded') bounded++;
-    expect(bounded).toBeGreaterThanOrEqual(34);
-    expect(family(100, (_t, u) => u).trend.verdict).toMatch(/^bounded: no trend along t/);
+  it('ratio independent of t (uniform noise): "no trend detected" in at least 34 of 40 seeds', () => {
+    let none = 0;
+    for (let s = 0; s < 40; s++) if (family(100 + s, (_t, u) => u).trend.kind === 'none') none++;
+    expect(none).toBeGreaterThanOrEqual(34);
+    expect(family(100, (_t, u) => u).trend.verdict).toMatch(/^no trend detected along t/);
+    expect(family(100, (_t, u) => u).trend.drivers).toBeNull();
   });
 
   it('in the lower form a constant falling towards 0 along t is the failure direction', () => {
@@ -190,7 +194,30 @@ describe('trend of the per-stratum constant', () => {
     const t = Array.from({ length: 5000 }, () => Math.exp(rng.uniform(0, 4)));
     const ratio = Float64Array.from(t, (v) => (1 + rng.next()) / v);
     const res = boundArrays(ratio, Float64Array.from(t), all(t.length), { bins: 8, top: 1, upper: false, byName: 't' });
-    expect(res.trend.verdict).toMatch(/^shrinks along t /);
+    // the stratum minimum falls as t grows: it increases towards low t
+    expect(res.trend.kind).toBe('down');
+    expect(res.trend.verdict).toMatch(/^increasing towards low t /);
+  });
+
+  // The case from the issue: a flat ratio of 3 with a few noisy rows at tiny rhs. The maximum trends
+  // (honestly reported), but the verdict names the handful of rows that set it, and the 0.9 quantile is flat.
+  it('a flat ratio with 6 noisy rows at tiny t: the growth is attributed to those rows; the 0.9 quantile shows no trend', () => {
+    // (the quantile's own interval raises a false alarm on about 5% of seeds by design; seed 23 is not one of them)
+    const rng = new Rng(23);
+    const n = 20000;
+    const t = Float64Array.from({ length: n }, () => Math.exp(rng.uniform(-4, 4)));
+    const ratio = Float64Array.from(t, () => 3 * (1 - 0.5 * rng.next()));
+    // six rows in the three strata of smallest t (2000 rows each) get ratios 9, 8 | 6, 5 | 4.5, 4
+    const order = Array.from(t.keys()).sort((a, b) => t[a]! - t[b]!);
+    const noisy: Array<[number, number]> = [[0, 9], [1, 8], [2500, 6], [2501, 5], [4500, 4.5], [4501, 4]];
+    for (const [rank, v] of noisy) ratio[order[rank]!] = v;
+    const res = boundArrays(ratio, t, all(n), { bins: 10, top: 3, upper: true, byName: 'rhs' });
+    expect(res.trend.kind).toBe('down');
+    expect(res.trend.drivers).toEqual({ rows: 6, share: 6 / n, side: 'low', limit: t[order[4501]!]! });
+    expect(res.trend.verdict).toMatch(/^increasing towards low rhs \(.*set by 6 rows \(0\.03% of rows\) with rhs ≤ /);
+    expect(res.trend.quantile!.kind).toBe('none');
+    expect(res.trend.verdict).toMatch(/0\.9 quantile: no trend detected along rhs/);
+    expect(res.trend.verdict).not.toMatch(/bounded|unbounded/);
   });
 
   it('uses the stratum rank when `by` takes values ≤ 0, and says so', () => {
@@ -200,13 +227,15 @@ describe('trend of the per-stratum constant', () => {
     const res = boundArrays(ratio, Float64Array.from(t), all(t.length), { bins: 10, top: 1, upper: true, byName: 't' });
     expect(res.trend.basis).toBe('rank');
     expect(res.notes.join(' ')).toMatch(/values ≤ 0.*rank/);
-    expect(res.trend.direction).toBe('increasing');
+    expect(res.trend.kind).toBe('up');
   });
 
   it('is undetermined when a stratum constant is ≤ 0, and notes c* ≤ 0', () => {
     const res = bound([-1, -2, -3, -4, -5, -6], [1, 1, 1, 1, 1, 1], [1, 2, 3, 4, 5, 6], true, 3);
     expect(res.constant).toBe(-1);
-    expect(res.trend.kind).toBe('undetermined');
+    expect(res.trend.kind).toBe('none');
+    expect(res.trend.determined).toBe(false);
+    expect(res.trend.verdict).toMatch(/^no trend detected: not testable/);
     expect(res.notes.join(' ')).toMatch(/c\* = -1 ≤ 0/);
   });
 });

@@ -82,8 +82,9 @@ describe('surmise bound', () => {
     const [planted, naive] = j.results;
     expect(planted.constant).toBeLessThanOrEqual(PLANTED_BOUND_CONSTANT);
     expect(planted.constant).toBeGreaterThan(0.9 * PLANTED_BOUND_CONSTANT);
-    expect(planted.trend.kind).toBe('bounded');
-    expect(naive.trend.verdict).toMatch(/^grows as inj decreases/);
+    expect(planted.trend.kind).toBe('none');
+    expect(naive.trend.kind).toBe('down');
+    expect(naive.trend.verdict).toMatch(/^increasing towards low inj/);
     expect(naive.extremeStratum).toBe('lowest');
     expect(naive.witnesses[0].labels.family).toBe('twisted');
   });
@@ -103,7 +104,7 @@ describe('surmise bound', () => {
       'census.csv', '--lhs', 'abs(2*sig - natural_slope(lon, mer))', '--rhs', 'vol/inj', '--rhs', 'vol', '--by', 'inj', '--top', '2',
     ]);
     expect(code).toBe(0);
-    expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}vol\/inj .*bounded: no trend along inj\n {2}vol .*grows as inj decreases\n/);
+    expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}vol\/inj .*no trend detected along inj\n {2}vol .*increasing towards low inj\n/);
     expect(out).toMatch(/Hyndman & Fan \(1996\) type 7/);
   });
 });
