@@ -10,23 +10,23 @@ import { Rng } from '../src/util/rng.ts';
 const N = 1_000_000;
 const rng = new Rng(1);
 const col = (f: () => number) => Float64Array.from({ length: N }, f);
-const sig = col(() => 2 * (rng.int(21) - 10));
-const vol = col(() => rng.uniform(2, 20));
-const inj = col(() => rng.uniform(0.02, 1));
-const merRe = col(() => rng.uniform(0.5, 1.5));
-const merIm = col(() => rng.uniform(-1, 1));
-const lon = Float64Array.from(sig, (s, i) => (2 * s + 0.1 * (vol[i]! / inj[i]!) * (2 * rng.next() - 1) ** 3) * 1.7);
+const k = col(() => 2 * (rng.int(21) - 10));
+const b = col(() => rng.uniform(2, 20));
+const w = col(() => rng.uniform(0.02, 1));
+const pRe = col(() => rng.uniform(0.5, 1.5));
+const pIm = col(() => rng.uniform(-1, 1));
+const q = Float64Array.from(k, (s, i) => (2 * s + 0.1 * (b[i]! / w[i]!) * (2 * rng.next() - 1) ** 3) * 1.7);
 const none = () => new Uint8Array(N);
 const table: Table = {
   source: 'bench (in memory)',
   nRows: N,
   columns: [
-    { name: 'rec', kind: 'label', values: Array.from({ length: N }, (_, i) => `K${i}`), missing: none() },
-    { name: 'sig', kind: 'integer', values: sig, missing: none() },
-    { name: 'vol', kind: 'real', values: vol, missing: none() },
-    { name: 'inj', kind: 'real', values: inj, missing: none() },
-    { name: 'mer', kind: 'complex', re: merRe, im: merIm, missing: none() },
-    { name: 'lon', kind: 'real', values: lon, missing: none() },
+    { name: 'rec', kind: 'label', values: Array.from({ length: N }, (_, i) => `R${i}`), missing: none() },
+    { name: 'k', kind: 'integer', values: k, missing: none() },
+    { name: 'b', kind: 'real', values: b, missing: none() },
+    { name: 'w', kind: 'real', values: w, missing: none() },
+    { name: 'p', kind: 'complex', re: pRe, im: pIm, missing: none() },
+    { name: 'q', kind: 'real', values: q, missing: none() },
   ],
 };
 
@@ -41,14 +41,14 @@ function best(label: string, target: number, f: () => void): void {
 }
 
 console.log(`bound on ${N.toLocaleString('en')} rows, best of 3`);
-best('findBound, lhs abs(2*sig - natural_slope(lon, mer)), rhs vol/inj, by inj', 2, () => {
-  findBound(table, { lhs: 'abs(2*sig - natural_slope(lon, mer))', rhs: 'vol/inj', by: 'inj' });
+best('findBound, lhs abs(2*k - re(q/p)), rhs b/w, by w', 2, () => {
+  findBound(table, { lhs: 'abs(2*k - re(q/p))', rhs: 'b/w', by: 'w' });
 });
-best('findBound, same lhs, 3 rhs candidates (vol/inj, vol, vol/inj^2)', 6, () => {
-  findBound(table, { lhs: 'abs(2*sig - natural_slope(lon, mer))', rhs: ['vol/inj', 'vol', 'vol/inj^2'], by: 'inj' });
+best('findBound, same lhs, 3 rhs candidates (b/w, b, b/w^2)', 6, () => {
+  findBound(table, { lhs: 'abs(2*k - re(q/p))', rhs: ['b/w', 'b', 'b/w^2'], by: 'w' });
 });
-const ratio = Float64Array.from(vol, (v, i) => v / inj[i]!);
+const ratio = Float64Array.from(b, (v, i) => v / w[i]!);
 const rows = Int32Array.from({ length: N }, (_, i) => i);
 best('boundArrays (numerical core only: top-5, 4 quantiles, 10 strata, trend)', 1, () => {
-  boundArrays(ratio, inj, rows, { bins: 10, top: 5, upper: true, byName: 'inj' });
+  boundArrays(ratio, w, rows, { bins: 10, top: 5, upper: true, byName: 'w' });
 });

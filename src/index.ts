@@ -5,8 +5,8 @@
  *
  * @example
  *   import { readTable, rankFeatures, fitRelation, findBound } from 'surmise';
- *   const t = await readTable('census.csv');
- *   const fit = fitRelation(t, { target: 're(lon/mer)', terms: ['sig'] });
+ *   const t = await readTable('demo-data/knots.csv');
+ *   const fit = fitRelation(t, { target: 'genus_bound', terms: ['crossings', 'strands'] });
  */
 export * as table from './table/index.ts';
 export * as learn from './learn/index.ts';
@@ -26,5 +26,5 @@ export { searchRelations } from './relate/search.ts';
 export { findBound } from './bound/find.ts';
 export { renderReport } from './report/index.ts';
 export { executeRun, loadConfig, parseConfig, compareRuns } from './run/index.ts';
-export { generateCensus } from './demo/census.ts';
+export { generateDemoKnots } from './demo/knots.ts';
 export { runCli } from './cli/main.ts';

@@ -1,27 +1,42 @@
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
 import { resolve } from 'node:path';
-import { generateCensus } from '../demo/census.ts';
+import { generateDemoKnots } from '../demo/knots.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
-import { parsePositiveInt, parseIntOption } from './options.ts';
+import { parseIntOption } from './options.ts';
+import { makeProgress } from './progress.ts';
 
-/** `surmise demo-data`: regenerate the invented demo census from its documented random model. */
+/** `surmise demo-data`: recompute the bundled demo table of knots from its diagrams. */
 export function registerDemoData(program: Command, io: CliIO): void {
   program
     .command('demo-data')
-    .description('write the invented demo census (see src/demo/census.ts for its random model) as CSV')
-    .option('--rows <n>', 'number of rows', '20000')
-    .option('--seed <s>', 'random seed', '1')
+    .description('recompute the demo table: torus knots, twisted families and random closed braids with their invariants (CSV)')
+    .option('--seed <s>', 'seed of the twisted and random families and of the decoy column', '1')
     .option('--out <file>', 'write to this file instead of standard output')
     .option('--force', 'replace an existing --out file')
-    .action((opts: { rows: string; seed: string; out?: string; force?: boolean }) => {
-      const rows = parsePositiveInt('--rows', opts.rows);
+    .option('--no-progress', 'no progress on stderr')
+    .addHelpText(
+      'after',
+      [
+        '',
+        'The bundled demo-data/knots.csv is exactly what the first example writes (a test checks it byte for byte).',
+        '',
+        'Examples:',
+        '  surmise demo-data --out demo-data/knots.csv --force',
+        '  surmise demo-data --seed 2 --out knots-seed2.csv',
+        '',
+      ].join('\n'),
+    )
+    .action((opts: { seed: string; out?: string; force?: boolean; progress: boolean }) => {
       const seed = parseIntOption('--seed', opts.seed);
-      const csv = generateCensus({ rows, seed });
+      const progress = makeProgress(io, 'demo-data', opts.progress);
+      const csv = generateDemoKnots(seed, (done, total) => {
+        if (done % 100 === 0 || done === total) progress.update(done, total);
+      });
+      progress.stop();
       if (opts.out) {
-        const path = resolve(io.cwd, opts.out);
-        writeFileAtomic(path, csv, { force: opts.force });
-        io.stderr(`wrote ${rows} rows to ${opts.out}\n`);
+        writeFileAtomic(resolve(io.cwd, opts.out), csv, { force: opts.force, display: opts.out });
+        io.stderr(`surmise demo-data: wrote ${csv.split('\n').length - 2} knots to ${opts.out}\n`);
       } else {
         io.stdout(csv);
       }

@@ -6,7 +6,7 @@ import type { CliIO } from './io.ts';
 import { loadConfig } from '../run/config.ts';
 import { runWithProgress } from './run-shared.ts';
 
-/** The bundled configuration; its table is the bundled demo census. */
+/** The bundled configuration; its table is the bundled demo table of knots (demo-data/knots.csv). */
 export const DEMO_CONFIG = fileURLToPath(new URL('../../configs/demo.yaml', import.meta.url));
 
 /** A fresh folder name: `base`, else `base-2`, `base-3`, … (the demo never replaces anything). */
@@ -18,7 +18,7 @@ function freshFolder(base: string): string {
 export function registerDemo(program: Command, io: CliIO): void {
   program
     .command('demo')
-    .description('run configs/demo.yaml on the bundled demo census and print the path of the report')
+    .description('run configs/demo.yaml on the bundled demo table of knots and print the path of the report')
     .option('--out <dir>', 'run folder (default: a new surmise-demo folder in the current directory)')
     .option('--force', 'replace an existing --out folder')
     .option('--json', 'print the run folder and files as one JSON object')

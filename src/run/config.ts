@@ -12,7 +12,7 @@ import { SurmiseError, didYouMean } from '../errors.ts';
 const positiveInt = z.number().int().min(1);
 const nonNegativeInt = z.number().int().min(0);
 const exprString = z.string().min(1);
-/** A list, where a single item may be written without brackets (`rhs: vol` = `rhs: [vol]`). */
+/** A list, where a single item may be written without brackets (`rhs: b` = `rhs: [b]`). */
 const listOf = <T extends z.ZodType>(item: T, min = 0) => z.preprocess((v) => (typeof v === 'string' ? [v] : v), z.array(item).min(min));
 
 const NetworkSchema = z.strictObject({

@@ -60,33 +60,33 @@ describe('findBound through the expression language', () => {
     expect(lo.results[0]!.constant).toBeCloseTo((0.5 - Math.sin(0.5)) / 0.125, 12);
   });
 
-  // Integer target (signature-like: even integers) with a derived natural slope re(lon/mer); invented data.
-  it('works on an integer target with --derive slope=re(lon/mer) and with natural_slope(lon, mer)', () => {
+  // Integer target (even integers) with a derived real part of a complex quotient; invented data.
+  it('works on an integer target with --derive r=re(q/p) and with re(q/p) written inline', () => {
     const rng = new Rng(8);
     const n = 3000;
-    const sig = Array.from({ length: n }, () => 2 * (rng.int(11) - 5));
-    const vol = Array.from({ length: n }, () => rng.uniform(2, 10));
-    const merRe = Array.from({ length: n }, () => rng.uniform(0.5, 1.5));
-    const merIm = Array.from({ length: n }, () => rng.uniform(-1, 1));
-    // lon real; choose lon so that re(lon/mer) = 2·sig + e with |e| ≤ 0.05·vol
-    const e = vol.map((v) => 0.05 * v * (2 * rng.next() - 1));
-    const lon = sig.map((s, i) => {
-      const m2 = merRe[i]! ** 2 + merIm[i]! ** 2;
-      return ((2 * s + e[i]!) * m2) / merRe[i]!; // re(lon/mer) = lon·re(mer)/|mer|²
+    const k = Array.from({ length: n }, () => 2 * (rng.int(11) - 5));
+    const b = Array.from({ length: n }, () => rng.uniform(2, 10));
+    const pRe = Array.from({ length: n }, () => rng.uniform(0.5, 1.5));
+    const pIm = Array.from({ length: n }, () => rng.uniform(-1, 1));
+    // q real; choose q so that re(q/p) = 2·k + e with |e| ≤ 0.05·b
+    const e = b.map((v) => 0.05 * v * (2 * rng.next() - 1));
+    const q = k.map((s, i) => {
+      const m2 = pRe[i]! ** 2 + pIm[i]! ** 2;
+      return ((2 * s + e[i]!) * m2) / pRe[i]!; // re(q/p) = q·re(p)/|p|²
     });
     const t = table([
-      { name: 'sig', kind: 'integer', values: Float64Array.from(sig), missing: new Uint8Array(n) },
-      real('vol', vol),
-      complex('mer', merRe, merIm),
-      real('lon', lon),
+      { name: 'k', kind: 'integer', values: Float64Array.from(k), missing: new Uint8Array(n) },
+      real('b', b),
+      complex('p', pRe, pIm),
+      real('q', q),
     ]);
-    const a = findBound(t, { lhs: 'abs(2*sig - slope)', rhs: 'vol', derive: ['slope=re(lon/mer)'] }).results[0]!;
-    const b = findBound(t, { lhs: 'abs(2*sig - natural_slope(lon, mer))', rhs: 'vol' }).results[0]!;
+    const viaDerive = findBound(t, { lhs: 'abs(2*k - r)', rhs: 'b', derive: ['r=re(q/p)'] }).results[0]!;
+    const inline = findBound(t, { lhs: 'abs(2*k - re(q/p))', rhs: 'b' }).results[0]!;
     // brute force over the planted errors
-    const truth = Math.max(...e.map((x, i) => Math.abs(x) / vol[i]!));
-    expect(a.constant).toBeCloseTo(truth, 9);
-    expect(b.constant).toBeCloseTo(truth, 9);
-    expect(a.constant).toBeLessThanOrEqual(0.05 + 1e-9);
+    const truth = Math.max(...e.map((x, i) => Math.abs(x) / b[i]!));
+    expect(viaDerive.constant).toBeCloseTo(truth, 9);
+    expect(inline.constant).toBeCloseTo(truth, 9);
+    expect(viaDerive.constant).toBeLessThanOrEqual(0.05 + 1e-9);
     expect(t.columns).toHaveLength(4); // the caller's table is not changed by --derive
   });
 

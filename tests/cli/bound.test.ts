@@ -4,7 +4,30 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.ts';
 import { memoryIO } from '../../src/cli/io.ts';
-import { generateCensus, PLANTED_BOUND_CONSTANT } from '../../src/demo/census.ts';
+import { Rng } from '../../src/util/rng.ts';
+
+/**
+ * Invented data for the machinery (no outside source): z = 2a + e with |e| ≤ C·b/w planted on every
+ * row (C = 0.1, approached as u → ±1), and a 'thin' family whose w → 0 so that the naive constant of
+ * |2a − z| ≤ c·b grows as w decreases.
+ */
+const PLANTED_C = 0.1;
+function plantedTable(rows: number, seed: number): string {
+  const rng = new Rng(seed);
+  const lines = ['name,family,a,b,w,z'];
+  for (let r = 0; r < rows; r++) {
+    const thin = rng.next() < 0.1;
+    const k = 2 + rng.int(39);
+    const b = thin ? 6.5 * rng.uniform(0.97, 1.03) : rng.uniform(2, 12);
+    const w = thin ? (1.2 / k) * rng.uniform(0.9, 1.1) : 0.15 + 0.85 * rng.next();
+    const a = 2 * (rng.int(11) - 5);
+    const u = rng.uniform(-1, 1);
+    const bw = Number(b.toPrecision(8));
+    const ww = Number(w.toPrecision(8));
+    lines.push(`x${r + 1},${thin ? 'thin' : 'main'},${a},${bw},${ww},${2 * a + PLANTED_C * (bw / ww) * u * u * u}`);
+  }
+  return lines.join('\n') + '\n';
+}
 
 let dir: string;
 beforeAll(() => {
@@ -12,7 +35,7 @@ beforeAll(() => {
   // x on [-1, 1] with x = 1 on row 3: |exp(x) - 1 - x| <= (e - 2) x^2, attained at x = 1 (from memory)
   writeFileSync(join(dir, 'taylor.csv'), 'name,x\np1,0.5\np2,-1\np3,1\np4,0.25\np5,-0.5\np6,0.75\n');
   writeFileSync(join(dir, 'bad.csv'), 'name,l,r\na,1,1\nb,2,0\nc,3,-1\nd,4,2\n');
-  writeFileSync(join(dir, 'census.csv'), generateCensus({ rows: 6000, seed: 7 }));
+  writeFileSync(join(dir, 'planted.csv'), plantedTable(6000, 7));
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -70,23 +93,22 @@ describe('surmise bound', () => {
     expect(f.err.trimEnd().split('\n')).toHaveLength(1);
   });
 
-  // The demo census's documented model (src/demo/census.ts; the project's own model, not an outside source):
-  // |2·sig − slope| ≤ 0.1·vol/inj on every row, while the naive bound by vol fails as inj → 0 on the twisted family.
-  it('on the demo census: the planted bound holds with no trend; the naive one grows as inj decreases', async () => {
+  // The planted table above: |2a − z| ≤ 0.1·b/w on every row, while the naive bound by b fails as w → 0 on the thin family.
+  it('on a planted table: the planted bound holds with no trend; the naive one grows as w decreases', async () => {
     const { code, out } = await run([
-      'census.csv', '--lhs', 'abs(2*sig - slope)', '--derive', 'slope=re(lon/mer)',
-      '--rhs', 'vol/inj', '--rhs', 'vol', '--by', 'inj', '--json',
+      'planted.csv', '--lhs', 'abs(2*a - d)', '--derive', 'd=z',
+      '--rhs', 'b/w', '--rhs', 'b', '--by', 'w', '--json',
     ]);
     expect(code).toBe(0);
     const j = JSON.parse(out);
     const [planted, naive] = j.results;
-    expect(planted.constant).toBeLessThanOrEqual(PLANTED_BOUND_CONSTANT);
-    expect(planted.constant).toBeGreaterThan(0.9 * PLANTED_BOUND_CONSTANT);
+    expect(planted.constant).toBeLessThanOrEqual(PLANTED_C * (1 + 1e-9));
+    expect(planted.constant).toBeGreaterThan(0.9 * PLANTED_C);
     expect(planted.trend.kind).toBe('none');
     expect(naive.trend.kind).toBe('down');
-    expect(naive.trend.verdict).toMatch(/^increasing towards low inj/);
+    expect(naive.trend.verdict).toMatch(/^increasing towards low w/);
     expect(naive.extremeStratum).toBe('lowest');
-    expect(naive.witnesses[0].labels.family).toBe('twisted');
+    expect(naive.witnesses[0].labels.family).toBe('thin');
   });
 
   it('--lower gives the smallest ratio; --id chooses the columns beside the witnesses', async () => {
@@ -101,10 +123,10 @@ describe('surmise bound', () => {
 
   it('the text report compares the candidates side by side', async () => {
     const { code, out } = await run([
-      'census.csv', '--lhs', 'abs(2*sig - natural_slope(lon, mer))', '--rhs', 'vol/inj', '--rhs', 'vol', '--by', 'inj', '--top', '2',
+      'planted.csv', '--lhs', 'abs(2*a - z)', '--rhs', 'b/w', '--rhs', 'b', '--by', 'w', '--top', '2',
     ]);
     expect(code).toBe(0);
-    expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}vol\/inj .*no trend detected along inj\n {2}vol .*increasing towards low inj\n/);
+    expect(out).toMatch(/candidates side by side:\n {2}rhs +c\* +witness row +trend\n {2}b\/w .*no trend detected along w\n {2}b .*increasing towards low w\n/);
     expect(out).toMatch(/Hyndman & Fan \(1996\) type 7/);
   });
 });

@@ -33,7 +33,7 @@ describe('the command line shell', () => {
 
   it('a bad integer option names the option (Number(), not parseInt: "12abc" is refused)', async () => {
     const io = memoryIO();
-    expect(await runCli(['demo-data', '--rows', '12abc'], io)).toBe(2);
-    expect(io.err).toBe("surmise: expected --rows to be an integer, got '12abc' [option.badInteger]\n");
+    expect(await runCli(['demo-data', '--seed', '12abc'], io)).toBe(2);
+    expect(io.err).toBe("surmise: expected --seed to be an integer, got '12abc' [option.badInteger]\n");
   });
 });

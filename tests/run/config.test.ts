@@ -26,14 +26,14 @@ describe('run configuration', () => {
   it('loads the bundled demo configuration', () => {
     const path = fileURLToPath(new URL('../../configs/demo.yaml', import.meta.url));
     const { config } = loadConfig(path);
-    expect(config.target).toBe('sig');
-    expect(config.bounds[0]!.rhs).toEqual(['vol', 'vol/inj']);
+    expect(config.target).toBe('signature');
+    expect(config.bounds[0]!.rhs).toEqual(['crossings - seifert_circles + 1', 'strands']);
   });
 
-  it('accepts a single item where a list is expected (rhs: vol = rhs: [vol])', () => {
-    const { config } = parseConfig('table: a.csv\ntarget: y\nexclude: z\nbounds:\n  - lhs: y\n    rhs: vol\n', 'cfg.yaml');
+  it('accepts a single item where a list is expected (rhs: b = rhs: [b])', () => {
+    const { config } = parseConfig('table: a.csv\ntarget: y\nexclude: z\nbounds:\n  - lhs: y\n    rhs: b\n', 'cfg.yaml');
     expect(config.exclude).toEqual(['z']);
-    expect(config.bounds[0]!.rhs).toEqual(['vol']);
+    expect(config.bounds[0]!.rhs).toEqual(['b']);
   });
 
   it('refuses an empty list where one item is needed', () => {

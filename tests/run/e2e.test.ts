@@ -1,9 +1,17 @@
 /**
- * End to end on the demo census: the documented random model (src/demo/census.ts) plants
- *   slope = re(lon/mer) = 2·sig + e,  |e| ≤ 0.1·vol/inj,
- * and a twisted sub-family where inj → 0. The run must find what was planted. The model is ours
- * (invented data), so these checks test recovery of a known answer, not outside facts; the outside
- * checks of each stage live in that stage's tests.
+ * End to end on the bundled demo table of knots (demo-data/knots.csv, computed by surmise itself:
+ * see src/demo/knots.ts). Every finding the demo shows is a theorem, so this test doubles as an
+ * outside check of the whole pipeline:
+ * - Murasugi, Trans. AMS 117 (1965): for a knot Δ(−1) = (−1)^(σ/2)·det, i.e. σ ≡ 0 (mod 4) exactly
+ *   when Δ(−1) > 0 (the fit's coefficient must be exactly 1);
+ * - Seifert's algorithm (Seifert 1935; Rolfsen, Knots and Links, 5.A): the surface of a closed braid
+ *   on n strands with c crossings has 2g = c − n + 1 (the search must find genus_bound = ½ + ½c − ½n),
+ *   and |σ| ≤ c − s + 1 (Murasugi 1965: |σ| ≤ 2g) with equality for T(2, 2k+1) (σ = −2k, GLM 1981);
+ * - the naive |σ| ≤ c·strands fails along the T(2, q) family: σ(T(2,q)) = −(q − 1) on 2 strands;
+ * - the leading quantities have known reasons: σ_ω and σ are one signature function (Levine 1969,
+ *   Tristram 1969), sign Δ(−1) fixes σ mod 4 (Murasugi), and |σ| ≤ 2·deg Δ (σ_ω jumps only at roots
+ *   of Δ on the unit circle, by at most twice the multiplicity);
+ * - decoy_uniform is a seeded uniform draw independent of the knot: it must rank at noise level.
  */
 import { describe, it, expect, beforeAll } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
@@ -13,15 +21,23 @@ import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.ts';
 import { memoryIO } from '../../src/cli/io.ts';
 import type { RunResults } from '../../src/run/run.ts';
-import { PLANTED_BOUND_CONSTANT, PLANTED_SLOPE_COEFFICIENT } from '../../src/demo/census.ts';
 
-const census = new URL('../../demo-data/census.csv', import.meta.url);
+const knots = new URL('../../demo-data/knots.csv', import.meta.url);
 const work = mkdtempSync(join(tmpdir(), 'surmise-e2e-'));
 const demoDir = join(work, 'demo');
 let results: RunResults;
 
 function readResults(dir: string): RunResults {
   return JSON.parse(readFileSync(join(dir, 'results.json'), 'utf8')) as RunResults;
+}
+
+/** Column `name` of the committed table as numbers. */
+function column(name: string): number[] {
+  const [head, ...lines] = readFileSync(knots, 'utf8').trimEnd().split('\n');
+  // the first field may be quoted ("T(2,3)"): drop it before splitting
+  const cols = head!.split(',');
+  const k = cols.indexOf(name);
+  return lines.map((l) => Number(l.replace(/^"[^"]*"/, 'x').split(',')[k]));
 }
 
 beforeAll(async () => {
@@ -32,26 +48,29 @@ beforeAll(async () => {
   results = readResults(demoDir);
 }, 600_000);
 
-describe('surmise demo on the demo census', () => {
+describe('surmise demo on the demo table of knots', () => {
   it('writes the run folder: results.json, report.html, report.md, plots as SVG and PNG', () => {
     for (const f of ['results.json', 'report.html', 'report.md', 'config.yaml', 'plots/attribution-saliency.svg', 'plots/attribution-saliency.png', 'plots/predicted-vs-actual.svg', 'plots/target-vs-top-feature.svg']) {
       expect(existsSync(join(demoDir, f)), f).toBe(true);
     }
-    const sha = createHash('sha256').update(readFileSync(census)).digest('hex');
+    const sha = createHash('sha256').update(readFileSync(knots)).digest('hex');
     expect(results.input.sha256).toBe(sha);
-    expect(results.input.rows).toBe(20000);
-    expect(results.rows!.duplicates).toBe(10); // the model appends 10 exact duplicates
+    expect(results.input.rows).toBe(1936);
+    expect(results.rank!.task).toBe('classification'); // σ takes 41 even values
     expect(results.dependencies['@tensorflow/tfjs']).toBe('4.22.0');
   });
 
-  it('stores each repeat\'s fitted standardization (training-row means and sample SDs) with the run', () => {
+  it("stores each repeat's fitted standardization (training-row means and sample SDs) with the run", () => {
     const st = results.rank!.repeats[0]!.standardizer;
-    expect(st.names).toContain('vol');
-    const k = st.names.indexOf('vol');
-    // the census' vol has mean 7.526 and SD 3.011 over all rows (surmise inspect; a 70% training
-    // sample must land close: 5 standard errors ≈ 0.13 and 0.1)
-    expect(Math.abs(st.mean[k]! - 7.526)).toBeLessThan(0.13);
-    expect(Math.abs(st.std[k]! - 3.011)).toBeLessThan(0.1);
+    const k = st.names.indexOf('crossings');
+    expect(k).toBeGreaterThanOrEqual(0);
+    // a 70% training sample: its mean and SD land within 5 standard errors of the whole table's
+    const c = column('crossings');
+    const mean = c.reduce((s, x) => s + x, 0) / c.length;
+    const sd = Math.sqrt(c.reduce((s, x) => s + (x - mean) ** 2, 0) / (c.length - 1));
+    const se = sd / Math.sqrt(0.7 * c.length);
+    expect(Math.abs(st.mean[k]! - mean)).toBeLessThan(5 * se);
+    expect(Math.abs(st.std[k]! - sd)).toBeLessThan(0.1 * sd);
   });
 
   it('the network beats both baselines on held-out rows', () => {
@@ -60,50 +79,64 @@ describe('surmise demo on the demo census', () => {
     expect(m.score).toBeGreaterThan(m.baselines.constant.score + 0.2);
   });
 
-  it("the planted law's features (lon, mer) lead the ranking, above every pure distractor", () => {
-    const order = results.rank!.ranking.map((r) => r.feature);
-    expect(new Set(order.slice(0, 2))).toEqual(new Set(['lon', 'mer']));
+  it('the leading quantities are those with a theorem behind them; the decoy sits at the bottom', () => {
+    const ranking = results.rank!.ranking;
+    const order = ranking.map((r) => r.feature);
+    for (const f of order.slice(0, 3)) expect(['levine_tristram_1_3', 'alexander_at_minus1', 'alexander_degree']).toContain(f);
+    const decoy = ranking.find((r) => r.feature === 'decoy_uniform')!;
+    // its interval lies below every interval of the first three
+    for (const r of ranking.slice(0, 3)) expect(decoy.high).toBeLessThan(r.low);
+    expect(order.indexOf('decoy_uniform')).toBeGreaterThanOrEqual(order.length - 3);
     for (const method of Object.values(results.rank!.methods)) {
       const o = method!.ranking.map((r) => r.feature);
-      for (const d of ['d_noise', 'd_unif', 'd_count']) {
-        expect(o.indexOf(d)).toBeGreaterThan(o.indexOf('lon'));
-        expect(o.indexOf(d)).toBeGreaterThan(o.indexOf('mer'));
-      }
+      for (const lead of order.slice(0, 2)) expect(o.indexOf('decoy_uniform')).toBeGreaterThan(o.indexOf(lead));
     }
   });
 
-  it('fit recovers the planted coefficients within their intervals (slope = 2·sig, intercept 0)', () => {
+  it("Murasugi's congruence: Δ(−1) = det·cos(πσ/2) with coefficient exactly 1", () => {
     const fit = results.fits[0]!;
-    const sig = fit.terms.find((t) => t.term === 'sig')!;
-    const one = fit.terms.find((t) => t.term === '1')!;
-    expect(sig.low).toBeLessThanOrEqual(PLANTED_SLOPE_COEFFICIENT);
-    expect(sig.high).toBeGreaterThanOrEqual(PLANTED_SLOPE_COEFFICIENT);
-    expect(sig.rational?.text).toBe('2');
-    expect(one.low).toBeLessThanOrEqual(0);
-    expect(one.high).toBeGreaterThanOrEqual(0);
+    expect(fit.target).toBe('alexander_at_minus1');
+    const t = fit.terms[0]!;
+    // an exact identity: the estimate is 1 up to rounding error and the interval shrinks to nothing
+    expect(Math.abs(t.coef - 1)).toBeLessThan(1e-12);
+    expect(t.high - t.low).toBeLessThan(1e-9);
+    expect(fit.r2).toBeGreaterThan(1 - 1e-12);
   });
 
-  it('finds the planted bound constant and flags the failing sub-family', () => {
+  it("the search finds Seifert's 2g = c − n + 1 (genus_bound = ½ + ½·crossings − ½·strands) with zero held-out error", () => {
+    const s = results.search!;
+    const best = [...s.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse)[0]!;
+    expect(new Set(best.terms)).toEqual(new Set(['crossings', 'strands']));
+    expect(best.heldOutRmse).toBeLessThan(1e-9);
+    expect(best.intercept.coef).toBeCloseTo(0.5, 9);
+    const coef = (t: string) => best.coefs[best.terms.indexOf(t)]!;
+    expect(coef('crossings')).toBeCloseTo(0.5, 9);
+    expect(coef('strands')).toBeCloseTo(-0.5, 9);
+  });
+
+  it('|σ| ≤ c − s + 1 with constant exactly 1, attained on T(2, 2k+1); the naive |σ| ≤ c·strands grows along crossings', () => {
     const b = results.bounds[0]!;
-    const planted = b.results.find((r) => r.rhs === 'vol/inj')!;
-    const naive = b.results.find((r) => r.rhs === 'vol')!;
-    expect(planted.constant).toBeLessThanOrEqual(PLANTED_BOUND_CONSTANT * (1 + 1e-8));
-    expect(planted.constant).toBeGreaterThan(PLANTED_BOUND_CONSTANT * 0.99);
-    expect(planted.trend.kind).toBe('none');
-    expect(naive.trend.kind).toBe('down'); // increasing towards low inj
-    // the naive constant is attained on the twisted family
-    expect(naive.witnesses[0]!.labels.family).toBe('twisted');
+    const seifert = b.results.find((r) => r.rhs === 'crossings - seifert_circles + 1')!;
+    const naive = b.results.find((r) => r.rhs === 'strands')!;
+    expect(seifert.constant).toBe(1);
+    expect(seifert.trend.kind).toBe('none');
+    for (const w of seifert.witnesses) {
+      expect(w.ratio).toBe(1);
+      expect(String(w.labels.name)).toMatch(/^T\(2,-?\d+\)$/);
+    }
+    expect(naive.trend.kind).toBe('up'); // grows towards long diagrams
+    // attained by the longest T(2, q) of the table: |σ| = q − 1 = 40 on 2 strands
+    expect(naive.constant).toBe(20);
+    expect(String(naive.witnesses[0]!.labels.name)).toMatch(/^T\(2,-?41\)$/);
   });
 
   it('report.md and report.html agree with results.json', () => {
     const md = readFileSync(join(demoDir, 'report.md'), 'utf8');
     const html = readFileSync(join(demoDir, 'report.html'), 'utf8');
-    const planted = results.bounds[0]!.results.find((r) => r.rhs === 'vol/inj')!;
-    const shown = Number(planted.constant.toPrecision(4)).toString();
-    expect(md).toContain(shown);
-    expect(html).toContain(shown);
-    expect(md).toContain('not a proof');
-    expect(html).toContain('not a proof');
+    for (const doc of [md, html]) {
+      expect(doc).toContain('not a proof');
+      expect(doc).toContain('decoy_uniform');
+    }
     const top = results.rank!.ranking[0]!.feature;
     expect(md).toContain(`\`${top}\``);
     expect(html).toContain(results.input.sha256);
@@ -111,22 +144,21 @@ describe('surmise demo on the demo census', () => {
 });
 
 describe('rerun and compare', () => {
-  // A smaller analysis so that three runs stay quick: the first 4,000 rows, one seed, few epochs.
-  const lines = readFileSync(census, 'utf8').trimEnd().split('\n');
+  // A smaller analysis so that three runs stay quick: the first 800 rows, one seed, few epochs.
+  const lines = readFileSync(knots, 'utf8').trimEnd().split('\n');
   const small = join(work, 'small.csv');
   const config = join(work, 'small.yaml');
-  writeFileSync(small, lines.slice(0, 4001).join('\n') + '\n');
+  writeFileSync(small, lines.slice(0, 801).join('\n') + '\n');
   writeFileSync(
     config,
     [
       'table: small.csv',
-      'derive: { slope: re(lon / mer) }',
-      'target: sig',
-      'exclude: [slope, twist]',
+      'target: signature',
+      'exclude: [seifert_circles]',
       'network: { hidden: [32, 32], epochs: 6, patience: 3 }',
       'attribution: { methods: [saliency, permutation], seeds: 1 }',
-      'fits: [{ target: slope, terms: [sig] }]',
-      'bounds: [{ lhs: abs(2*sig - slope), rhs: [vol, vol/inj], by: inj, bins: 5 }]',
+      'fits: [{ target: alexander_at_minus1, terms: [determinant*cos(pi*signature/2)], intercept: false }]',
+      'bounds: [{ lhs: abs(signature), rhs: [crossings - seifert_circles + 1, strands], by: crossings, bins: 5 }]',
       'output: small-run',
     ].join('\n') + '\n',
   );
@@ -143,15 +175,13 @@ describe('rerun and compare', () => {
     expect(same.fits).toEqual(a.fits);
     expect(same.bounds).toEqual(a.bounds);
 
-    // Plant a change: one row now breaks the planted bound three times over.
-    const changed = lines.slice(0, 4001);
-    const f = changed[100]!.split(',');
-    const m = /^([-+]?[0-9.e]+)([-+][0-9.e]+)j$/.exec(f[5]!)!;
-    const a_ = Number(m[1]);
-    const b_ = Number(m[2]);
-    const slope = 2 * Number(f[13]) + 0.3 * (Number(f[4]) / Number(f[7]));
-    f[6] = String((slope * (a_ * a_ + b_ * b_)) / a_);
-    changed[100] = f.join(',');
+    // Plant a change: one random knot's signature now breaks Seifert's bound three times over.
+    const changed = lines.slice(0, 801);
+    const f = changed[700]!.split(',');
+    expect(f[1]).toBe('random');
+    const b1 = Number(f[4]) - Number(f[6]) + 1; // crossings − seifert_circles + 1
+    f[8] = String(3 * b1);
+    changed[700] = f.join(',');
     const modified = join(work, 'modified.csv');
     writeFileSync(modified, changed.join('\n') + '\n');
     expect(await runCli(['rerun', runA, '--table', modified, '--out', join(work, 'changed'), '--no-progress'], io), io.err).toBe(0);
@@ -159,10 +189,11 @@ describe('rerun and compare', () => {
     const cmp = memoryIO(work);
     expect(await runCli(['compare', runA, join(work, 'changed'), '--json'], cmp)).toBe(0);
     const c = JSON.parse(cmp.out) as { constants: Array<{ rhs: string; constantA: number; constantB: number; flagged: boolean }>; flags: string[] };
-    const planted = c.constants.find((x) => x.rhs === 'vol/inj')!;
-    expect(planted.flagged).toBe(true);
-    expect(planted.constantB).toBeCloseTo(0.3, 6);
-    expect(c.flags.some((s) => s.includes('vol/inj') && s.includes('grew'))).toBe(true);
+    const seifert = c.constants.find((x) => x.rhs === 'crossings - seifert_circles + 1')!;
+    expect(seifert.constantA).toBe(1);
+    expect(seifert.flagged).toBe(true);
+    expect(seifert.constantB).toBe(3);
+    expect(c.flags.some((s) => s.includes('crossings - seifert_circles + 1') && s.includes('grew'))).toBe(true);
 
     const same2 = memoryIO(work);
     expect(await runCli(['compare', runA, join(work, 'same')], same2)).toBe(0);

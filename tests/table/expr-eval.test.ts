@@ -21,44 +21,44 @@ const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(1, Math
 describe('evaluateExpression: worked examples', () => {
   const t = table(
     [
-      real('vol', [2.0298832128193, 2.8281220883308, NaN]),
+      real('a', [2.0298832128193, 2.8281220883308, NaN]),
       real('xings', [4, 5, 6], 'integer'),
-      cplx('lon', [0, 1, 2], [2 * Math.sqrt(3), 3, 1]),
-      cplx('mer', [1, 1, 1], [0, 1, 0]),
+      cplx('p', [0, 1, 2], [2 * Math.sqrt(3), 3, 1]),
+      cplx('q', [1, 1, 1], [0, 1, 0]),
       { name: 'name', kind: 'label', values: ['4_1', '5_2', '6_1'], missing: new Uint8Array(3) },
     ],
     3,
   );
 
-  it('natural slope re(lon/mer), hand-derived', () => {
-    // Row 0: a rectangular cusp (figure-eight knot: longitude 2√3·i for meridian 1, from memory):
-    // natural slope 0. Row 1: (1+3i)/(1+i) = (1+3i)(1−i)/2 = 2+i by hand, so 2. Row 2: 2/1 = 2.
-    const a = evaluateExpression(t, 're(lon/mer)');
-    const b = evaluateExpression(t, 'natural_slope(lon, mer)');
+  it('real part of a complex quotient re(p/q), hand-derived', () => {
+    // Row 0: 2√3·i / 1 is purely imaginary: 0. Row 1: (1+3i)/(1+i) = (1+3i)(1−i)/2 = 2+i by hand, so 2. Row 2: 2/1 = 2.
+    const a = evaluateExpression(t, 're(p/q)');
     expect(a.im).toBeNull();
     expect(Array.from(a.re)).toEqual([0, 2, 2]);
-    expect(Array.from(b.re)).toEqual([0, 2, 2]);
   });
-  it('complex quotient keeps its imaginary part: lon/mer on row 1 is 2 + i (hand-derived)', () => {
-    const q = evaluateExpression(t, 'lon/mer');
+  it('natural_slope is no function of the language (write re(p/q))', () => {
+    expect(() => evaluateExpression(t, 'natural_slope(p, q)')).toThrow(/unknown function 'natural_slope'/);
+  });
+  it('complex quotient keeps its imaginary part: p/q on row 1 is 2 + i (hand-derived)', () => {
+    const q = evaluateExpression(t, 'p/q');
     expect(q.im).not.toBeNull();
     expect(q.re[1]).toBeCloseTo(2, 14);
     expect(q.im![1]).toBeCloseTo(1, 14);
   });
   it('marks a row missing when any input cell is missing, and its value is NaN', () => {
-    const r = evaluateExpression(t, 'vol^0 + xings');
+    const r = evaluateExpression(t, 'a^0 + xings');
     expect(Array.from(r.missing)).toEqual([0, 0, 1]);
     expect(r.re[0]).toBe(5);
     expect(Number.isNaN(r.re[2]!)).toBe(true);
   });
   it('reads X.re and X.im of a complex column X', () => {
-    expect(Array.from(evaluateExpression(t, 'lon.im - im(lon)').re)).toEqual([0, 0, 0]);
-    expect(Array.from(evaluateExpression(t, 'mer.re').re)).toEqual([1, 1, 1]);
+    expect(Array.from(evaluateExpression(t, 'p.im - im(p)').re)).toEqual([0, 0, 0]);
+    expect(Array.from(evaluateExpression(t, 'q.re').re)).toEqual([1, 1, 1]);
   });
   it('comparisons give 1 or 0 (and NaN on a missing row)', () => {
     expect(Array.from(evaluateExpression(t, 'xings <= 5').re)).toEqual([1, 1, 0]);
     expect(Array.from(evaluateExpression(t, 'xings != 5').re)).toEqual([1, 0, 1]);
-    const r = evaluateExpression(t, 'vol > 2.5');
+    const r = evaluateExpression(t, 'a > 2.5');
     expect(Array.from(r.re.slice(0, 2))).toEqual([0, 1]);
     expect(Number.isNaN(r.re[2]!)).toBe(true);
   });
@@ -68,17 +68,17 @@ describe('evaluateExpression: worked examples', () => {
     expect((t.columns[1] as { values: Float64Array }).values[0]).toBe(4);
   });
   it('errors name the column, suggest the nearest and show a caret', () => {
-    const e = err(() => evaluateExpression(t, 'vool * 2'));
+    const e = err(() => evaluateExpression(t, 'aa * 2'));
     expect(e.code).toBe('expr.unknownColumn');
     expect(e.message).toBe(
-      "unknown column 'vool' at position 1 of the expression (table knots.csv) (did you mean 'vol'?)\n  vool * 2\n  ^^^^",
+      "unknown column 'aa' at position 1 of the expression (table knots.csv) (did you mean 'a'?)\n  aa * 2\n  ^^",
     );
     expect(err(() => evaluateExpression(t, 'name + 1')).code).toBe('expr.labelColumn');
-    const nr = err(() => evaluateExpression(t, 'floor(lon)'));
+    const nr = err(() => evaluateExpression(t, 'floor(p)'));
     expect(nr.code).toBe('expr.notReal');
     expect(nr.message.split('\n')[0]).toMatch(/^floor needs real values, but the argument at position 7 is complex \(first at data row 1: 0\+3\.46/);
-    expect(err(() => evaluateExpression(t, 'lon < 1')).code).toBe('expr.notReal');
-    expect(err(() => evaluateExpression(t, 'max(vol, mer)')).code).toBe('expr.notReal');
+    expect(err(() => evaluateExpression(t, 'p < 1')).code).toBe('expr.notReal');
+    expect(err(() => evaluateExpression(t, 'max(a, q)')).code).toBe('expr.notReal');
   });
   it('accepts a complex column whose values are all real where a real argument is required', () => {
     const u = table([cplx('z', [1.5, -2.5], [0, 0])], 2);

@@ -83,15 +83,15 @@ export function deriveColumn(table: Table, name: string, source: string): Column
 const PLAIN_NAME = /^[A-Za-z_][A-Za-z0-9_.]*$/;
 
 /**
- * Split a `NAME=EXPRESSION` option value (as in `--derive slope=re(lon/mer)`) at its first '='.
- * NAME is a plain name or a backquoted one (`` `cusp slope`=... ``); the expression must parse.
+ * Split a `NAME=EXPRESSION` option value (as in `--derive twice_g=2*genus_bound`) at its first '='.
+ * NAME is a plain name or a backquoted one (`` `half det`=... ``); the expression must parse.
  * Errors: expr.badDerive (no '=', empty or malformed name, empty expression), expr.parse.
  */
 export function parseDerive(spec: string): { name: string; source: string } {
   const bad = (why: string): never => {
     throw new SurmiseError(
       'expr.badDerive',
-      `cannot read derived column '${spec}': ${why}; expected NAME=EXPRESSION, e.g. slope=re(lon/mer)`,
+      `cannot read derived column '${spec}': ${why}; expected NAME=EXPRESSION, e.g. twice_g=2*genus_bound`,
       { spec },
     );
   };

@@ -378,7 +378,7 @@ function evalCall(ctx: Ctx, e: CallNode): Val {
   // re(a / b) is the real part of a quotient: compute only that (no imaginary array)
   const inner = e.args[0]!;
   if (e.name === 're' && inner.type === 'binary' && inner.op === '/') {
-    return naturalSlope(ctx, evalNode(ctx, inner.left), evalNode(ctx, inner.right));
+    return realQuotient(ctx, evalNode(ctx, inner.left), evalNode(ctx, inner.right));
   }
   const args = e.args.map((a) => evalNode(ctx, a));
   const arg = args[0]!;
@@ -453,8 +453,6 @@ function evalCall(ctx: Ctx, e: CallNode): Val {
       } else for (let i = 0; i < x.length; i++) r[i] = x[i]! < 0 ? Math.PI : Number.isNaN(x[i]!) ? NaN : 0;
       return { re: r, im: null, scalar: arg.scalar };
     }
-    case 'natural_slope':
-      return naturalSlope(ctx, args[0]!, args[1]!);
   }
   throw new SurmiseError('expr.internal', `function '${e.name}' has no implementation`, undefined, 1);
 }
@@ -471,21 +469,21 @@ function hypotCols(x: Float64Array, y: Float64Array): Float64Array {
   return r;
 }
 
-/** natural_slope(lon, mer) = re(lon/mer) = (a c + b d)/(c² + d²) for lon = a+bi, mer = c+di (Smith's scaling). */
-function naturalSlope(ctx: Ctx, lon: Val, mer: Val): Val {
-  const n = outLen(ctx, lon, mer);
-  const sa = lon.scalar ? 0 : 1;
-  const sb = mer.scalar ? 0 : 1;
-  const ar = lon.re;
-  const ai = lon.im ?? ZERO;
-  const sai = lon.im ? sa : 0;
-  const br = mer.re;
-  const bi = mer.im ?? ZERO;
-  const sbi = mer.im ? sb : 0;
+/** re(p/q) = (a c + b d)/(c² + d²) for p = a+bi, q = c+di (Smith's scaling), without the imaginary part. */
+function realQuotient(ctx: Ctx, p: Val, q: Val): Val {
+  const n = outLen(ctx, p, q);
+  const sa = p.scalar ? 0 : 1;
+  const sb = q.scalar ? 0 : 1;
+  const ar = p.re;
+  const ai = p.im ?? ZERO;
+  const sai = p.im ? sa : 0;
+  const br = q.re;
+  const bi = q.im ?? ZERO;
+  const sbi = q.im ? sb : 0;
   const r = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     cdiv(ar[i * sa]!, ai[i * sai]!, br[i * sb]!, bi[i * sbi]!);
     r[i] = out.re;
   }
-  return { re: r, im: null, scalar: n === 1 && lon.scalar && mer.scalar };
+  return { re: r, im: null, scalar: n === 1 && p.scalar && q.scalar };
 }

@@ -30,13 +30,6 @@ const list: FunctionInfo[] = [
   { name: 'im', minArgs: 1, maxArgs: 1, realOnly: false, summary: 'imaginary part' },
   { name: 'arg', minArgs: 1, maxArgs: 1, realOnly: false, summary: 'principal argument in (-pi, pi]' },
   { name: 'conj', minArgs: 1, maxArgs: 1, realOnly: false, summary: 'complex conjugate' },
-  {
-    name: 'natural_slope',
-    minArgs: 2,
-    maxArgs: 2,
-    realOnly: false,
-    summary: "natural_slope(lon, mer) = re(lon/mer), a cusp's natural slope from its longitude and meridian translations",
-  },
 ];
 
 export const FUNCTIONS: ReadonlyMap<string, FunctionInfo> = new Map(list.map((f) => [f.name, f]));
