@@ -120,7 +120,8 @@ function jsonRow(name: string, r: KnotInvariants, inv: readonly InvariantName[])
       o.alexander_text = r.alexanderText ?? null;
       o.alexander_sign_fixed = r.alexanderSignFixed ?? null;
     } else if (k === 'linking') o.linking = r.linking ?? [];
-    else if (k === 'jumps') o.jumps = r.jumps ?? [];
+    else if (k === 'jumps') o.jumps = r.jumps ?? null;
+    else if (k === 'unit_roots') o.unit_roots = r.unitRoots ?? null;
     else if (k === 'levine_tristram') {
       o.levine_tristram = r.levineTristram ?? null;
       o.omega = r.omega ?? null;
@@ -152,7 +153,7 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   const prefix = o.prefix ?? '';
   const records = sources.map((s, k) => tableRecord(s.name, results[k]!, inv));
   const kinds: Record<string, 'label' | 'integer' | 'real'> = { name: 'label' };
-  for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
+  for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' || k === 'unit_roots' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
   // a determinant beyond 2^53 − 1 is a decimal string (exact); the column is then text so no digit is rounded
   if (records.some((r) => typeof r.determinant === 'string')) kinds.determinant = 'label';
   let table: Table;

@@ -22,7 +22,9 @@ import type { Diagram } from './diagram.ts';
 import { symmetricInertia } from './exact.ts';
 import { foxAlexander } from './fox.ts';
 import { gordonLitherland } from './goeritz.ts';
-import { alexanderUnitRoots, levineTristram } from './levine.ts';
+import { levineTristramAt, signatureJumps, type Jump } from './jumps.ts';
+import { levineTristram } from './levine.ts';
+import { alexanderUnitRoots, type UnitRoot } from './unitroots.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
 import { pdToBraid } from './vogel.ts';
 import { centre, exactOut, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
@@ -41,6 +43,7 @@ export const INVARIANT_NAMES = [
   'genus_bound',
   'linking',
   'levine_tristram',
+  'unit_roots',
   'jumps',
 ] as const;
 export type InvariantName = (typeof INVARIANT_NAMES)[number];
@@ -64,8 +67,10 @@ export interface KnotInvariants {
   /** σ_ω at ω = e^{2πi·omega}; undefined when no Seifert matrix is available. */
   levineTristram?: number;
   omega?: number;
-  /** x ∈ (0, 1/2] with Δ(e^{2πix}) = 0. */
-  jumps?: number[];
+  /** Roots e^{2πix} of Δ, x ∈ (0, 1/2], each once with its multiplicity (certified to 1e-12); undefined when Δ = 0. */
+  unitRoots?: Array<{ x: number; multiplicity: number }>;
+  /** The roots x ∈ (0, 1/2) where σ_ω actually jumps, with σ(x+) − σ(x−); undefined without a Seifert matrix or when Δ = 0. */
+  jumps?: Jump[];
 }
 
 /** Number of Seifert circles: cycles of the oriented smoothing (plus free loops). */
@@ -150,7 +155,11 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
   const components = info.nComponents + d.freeLoops;
   const isKnot = components === 1;
   const res: KnotInvariants = { crossings: info.nCrossings, writhe: writhe(info), components };
-  const needAlex = want.has('alexander') || want.has('jumps') || (d.braid && want.has('determinant'));
+  const omega = opts.omega ?? 0.5;
+  const generic = omega - Math.floor(omega) !== 0.5 && omega - Math.floor(omega) !== 0;
+  // the roots of Δ on the circle: for unit_roots, jumps, and σ_ω away from ω = ±1 (read on its arc)
+  const needRoots = want.has('unit_roots') || want.has('jumps') || (want.has('levine_tristram') && generic);
+  const needAlex = want.has('alexander') || needRoots || (d.braid && want.has('determinant'));
   const needSig = want.has('signature') || want.has('determinant');
   let V: number[][] | undefined;
   if (d.braid) {
@@ -200,13 +209,23 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
       res.alexanderSignFixed = fixed;
     }
   }
+  const roots: UnitRoot[] | undefined = needRoots && res.alexander && res.alexander.coefficients.length > 0 ? alexanderUnitRoots(res.alexander) : undefined;
+  if (want.has('unit_roots') && roots) res.unitRoots = roots.map(({ x, multiplicity }) => ({ x, multiplicity }));
   if (!want.has('alexander')) {
-    const a = res.alexander;
     delete res.alexander;
     delete res.alexanderText;
     delete res.alexanderSignFixed;
-    if (want.has('jumps') && a) res.jumps = alexanderUnitRoots(a);
-  } else if (want.has('jumps') && res.alexander) res.jumps = alexanderUnitRoots(res.alexander);
+  }
+  // a Seifert matrix: the braid's, or for a connected PD/DT diagram that of its Vogel braid
+  let seifert: number[][] | undefined = V;
+  const seifertFor = (): number[][] | undefined => {
+    if (!seifert && info.nPieces === 1 && d.freeLoops === 0) seifert = vogelSeifert(d, res);
+    return seifert;
+  };
+  if (want.has('jumps') && roots) {
+    const S = seifertFor();
+    if (S) res.jumps = signatureJumps(S, roots);
+  }
   if (want.has('seifert_circles') || want.has('genus_bound')) {
     const s = seifertCircles(info, d.freeLoops);
     if (want.has('seifert_circles')) res.seifertCircles = s;
@@ -218,11 +237,14 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
     for (let i = 0; i < lk.length; i++) for (let j = i + 1; j < lk.length; j++) res.linking.push({ i: i + 1, j: j + 1, lk: lk[i]![j]! });
   }
   if (want.has('levine_tristram')) {
-    const x = opts.omega ?? 0.5;
-    res.omega = x;
-    if (V) res.levineTristram = levineTristram(V, x);
-    else if (x - Math.floor(x) === 0.5) res.levineTristram = gordonLitherland(info).signature;
-    else if (info.nPieces === 1 && d.freeLoops === 0) res.levineTristram = levineTristram(vogelSeifert(d, res), x);
+    res.omega = omega;
+    if (!generic) res.levineTristram = V ? levineTristram(V, omega) : omega - Math.floor(omega) === 0 ? 0 : gordonLitherland(info).signature;
+    else {
+      const S = seifertFor();
+      // away from ω = ±1: the value of ω's arc between the certified roots of Δ (at a root: the
+      // degenerate form's signature, jumps.ts); Δ = 0 has no isolated roots, so the form is read at ω itself
+      if (S) res.levineTristram = roots ? levineTristramAt(S, roots, omega) : levineTristram(S, omega);
+    }
   }
   return res;
 }
