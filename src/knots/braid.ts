@@ -9,6 +9,7 @@
  */
 import { SurmiseError } from '../errors.ts';
 import type { Crossing } from './pd.ts';
+import { bareissDet } from './exact.ts';
 import { pack, packBits, unpack } from './kronecker.ts';
 import { polyDivExact, trimPoly } from './poly.ts';
 
@@ -338,34 +339,12 @@ export function burauAlexanderExact(b: Braid): bigint[] {
     const q = pack(c.map((x) => -x), B2);
     return i === j ? q + tN : q;
   }));
-  const det = packedDet(A);
+  // packed entries are plain integers: Bareiss' exact quotients are the packed polynomial quotients
+  const det = bareissDet(A);
   const coeffs = unpack(det, B2, r * (width - 1) + 1);
   return polyDivExact(trimPoly(coeffs).coeffs, new Array<bigint>(n).fill(1n));
 }
 
-/** Bareiss elimination on packed polynomial entries; every quotient is exact. */
-function packedDet(m: bigint[][]): bigint {
-  const n = m.length;
-  const a = m.map((row) => row.slice());
-  let prev = 1n;
-  let sign = 1n;
-  for (let k = 0; k < n - 1; k++) {
-    if (a[k]![k] === 0n) {
-      let p = k + 1;
-      while (p < n && a[p]![k] === 0n) p++;
-      if (p === n) return 0n;
-      [a[k], a[p]] = [a[p]!, a[k]!];
-      sign = -sign;
-    }
-    const akk = a[k]![k]!;
-    for (let i = k + 1; i < n; i++) {
-      for (let j = k + 1; j < n; j++) a[i]![j] = (akk * a[i]![j]! - a[i]![k]! * a[k]![j]!) / prev;
-      a[i]![k] = 0n;
-    }
-    prev = akk;
-  }
-  return sign * a[n - 1]![n - 1]!;
-}
 
 function polyMul(a: bigint[], b: bigint[]): bigint[] {
   if (a.length === 0 || b.length === 0) return [];
