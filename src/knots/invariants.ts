@@ -17,7 +17,7 @@
  * Levine–Tristram signatures at ω ≠ −1) comes from the braid that Vogel's algorithm produces, and
  * its signature is checked against Gordon–Litherland (a mismatch is an internal error, exit 1).
  */
-import { braidSeifertMatrix, burauAlexander, burauAlexanderExact } from './braid.ts';
+import { braidSeifertMatrix, burauAlexander, burauAlexanderExact, type Braid } from './braid.ts';
 import type { Diagram } from './diagram.ts';
 import { symmetricInertia } from './exact.ts';
 import { foxAlexander } from './fox.ts';
@@ -28,6 +28,11 @@ import { alexanderUnitRoots, type UnitRoot } from './unitroots.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
 import { pdToBraid } from './vogel.ts';
 import { centre, exactOut, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
+
+/** PD/DT diagrams up to this size get Δ by Fox calculus; larger connected ones through their Vogel braid. */
+const FOX_MAX_CROSSINGS = 30;
+/** ... when that braid has at most this many strands (the Burau determinant is (strands − 1)²-sized). */
+const VOGEL_BURAU_MAX_STRANDS = 12;
 
 /** Braid words up to this length use the float64 Burau product first (fast for short words). */
 const FLOAT_BURAU_MAX_LENGTH = 100;
@@ -116,8 +121,8 @@ function symmetrise(V: number[][]): number[][] {
  * Seifert matrix of a connected PD/DT diagram through Vogel's algorithm (the braid-form surface of
  * an equivalent closed braid). Guard: its signature must equal the Gordon–Litherland signature.
  */
-function vogelSeifert(d: Diagram, res: KnotInvariants): number[][] {
-  const V = braidSeifertMatrix(pdToBraid(d.pd));
+function vogelSeifert(d: Diagram, res: KnotInvariants, braid: Braid = pdToBraid(d.pd)): number[][] {
+  const V = braidSeifertMatrix(braid);
   const sig = symmetricInertia(symmetrise(V));
   const gl = res.signature ?? gordonLitherland(d.info).signature;
   if (sig.positive - sig.negative !== gl) throw new Error(`internal: Seifert signature ${sig.positive - sig.negative} after Vogel moves differs from Gordon–Litherland ${gl}`);
@@ -190,13 +195,16 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
       if (want.has('determinant')) res.determinant = d.freeLoops > 0 ? 0 : bigToOut(gl.determinant);
     }
     if (needAlex) {
-      const raw = foxAlexander(info, d.freeLoops);
+      // Fox calculus up to FOX_MAX_CROSSINGS (its c × c pencil grows like c⁵); beyond, the Burau
+      // formula on the Vogel braid when that braid has few strands (connected diagrams)
+      const vb = info.nCrossings > FOX_MAX_CROSSINGS && info.nPieces === 1 && d.freeLoops === 0 ? pdToBraid(d.pd) : undefined;
+      const raw = vb && vb.strands <= VOGEL_BURAU_MAX_STRANDS ? burauAlexanderExact(vb) : foxAlexander(info, d.freeLoops);
       let alex: LaurentPolynomial;
       let fixed = true;
       if (isKnot) alex = normaliseKnot(raw);
       else if (info.nPieces === 1 && d.freeLoops === 0 && raw.some((x) => x !== 0n)) {
         // the sign needs a Seifert matrix: braid the diagram (Vogel) and use its braid-form surface
-        const Vb = vogelSeifert(d, res);
+        const Vb = vogelSeifert(d, res, vb);
         alex = fixLinkSign(centre(raw), Vb, symmetricInertia(symmetrise(Vb)));
       } else {
         alex = centre(raw);
