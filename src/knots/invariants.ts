@@ -22,6 +22,7 @@ import type { Diagram } from './diagram.ts';
 import { symmetricInertia } from './exact.ts';
 import { foxAlexander } from './fox.ts';
 import { gordonLitherland } from './goeritz.ts';
+import { conwaySign } from './circlesign.ts';
 import { levineTristramAt, signatureJumps, type Jump } from './jumps.ts';
 import { levineTristram } from './levine.ts';
 import { alexanderUnitRoots, type UnitRoot } from './unitroots.ts';
@@ -136,7 +137,14 @@ function vogelSeifert(d: Diagram, res: KnotInvariants, braid: Braid = pdToBraid(
  */
 function fixLinkSign(alex: LaurentPolynomial, V: number[][], inertia: { negative: number; zero: number }): LaurentPolynomial {
   if (alex.coefficients.length === 0) return alex;
-  if (inertia.zero > 0) return centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V[j]![i]!))));
+  if (inertia.zero > 0) {
+    // det(V + Vᵀ) = 0: the sign from one exact evaluation on the circle (circlesign.ts); the pencil
+    // det(V − tVᵀ) only if every tried point is a root
+    const s = conwaySign(alex, V);
+    if (s === 1) return alex;
+    if (s === -1) return { ...alex, coefficients: alex.coefficients.map((x) => -x) };
+    return centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V[j]![i]!))));
+  }
   const m = V.length;
   const detSign = inertia.negative % 2 === 0 ? 1 : -1;
   const [re, im] = valueAtMinusOne(alex);
