@@ -28,6 +28,7 @@ import { levineTristram } from './levine.ts';
 import { alexanderUnitRoots, type UnitRoot } from './unitroots.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
 import { pdToBraid } from './vogel.ts';
+import { hyperbolicInvariants, type HyperbolicInvariants } from './hyperbolic/index.ts';
 import { centre, exactOut, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
 
 /** PD/DT diagrams up to this size get Δ by Fox calculus; larger connected ones through their Vogel braid. */
@@ -51,6 +52,7 @@ export const INVARIANT_NAMES = [
   'levine_tristram',
   'unit_roots',
   'jumps',
+  'hyperbolic',
 ] as const;
 export type InvariantName = (typeof INVARIANT_NAMES)[number];
 export const DEFAULT_INVARIANTS: readonly InvariantName[] = ['crossings', 'writhe', 'components', 'signature', 'determinant', 'alexander'];
@@ -77,6 +79,8 @@ export interface KnotInvariants {
   unitRoots?: Array<{ x: number; multiplicity: number }>;
   /** The roots x ∈ (0, 1/2) where σ_ω actually jumps, with σ(x+) − σ(x−); undefined without a Seifert matrix or when Δ = 0. */
   jumps?: Jump[];
+  /** Status, volume, cusp shape and natural slope (`hyperbolic/`). */
+  hyperbolic?: HyperbolicInvariants;
 }
 
 /** Number of Seifert circles: cycles of the oriented smoothing (plus free loops). */
@@ -262,5 +266,6 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
       if (S) res.levineTristram = roots ? levineTristramAt(S, roots, omega) : levineTristram(S, omega);
     }
   }
+  if (want.has('hyperbolic')) res.hyperbolic = hyperbolicInvariants(d);
   return res;
 }
