@@ -48,7 +48,7 @@ export async function invariantsMany(sources: DiagramSource[], file: string, kin
     const out: KnotInvariants[] = [];
     sources.forEach((s, k) => {
       out.push(invariantsOf(s, file, kind, opts));
-      if (k % 25 === 24) many.onProgress?.(k + 1, sources.length);
+      many.onProgress?.(k + 1, sources.length);
     });
     many.onProgress?.(sources.length, sources.length);
     return out;
