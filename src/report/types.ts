@@ -36,6 +36,10 @@ export interface ReportRank {
   predictions?: { actual: number[]; predicted: number[] };
   /** Integrated gradients only: per repeat, mean and largest |Σ attributions − (f(x) − f(baseline))| and mean |f(x) − f(baseline)|. */
   completeness?: Array<{ meanAbsGap: number; maxAbsGap: number; meanAbsDelta: number }>;
+  /** Classification: held-out rows by actual class (rows) and most probable class (columns). */
+  confusion?: { classes: number[]; counts: number[][] };
+  /** Partial dependence of the network on the leading quantity: mean prediction at each value x. */
+  dependence?: { feature: string; x: number[]; mean: number[] };
 }
 
 export interface ReportScatter {
@@ -45,6 +49,8 @@ export interface ReportScatter {
   xName: string;
   yName: string;
   colorName?: string;
+  /** A label column (e.g. a family) that colours the points instead of `color`, one value per point. */
+  labels?: { name: string; values: string[] };
   /** When the points handed in are already a sample, the number of rows they came from. */
   sampledFrom?: number;
 }
@@ -103,6 +109,8 @@ export interface ReportWitness {
   rhs: number;
   ratio: number;
   labels?: Record<string, string>;
+  /** The witness row's value of the bound's `by` quantity (to mark it on the plot). */
+  by?: number;
 }
 
 export interface ReportBoundResult {
@@ -113,7 +121,7 @@ export interface ReportBoundResult {
   strata: Array<{ low: number; high: number; n: number; constant: number }>;
   /** Trend of the per-stratum constant along `by`; slope and interval may be null when undetermined. */
   trend: { slope: number | null; low: number | null; high: number | null; kind?: 'none' | 'up' | 'down'; verdict: string } | null;
-  points?: { by: number[]; ratio: number[] };
+  points?: { by: number[]; ratio: number[]; labels?: { name: string; values: string[] } };
 }
 
 export interface ReportBound {

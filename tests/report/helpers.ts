@@ -87,3 +87,24 @@ export function inkStats(p: DecodedPng): { inked: number; distinct: number } {
   }
   return { inked: ink / n, distinct: seen.size };
 }
+
+/**
+ * Layout figures of an open page (read in the browser): the document's scrollWidth against the
+ * viewport's innerWidth, and the smallest on-screen size of any plot text (its font size times the
+ * SVG's drawn width over its own width).
+ */
+export async function pageMetrics(page: { evaluate<T>(f: () => T): Promise<T> }): Promise<{ scrollWidth: number; innerWidth: number; smallestPlotText: number }> {
+  return page.evaluate(() => {
+    let smallest = Infinity;
+    for (const svg of Array.from(document.querySelectorAll('figure.plot > svg'))) {
+      const w = Number(svg.getAttribute('width'));
+      const drawn = svg.getBoundingClientRect().width;
+      if (!(w > 0) || !(drawn > 0)) continue;
+      for (const t of Array.from(svg.querySelectorAll('text'))) {
+        const size = parseFloat(t.getAttribute('font-size') ?? getComputedStyle(t).fontSize);
+        if (size > 0 && (t.textContent ?? '').trim() !== '') smallest = Math.min(smallest, (size * drawn) / w);
+      }
+    }
+    return { scrollWidth: document.documentElement.scrollWidth, innerWidth: window.innerWidth, smallestPlotText: smallest };
+  });
+}

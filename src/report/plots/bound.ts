@@ -6,8 +6,11 @@ import { formatNumber } from '../format.ts';
 
 /**
  * The ratio lhs/rhs of a bound against the `by` quantity (layer `points`, a seeded sample above
- * `maxPoints` that always keeps the largest ratios), the per-stratum maximum as a horizontal
- * segment across each stratum (layer `strata`), and the overall constant (layer `overall`).
+ * `maxPoints` that always keeps the largest ratios; coloured by a label column such as the family
+ * when one is given), the per-stratum maximum as a horizontal segment across each stratum (layer
+ * `strata`), the overall constant (layer `overall`) and the witness rows as black diamonds (layer
+ * `witnesses`). Axes are logarithmic where every value drawn on them is positive: the trend is a
+ * log–log slope.
  */
 export function boundSpec(
   lhs: string,
@@ -20,19 +23,29 @@ export function boundSpec(
   const layers: unknown[] = [];
   let subtitle = '';
   const pts = r.points;
+  const witnesses = r.witnesses.filter((w) => w.by !== undefined && Number.isFinite(w.by) && Number.isFinite(w.ratio));
+  const positive = (v: number[]) => v.length > 0 && v.every((x) => x > 0);
+  const byValues = [...(pts ? pts.by.filter(Number.isFinite) : []), ...r.strata.flatMap((s) => [s.low, s.high])];
+  const ratioValues = [...(pts ? pts.ratio.filter(Number.isFinite) : []), ...r.strata.map((s) => s.constant)];
+  const logX = positive(byValues);
+  const logY = positive(ratioValues);
+  const xScale = logX ? { type: 'log' } : { zero: false };
+  const yScale = logY ? { type: 'log' } : {};
   if (pts) {
     const n = Math.min(pts.by.length, pts.ratio.length);
     const keep = largestIndices(pts.ratio.slice(0, n), keepLargest);
     const idx = sampleIndices(n, maxPoints, seed, keep);
     const { rows, nonFinite } = finitePairs(pts.by, pts.ratio, idx);
     subtitle = sampleNote(idx.length, n, idx.length < n ? `, keeping the ${keep.length} largest ratios` : '') + nonFiniteNote(nonFinite);
+    const lab = pts.labels;
     layers.push({
       name: 'points',
-      data: { values: rows.map((p) => ({ b: p.x, q: p.y })) },
-      mark: { type: 'circle', size: 10, opacity: 0.5, color: '#4c78a8' },
+      data: { values: rows.map((p) => ({ b: p.x, q: p.y, ...(lab ? { g: lab.values[p.i] ?? '' } : {}) })) },
+      mark: { type: 'circle', size: 14, opacity: 0.55, ...(lab ? {} : { color: '#4c78a8' }) },
       encoding: {
-        x: { field: 'b', type: 'quantitative', title: by, scale: { zero: false } },
-        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})` },
+        x: { field: 'b', type: 'quantitative', title: by, scale: xScale },
+        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})`, scale: yScale },
+        ...(lab ? { color: { field: 'g', type: 'nominal', title: lab.name, scale: { scheme: 'tableau10' } } } : {}),
       },
     });
   }
@@ -43,9 +56,9 @@ export function boundSpec(
       data: { values: strata.map((s) => ({ b: s.low, b2: s.high, q: s.constant })) },
       mark: { type: 'rule', color: '#d62728', strokeWidth: 2.5 },
       encoding: {
-        x: { field: 'b', type: 'quantitative', title: by, scale: { zero: false } },
+        x: { field: 'b', type: 'quantitative', title: by, scale: xScale },
         x2: { field: 'b2' },
-        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})` },
+        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})`, scale: yScale },
       },
     });
   }
@@ -57,9 +70,21 @@ export function boundSpec(
       encoding: { y: { field: 'q', type: 'quantitative' } },
     });
   }
-  const note = `red: largest ratio within each stratum of ${by}; dashed: overall constant ${formatNumber(r.constant)}`;
+  if (witnesses.length > 0) {
+    layers.push({
+      name: 'witnesses',
+      data: { values: witnesses.map((w) => ({ b: w.by, q: w.ratio, row: w.row })) },
+      mark: { type: 'point', shape: 'diamond', size: 110, filled: false, color: '#111', strokeWidth: 1.6 },
+      encoding: {
+        x: { field: 'b', type: 'quantitative', scale: xScale },
+        y: { field: 'q', type: 'quantitative', scale: yScale },
+      },
+    });
+  }
+  const axes = logX && logY ? 'log–log axes' : logX ? `log axis for ${by} (ratios of 0 occur, so the ratio axis is linear)` : logY ? 'log axis for the ratio' : '';
+  const note = `red: largest ratio within each stratum of ${by}; dashed: overall constant ${formatNumber(r.constant)}${witnesses.length ? '; diamonds: witness rows' : ''}${axes ? `; ${axes}` : ''}`;
   return {
-    ...baseSpec(`${lhs} ≤ c · (${r.rhs}): ratio against ${by}`, subtitle ? [subtitle, note] : note, 560, 340),
+    ...baseSpec(`${lhs} ≤ c * (${r.rhs}): ratio against ${by}`, subtitle ? [subtitle, note] : note, 560, 340),
     layer: layers,
   };
 }
