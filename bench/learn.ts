@@ -1,17 +1,35 @@
 /**
- * Learning-stage benchmark: prints each figure beside its target.
- *   node --import tsx bench/learn.ts            (full: about 3–6 minutes on a loaded 2-core machine)
- *   node --import tsx bench/learn.ts --quick    (smaller sizes, same figures scaled)
- *   node --import tsx bench/learn.ts --widths   (only: default widths 64 vs 128 on 20,000 rows to early stop)
- * Network 16→300→300→300→1, ReLU, batch 256, as in the targets.
+ * Learning benchmark: the network on both engines (native, tfjs) and, when `python3` with `torch`
+ * imports, the same network in PyTorch (the peer a user would otherwise run), in one process
+ * order and one sitting; every figure is the median of --runs runs (default 3), engines
+ * interleaved within each run, with the ratio to the peer.
+ *   npm run bench -- learn [--quick] [--json] [--runs N]
+ * --json prints one line per figure: {"figure", "engine", "value", "unit", "peer"}.
+ * Figures (network 16→H→H→H→1, ReLU, MSE, Adam, batch 256, float32):
+ *   train-h300, train-h64   samples/s of a training epoch (the second one: set-up excluded)
+ *   gradients-100k          seconds for input gradients of 100,000 rows, H = 300
+ *   startup                 seconds: `surmise --version`, `--help`, `inspect` of a 200-row table
+ * Targets (ratios to the peer): train-h300 ≥ 1.3, train-h64 ≥ 1.5, gradients ≥ 1.0; startup
+ * --version and --help < 0.3 s, inspect < 0.6 s. PyTorch is looked for as SURMISE_PYTHON, then
+ * python3, then the system's /usr/bin/python3; its fast BLAS needs
+ * LD_LIBRARY_PATH=/usr/lib/x86_64-linux-gnu/openblas-openmp (set here when that folder exists).
  */
-import { initBackend, trainNetwork, trainMany, fitRidge, type TrainData } from '../src/learn/index.ts';
-import { Rng } from '../src/util/rng.ts';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { loadEngine, trainNetwork, type EngineName, type TrainData } from '../src/learn/index.ts';
+import { Rng } from '../src/util/rng.ts';
 
-const quick = process.argv.includes('--quick');
+const argv = process.argv.slice(2);
+const quick = argv.includes('--quick');
+const json = argv.includes('--json');
+const runsAt = argv.indexOf('--runs');
+const RUNS = runsAt >= 0 ? Math.max(1, Math.min(20, Number(argv[runsAt + 1]) || 3)) : 3;
 const P = 16;
-const NET = { hidden: [300, 300, 300], batchSize: 256, maxEpochs: 1, patience: 0 };
+const THREADS = os.availableParallelism();
+const ROWS = { h300: quick ? 8_000 : 20_000, h64: quick ? 30_000 : 100_000, grad: 100_000 };
 
 function table(n: number, seed: number): TrainData {
   const r = new Rng(seed);
@@ -22,110 +40,134 @@ function table(n: number, seed: number): TrainData {
   return { x, y, n, p: P };
 }
 
-function line(name: string, value: string, target: string): void {
-  console.log(`${name.padEnd(52)} ${value.padStart(14)}   target ${target}`);
-}
-
-const rssMB = () => process.resourceUsage().maxRSS / 1024;
-/** CPU seconds of this process (all threads): on a shared machine, work per CPU-second is the steadier figure. */
-const cpuS = () => {
-  const u = process.cpuUsage();
-  return (u.user + u.system) / 1e6;
+const median = (v: number[]) => {
+  const s = [...v].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
 };
-console.log(`learn bench (${quick ? 'quick' : 'full'}); ${os.cpus().length} cores, load average ${os.loadavg().map((v) => v.toFixed(1)).join(' ')} — timings are noisy on a shared machine`);
-const val = table(2000, 99);
+const load = () => os.loadavg().map((v) => v.toFixed(1)).join(' ');
 
-let lastPerCpu = NaN;
-async function samplesPerSecond(d: TrainData): Promise<number> {
-  const t = performance.now();
-  const c = cpuS();
-  await trainNetwork(d, val, NET).then((m) => m.dispose());
-  lastPerCpu = d.n / (cpuS() - c);
-  return d.n / ((performance.now() - t) / 1000);
+// ---- the peer: PyTorch in a child process -------------------------------------------------
+const BLAS = '/usr/lib/x86_64-linux-gnu/openblas-openmp';
+const pyEnv = { ...process.env, ...(existsSync(BLAS) ? { LD_LIBRARY_PATH: [BLAS, process.env.LD_LIBRARY_PATH].filter(Boolean).join(':') } : {}) };
+const PY_SCRIPT = fileURLToPath(new URL('./learn_torch.py', import.meta.url));
+const python = [process.env.SURMISE_PYTHON, 'python3', '/usr/bin/python3'].find(
+  (py) => py && spawnSync(py, ['-c', 'import torch'], { env: pyEnv, stdio: 'ignore' }).status === 0,
+);
+function torch(what: 'train' | 'gradients', hidden: number, rows: number): Record<string, number> {
+  const r = spawnSync(python!, [PY_SCRIPT, JSON.stringify({ what, hidden, rows, p: P, threads: THREADS })], { env: pyEnv, encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`PyTorch peer failed: ${r.stderr}`);
+  return JSON.parse(r.stdout) as Record<string, number>;
 }
-const perCpu = () => `   (${lastPerCpu.toFixed(0)} per CPU-second)`;
 
-// 0. the default network (early stopping) on 20,000 rows, at widths 64 and 128
-if (process.argv.includes('--widths')) {
-  await initBackend('wasm');
-  const tr = table(20_000, 11);
-  const va = table(5_000, 12);
-  for (const w of [64, 128]) {
-    const t0 = performance.now();
-    const c = cpuS();
-    const m = await trainNetwork(tr, va, { hidden: [w, w, w], seed: 1 });
-    const s = (performance.now() - t0) / 1000;
-    line(`hidden [${w},${w},${w}], 20,000 rows to early stop, seconds`, s.toFixed(1), 'well under 60');
-    console.log(`   (${(cpuS() - c).toFixed(1)} CPU-seconds, ${m.epochs} epochs, best ${m.bestEpoch}, val loss ${m.history[m.bestEpoch - 1]!.valLoss.toFixed(4)})`);
-    m.dispose();
+// ---- surmise's engines ----------------------------------------------------------------------
+const engines: EngineName[] = [];
+for (const e of ['native', 'tfjs'] as const) {
+  try {
+    await loadEngine(e);
+    engines.push(e);
+  } catch (err) {
+    console.error(`engine ${e} unavailable: ${(err as Error).message}`);
   }
-  process.exit(0);
+}
+const val = table(256, 99);
+
+/** Samples per second of the second epoch (session and graph set-up excluded, as for the peer). */
+async function trainRate(engine: EngineName, hidden: number, d: TrainData): Promise<number> {
+  const stamps: number[] = [];
+  const t0 = performance.now();
+  const net = await trainNetwork(d, val, { hidden: [hidden, hidden, hidden], batchSize: 256, maxEpochs: 2, patience: 5, seed: 1, engine }, () => stamps.push(performance.now()));
+  net.dispose();
+  return d.n / ((stamps[1]! - (stamps[0] ?? t0)) / 1000);
 }
 
-// 1. cpu against wasm (short runs, after a warm-up batch)
-const small = table(quick ? 1024 : 2048, 1);
-await initBackend('cpu');
-await trainNetwork(table(256, 2), table(64, 3), NET).then((m) => m.dispose());
-const cpuRate = await samplesPerSecond(small);
-const cpuPerCpu = lastPerCpu;
-await initBackend('wasm');
-await trainNetwork(table(256, 2), table(64, 3), NET).then((m) => m.dispose());
-const wasmRate = await samplesPerSecond(small);
-const wasmPerCpu = lastPerCpu;
-line('cpu backend training, samples/s', cpuRate.toFixed(0), '(comparison only)');
-line('wasm backend training, samples/s', wasmRate.toFixed(0), '(comparison only)');
-console.log(`   per CPU-second: cpu ${cpuPerCpu.toFixed(0)}, wasm ${wasmPerCpu.toFixed(0)}`);
+async function gradientSeconds(engine: EngineName, x: Float64Array): Promise<number> {
+  const net = await trainNetwork(table(512, 5), val, { hidden: [300, 300, 300], maxEpochs: 1, seed: 1, engine });
+  net.inputGradients(x.subarray(0, 10 * P), 10); // warm-up: the gradient graph is built on first use
+  const t = performance.now();
+  net.inputGradients(x, x.length / P);
+  const s = (performance.now() - t) / 1000;
+  net.dispose();
+  return s;
+}
 
-// 2. one core, 200,000 rows, one epoch
-const big = table(quick ? 40_000 : 200_000, 4);
-const oneCore = await samplesPerSecond(big);
-line(`one-core training on ${big.n} rows, samples/s`, oneCore.toFixed(0), '≥ 18,000');
-console.log(perCpu());
+// ---- start-up of the CLI ------------------------------------------------------------------------
+const BIN = fileURLToPath(new URL('../bin/surmise.js', import.meta.url));
+const tmp = mkdtempSync(join(os.tmpdir(), 'surmise-bench-'));
+const small = join(tmp, 'small.csv');
+{
+  const r = new Rng(3);
+  const lines = ['a,b,c,d,y'];
+  for (let i = 0; i < 200; i++) lines.push(Array.from({ length: 5 }, () => r.normal().toFixed(5)).join(','));
+  writeFileSync(small, lines.join('\n') + '\n');
+}
+function wall(args: string[]): number {
+  const t = performance.now();
+  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`surmise ${args.join(' ')} failed: ${r.stderr}`);
+  return (performance.now() - t) / 1000;
+}
 
-// 3. aggregate over 2 workers: 4 jobs (seeds) of one epoch each
-const jobRows = quick ? 20_000 : 100_000;
-const jobData = { ...big, x: big.x.subarray(0, jobRows * P), y: big.y.subarray(0, jobRows), n: jobRows };
-const jobs = [1, 2, 3, 4].map((seed) => ({ train: jobData, validation: val, options: { ...NET, seed } }));
-let t = performance.now();
-let c0 = cpuS();
-const firstDone: number[] = [];
-const rep = await trainMany(jobs, { workers: 2, onJobDone: () => firstDone.push(performance.now()) });
-const wall = (performance.now() - t) / 1000;
-line(`2 workers, 4 jobs × ${jobRows} rows, samples/s (wall, incl. start-up)`, ((4 * jobRows) / wall).toFixed(0), '≥ 32,000');
-// steady state: the last two jobs ran after both workers were warm
-const steady = firstDone.length === 4 ? (2 * jobRows) / ((firstDone[3]! - firstDone[1]!) / 1000) : NaN;
-line('2 workers, samples/s after start-up (jobs 3–4)', steady.toFixed(0), '≥ 32,000');
-console.log(`   (${((4 * jobRows) / (cpuS() - c0)).toFixed(0)} per CPU-second of the process, start-up included)`);
-console.log(`   (ran in: ${rep.ranIn}${rep.fallbackReason ? ', ' + rep.fallbackReason : ''})`);
+// ---- the runs -----------------------------------------------------------------------------------
+type Key = string; // figure|engine
+const samples = new Map<Key, number[]>();
+const add = (figure: string, engine: string, v: number) => {
+  const k = `${figure}|${engine}`;
+  samples.set(k, [...(samples.get(k) ?? []), v]);
+};
+const d300 = table(ROWS.h300, 1);
+const d64 = table(ROWS.h64, 2);
+const xg = table(ROWS.grad, 3).x as Float64Array;
+const loads: string[] = [load()];
+console.error(`learn bench: ${RUNS} run(s), ${THREADS} cores, ${engines.join(' + ')}${python ? ' + PyTorch' : ' (PyTorch not importable: no peer)'}; load average ${load()}`);
+for (let run = 0; run < RUNS; run++) {
+  // rotate the order each run so no engine always goes first
+  const order = [...engines, ...(python ? ['torch' as const] : [])];
+  for (let k = 0; k < run; k++) order.push(order.shift()!);
+  for (const e of order) {
+    if (e === 'torch') {
+      add('train-h300', e, ROWS.h300 / torch('train', 300, ROWS.h300).epochSeconds!);
+      add('train-h64', e, ROWS.h64 / torch('train', 64, ROWS.h64).epochSeconds!);
+      add('gradients-100k', e, torch('gradients', 300, ROWS.grad).seconds!);
+    } else {
+      add('train-h300', e, await trainRate(e, 300, d300));
+      add('train-h64', e, await trainRate(e, 64, d64));
+      add('gradients-100k', e, await gradientSeconds(e, xg));
+    }
+  }
+  add('startup-version', 'cli', wall(['--version']));
+  add('startup-help', 'cli', wall(['--help']));
+  add('startup-inspect', 'cli', wall(['inspect', small]));
+  loads.push(load());
+  console.error(`  run ${run + 1}/${RUNS} done; load average ${load()}`);
+}
+rmSync(tmp, { recursive: true, force: true });
 
-// 4. input gradients for 100,000 rows
-const net = await trainNetwork({ ...big, x: big.x.subarray(0, 5000 * P), y: big.y.subarray(0, 5000), n: 5000 }, val, NET);
-const g100 = table(100_000, 5);
-net.inputGradients(g100.x.subarray(0, 1000 * P), 1000); // warm-up
-t = performance.now();
-c0 = cpuS();
-net.inputGradients(g100.x, g100.n);
-line('input gradients, 100,000 rows, seconds', ((performance.now() - t) / 1000).toFixed(2), '< 4');
-console.log(`   (${(cpuS() - c0).toFixed(2)} CPU-seconds)`);
-t = performance.now();
-c0 = cpuS();
-net.predict(g100.x, g100.n);
-line('predict, 100,000 rows, seconds', ((performance.now() - t) / 1000).toFixed(2), '(no target)');
-console.log(`   (${(cpuS() - c0).toFixed(2)} CPU-seconds)`);
-
-// 5. a 1,000,000-row table: ridge, one training epoch, predictions and gradients over every row
-const millionRows = quick ? 200_000 : 1_000_000;
-const million = table(millionRows, 6);
-t = performance.now();
-fitRidge(million.x, million.y, million.n, P, 1);
-line(`ridge on ${millionRows} rows × 16, seconds`, ((performance.now() - t) / 1000).toFixed(2), '(no target)');
-t = performance.now();
-c0 = cpuS();
-const netM = await trainNetwork(million, val, NET);
-line(`one epoch on ${millionRows} rows, samples/s`, (millionRows / ((performance.now() - t) / 1000)).toFixed(0), '(as one-core)');
-console.log(`   (${(millionRows / (cpuS() - c0)).toFixed(0)} per CPU-second)`);
-netM.predict(million.x, million.n);
-netM.inputGradients(million.x, million.n);
-netM.dispose();
-net.dispose();
-line(`peak RSS with a ${millionRows}-row table, MB`, rssMB().toFixed(0), '< 1,500');
+// ---- report ------------------------------------------------------------------------------------
+const FIG: Record<string, { unit: string; higherIsBetter: boolean; target: string }> = {
+  'train-h300': { unit: 'samples/s', higherIsBetter: true, target: 'ratio ≥ 1.3' },
+  'train-h64': { unit: 'samples/s', higherIsBetter: true, target: 'ratio ≥ 1.5' },
+  'gradients-100k': { unit: 's', higherIsBetter: false, target: 'ratio ≥ 1.0' },
+  'startup-version': { unit: 's', higherIsBetter: false, target: '< 0.3 s' },
+  'startup-help': { unit: 's', higherIsBetter: false, target: '< 0.3 s' },
+  'startup-inspect': { unit: 's', higherIsBetter: false, target: '< 0.6 s' },
+};
+if (!json) console.log(`learn bench, medians of ${RUNS} run(s); load average at the start and after each run: ${loads.join(' | ')}`);
+for (const [figure, f] of Object.entries(FIG)) {
+  const peerRuns = samples.get(`${figure}|torch`);
+  const peer = peerRuns ? median(peerRuns) : null;
+  for (const [k, v] of samples) {
+    const [fig, engine] = k.split('|') as [string, string];
+    if (fig !== figure) continue;
+    const value = median(v);
+    const isPeer = engine === 'torch';
+    const name = figure.startsWith('startup') ? 'startup' : figure;
+    if (json) {
+      const what = figure.startsWith('startup') ? { what: figure.slice('startup-'.length) } : {};
+      console.log(JSON.stringify({ figure: name, ...what, engine, value: Number(value.toPrecision(4)), unit: f.unit, peer: isPeer || peer === null ? null : Number(peer.toPrecision(4)), runs: v.map((x) => Number(x.toPrecision(4))) }));
+      continue;
+    }
+    const ratio = peer !== null && !isPeer ? (f.higherIsBetter ? value / peer : peer / value) : null;
+    const shown = f.unit === 's' ? `${value.toFixed(3)} s` : `${Math.round(value).toLocaleString('en')} ${f.unit}`;
+    console.log(`${figure.padEnd(16)} ${engine.padEnd(7)} ${shown.padStart(18)}${ratio !== null ? `   ${ratio.toFixed(2)}× the peer` : isPeer ? '   (peer)' : ''}   target ${f.target}   runs ${v.map((x) => x.toPrecision(3)).join(', ')}`);
+  }
+}

@@ -1,9 +1,17 @@
-// The package entry for Node users: registers tsx (a regular dependency) so the TypeScript
-// sources load without a build step, then re-exports the library (src/index.ts).
-import { register } from 'tsx/esm/api';
+// The package entry for Node users: the compiled library (build/index.js) when it is up to date
+// (bin/build-fresh.js), else the TypeScript sources through tsx (a regular dependency), so it
+// loads without a build step too. Re-exports the library (src/index.ts).
+import { freshBuild } from '../bin/build-fresh.js';
 
-register();
-const lib = await import('./index.ts');
+const root = new URL('../', import.meta.url);
+let lib;
+if (freshBuild(root)) {
+  lib = await import(new URL('build/index.js', root).href);
+} else {
+  const { register } = await import('tsx/esm/api');
+  register();
+  lib = await import('./index.ts');
+}
 
 export const {
   table, learn, attribute, relate, bound, report, run, knots,

@@ -16,9 +16,9 @@ import { SurmiseError } from '../errors.ts';
 import { deriveSeed, Rng } from '../util/rng.ts';
 import { trainNetwork } from '../learn/train.ts';
 import { trainMany } from '../learn/many.ts';
-import { ensureBackend } from '../learn/backend.ts';
 import { networkFromJSON, type TrainedNetwork } from '../learn/trained.ts';
 import { chooseTask, type Task } from '../learn/options.ts';
+import type { EngineChoice, EngineName } from '../learn/engines.ts';
 import { fitConstant } from '../learn/constant.ts';
 import { selectRidge } from '../learn/ridge.ts';
 import { evaluate, type Evaluation } from '../learn/evaluate.ts';
@@ -52,6 +52,8 @@ export interface RankOptions {
   epochs?: number;
   /** The one seed every other is derived from. Default 1. */
   seed?: number;
+  /** Network engine: 'auto' (native when it loads, else tfjs), 'native' or 'tfjs'. Default: learn's default. */
+  engine?: EngineChoice;
   /** Worker threads for training (learn's trainMany); 0 trains here with per-epoch progress. Default 0 (measured faster here; README). */
   workers?: number;
   /** Retrain without the K best groups and report the skill left. Default 0 (off). */
@@ -119,7 +121,7 @@ export interface RankResult {
   task: Task;
   features: string[];
   groups: Array<{ name: string; members: string[] }>;
-  model: Skill & { baselines: { constant: Skill; ridge: Skill }; hidden: number[]; epochsRun: number[] };
+  model: Skill & { baselines: { constant: Skill; ridge: Skill }; hidden: number[]; epochsRun: number[]; engine: EngineName };
   /** The consensus of the methods run (or the one method), best first. */
   ranking: RankEntry[];
   rankingMethod: 'consensus' | AttributionMethod;
@@ -286,7 +288,7 @@ async function* trainAll(
   datas: readonly RepeatData[],
   seeds: readonly number[],
   task: Task,
-  o: { hidden: number[]; epochs: number; workers: number },
+  o: { hidden: number[]; epochs: number; workers: number; engine?: EngineChoice },
   onUnits: (done: number, message: string) => void,
   labels: readonly string[],
 ): AsyncGenerator<Fit> {
@@ -298,6 +300,7 @@ async function* trainAll(
     learningRate: RANK_DEFAULTS.learningRate,
     seed,
     task,
+    ...(o.engine ? { engine: o.engine } : {}),
   });
   const score = (net: TrainedNetwork, d: RepeatData): Fit => {
     const e = evaluate(net, d.test);
@@ -317,8 +320,7 @@ async function* trainAll(
         },
       },
     );
-    await ensureBackend();
-    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!);
+    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!); // on the engine trainMany loaded
     return;
   }
   for (let r = 0; r < datas.length; r++) {
@@ -378,6 +380,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const byMethod = new Map<AttributionMethod, RepeatScores[]>(methods.map((m) => [m, []]));
   const scores = new Scores();
   const epochsRun: number[] = [];
+  let engine: EngineName | undefined;
   const completeness: RankResult['completeness'] = [];
   const repeatsInfo: RankResult['repeats'] = [];
   const metric: 'r2' | 'accuracy' = task === 'regression' ? 'r2' : 'accuracy';
@@ -385,7 +388,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   let predictions: RankResult['predictions'];
   let confusion: RankResult['confusion'];
   let dependence: RankResult['dependence'];
-  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers }, (u, m) => report('train', u, m), plans.map((q) => q.label));
+  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
     const d = datas[r]!;
@@ -395,6 +398,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     try {
       scores.add(fit);
       epochsRun.push(fit.epochsRun);
+      engine ??= fit.net.engine;
       report('attribute', (r + 1) * unitsPerRepeat, `${label}: attributing`);
       const rows = subsample(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
       const xa = new Float64Array(rows.length * pk);
@@ -447,6 +451,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       baselines: { constant: skill(metric, scores.constant, scores.constant2), ridge: skill(metric, scores.ridge, scores.ridge2) },
       hidden,
       epochsRun,
+      engine: engine!,
     },
     ranking: entries(consensus),
     rankingMethod: methods.length > 1 ? 'consensus' : methods[0]!,
@@ -474,7 +479,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const abScores = new Scores();
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
-    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
+    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers, engine: options.engine }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
       fit.net.dispose();
       abScores.add(fit);
     }

@@ -1,8 +1,6 @@
 import type { Command } from 'commander';
 import { resolve } from 'node:path';
 import type { CliIO } from './io.ts';
-import { readRunResults } from '../run/rerun.ts';
-import { compareRuns, formatComparison } from '../run/compare.ts';
 
 export function registerCompare(program: Command, io: CliIO): void {
   program
@@ -11,7 +9,9 @@ export function registerCompare(program: Command, io: CliIO): void {
     .argument('<run-a>', 'the earlier run folder')
     .argument('<run-b>', 'the later run folder')
     .option('--json', 'print the comparison as one JSON object')
-    .action((a: string, b: string, o: { json?: boolean }) => {
+    .action(async (a: string, b: string, o: { json?: boolean }) => {
+      // the run stage (zod, yaml, plotting) loads when the command runs, not at every start
+      const [{ readRunResults }, { compareRuns, formatComparison }] = await Promise.all([import('../run/rerun.ts'), import('../run/compare.ts')]);
       const c = compareRuns(readRunResults(resolve(io.cwd, a)), readRunResults(resolve(io.cwd, b)));
       io.stdout(o.json ? JSON.stringify(c) + '\n' : formatComparison(c));
     });

@@ -3,8 +3,6 @@ import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { CliIO } from './io.ts';
-import { loadConfig } from '../run/config.ts';
-import { runWithProgress } from './run-shared.ts';
 
 /** The bundled configuration; its table is the bundled demo table of knots (demo-data/knots.csv). */
 export const DEMO_CONFIG = fileURLToPath(new URL('../../configs/demo.yaml', import.meta.url));
@@ -24,6 +22,8 @@ export function registerDemo(program: Command, io: CliIO): void {
     .option('--json', 'print the run folder and files as one JSON object')
     .option('--no-progress', 'no progress on stderr')
     .action(async (o: { out?: string; force?: boolean; json?: boolean; progress: boolean }) => {
+      // the run stage (zod, yaml, plotting) loads when the command runs, not at every start
+      const [{ loadConfig }, { runWithProgress }] = await Promise.all([import('../run/config.ts'), import('./run-shared.ts')]);
       const loaded = loadConfig(DEMO_CONFIG, 'configs/demo.yaml');
       const out = o.out ? resolve(io.cwd, o.out) : freshFolder(resolve(io.cwd, 'surmise-demo'));
       await runWithProgress(io, loaded, { ...o, out });

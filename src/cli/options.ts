@@ -1,4 +1,5 @@
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, didYouMean } from '../errors.ts';
+import { ENGINE_CHOICES, type EngineChoice } from '../learn/engines.ts';
 
 /** Parse an integer option strictly (`Number`, not `parseInt`: '12abc' is refused). */
 export function parseIntOption(name: string, raw: string): number {
@@ -24,4 +25,12 @@ export function parseNonNegativeInt(name: string, raw: string): number {
 /** Commander collector for repeatable options (`--derive a=b --derive c=d`). */
 export function collect(value: string, previous: string[] = []): string[] {
   return [...previous, value];
+}
+
+/** `--engine`: the network engine (learn's registered list). */
+export function parseEngine(raw: string): EngineChoice {
+  if (!(ENGINE_CHOICES as readonly string[]).includes(raw)) {
+    throw new SurmiseError('option.badEngine', `--engine ${raw}: expected one of ${ENGINE_CHOICES.join(', ')}${didYouMean(raw, ENGINE_CHOICES)}`);
+  }
+  return raw as EngineChoice;
 }

@@ -13,12 +13,13 @@ import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
 import { formatDropReport } from '../table/dataset.ts';
 import { rankFeatures, RANK_DEFAULTS, type RankResult, type RankEntry } from '../attribute/rank.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod } from '../attribute/types.ts';
-import { collect, parseNonNegativeInt, parsePositiveInt, parseIntOption } from './options.ts';
+import { collect, parseEngine, parseNonNegativeInt, parsePositiveInt, parseIntOption } from './options.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
 
 interface RankCliOptions {
   target: string;
+  engine: string;
   features?: string;
   exclude?: string;
   derive: string[];
@@ -117,7 +118,7 @@ export function formatRank(r: RankResult, source: string): string {
   const secName = sec ? (sec.metric === 'rmse' ? 'RMSE' : 'balanced accuracy') : '';
   const also = (s: { secondary?: { score: number } }) => (sec && s.secondary ? `   ${secName} ${fmt(s.secondary.score)}` : '');
   L.push(`held-out ${metricName}${sec ? ` and ${secName}` : ''} (mean over repeats):`);
-  L.push(`  network ${r.model.hidden.join('×') || 'linear'}   ${fmt(r.model.score)}${also(r.model)}   (per repeat ${r.model.perRepeat.map((v) => fmt(v)).join(', ')})`);
+  L.push(`  network ${r.model.hidden.join('×') || 'linear'} (${r.model.engine} engine)   ${fmt(r.model.score)}${also(r.model)}   (per repeat ${r.model.perRepeat.map((v) => fmt(v)).join(', ')})`);
   L.push(`  ridge baseline       ${fmt(r.model.baselines.ridge.score)}${also(r.model.baselines.ridge)}`);
   L.push(`  constant baseline    ${fmt(r.model.baselines.constant.score)}${also(r.model.baselines.constant)}`);
   if (r.model.score <= Math.max(r.model.baselines.ridge.score, r.model.baselines.constant.score)) {
@@ -183,6 +184,7 @@ export function registerRank(program: Command, io: CliIO): void {
     .option('--drop-top <k>', 'also retrain without the k best groups and report the skill left', '0')
     .option('--permutation-loss <loss>', 'classification loss for permutation importance: error (drop in accuracy) | cross-entropy', 'error')
     .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
+    .option('--engine <engine>', 'network engine: auto (native when it loads) | native | tfjs', 'auto')
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
     .option('--out <dir>', 'also write rank.json into this folder')
@@ -219,6 +221,7 @@ export function registerRank(program: Command, io: CliIO): void {
         seed,
         dropTop: parseNonNegativeInt('--drop-top', o.dropTop),
         workers: parseNonNegativeInt('--workers', o.workers),
+        engine: parseEngine(o.engine),
         permutationLoss: o.permutationLoss as 'error' | 'cross-entropy',
       };
       let outFile: string | undefined;

@@ -2,8 +2,6 @@ import type { Command } from 'commander';
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { CliIO } from './io.ts';
-import { rerunFromFolder } from '../run/rerun.ts';
-import { runWithProgress } from './run-shared.ts';
 
 export function registerRerun(program: Command, io: CliIO): void {
   program
@@ -16,6 +14,8 @@ export function registerRerun(program: Command, io: CliIO): void {
     .option('--json', 'print the run folder and files as one JSON object')
     .option('--no-progress', 'no progress on stderr')
     .action(async (runDir: string, o: { table: string; out?: string; force?: boolean; json?: boolean; progress: boolean }) => {
+      // the run stage (zod, yaml, plotting) loads when the command runs, not at every start
+      const [{ rerunFromFolder }, { runWithProgress }] = await Promise.all([import('../run/rerun.ts'), import('./run-shared.ts')]);
       const dir = resolve(io.cwd, runDir);
       const loaded = rerunFromFolder(dir, o.table, io.cwd);
       let out = o.out ? resolve(io.cwd, o.out) : `${dir.replace(/[\\/]+$/, '')}-rerun`;

@@ -7,12 +7,13 @@ import { makeProgress } from './progress.ts';
 export async function runWithProgress(
   io: CliIO,
   loaded: LoadedConfig,
-  o: { out?: string; force?: boolean; progress: boolean; json?: boolean },
+  o: { out?: string; force?: boolean; progress: boolean; json?: boolean; engine?: 'auto' | 'native' | 'tfjs' },
 ): Promise<RunOutcome> {
   const bar = makeProgress(io, 'training', o.progress);
   const outcome = await executeRun(loaded, {
     ...(o.out ? { out: o.out } : {}),
     force: o.force ?? false,
+    ...(o.engine ? { engine: o.engine } : {}),
     onStage: (m) => {
       bar.stop();
       if (o.progress) io.stderr(`surmise: ${m}\n`);
@@ -22,10 +23,11 @@ export async function runWithProgress(
   bar.stop();
   const t = outcome.results.timings;
   if (o.json) {
-    io.stdout(JSON.stringify({ outDir: outcome.outDir, report: `${outcome.outDir}/report.html`, files: outcome.files, timings: t }) + '\n');
+    io.stdout(JSON.stringify({ outDir: outcome.outDir, report: `${outcome.outDir}/report.html`, files: outcome.files, timings: t, engine: outcome.results.rank?.model.engine ?? null }) + '\n');
   } else {
     io.stdout(`${outcome.outDir}/report.html\n`);
-    if (o.progress) io.stderr(`surmise: done in ${t.total} s (report also as report.md; everything in results.json)\n`);
+    const engine = outcome.results.rank ? `; network on the ${outcome.results.rank.model.engine} engine` : '';
+    if (o.progress) io.stderr(`surmise: done in ${t.total} s${engine} (report also as report.md; everything in results.json)\n`);
   }
   return outcome;
 }

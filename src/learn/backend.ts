@@ -2,8 +2,6 @@
  * The tfjs backend for learning: the wasm backend (SIMD; threads are unavailable in Node) loaded
  * from the installed package, or the pure-JavaScript 'cpu' backend. Nothing is downloaded.
  */
-import * as tf from '@tensorflow/tfjs';
-import { setWasmPaths } from '@tensorflow/tfjs-backend-wasm';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { SurmiseError } from '../errors.ts';
@@ -13,6 +11,8 @@ export type BackendName = 'wasm' | 'cpu';
 let pending: Promise<BackendName> | null = null;
 let pendingName: BackendName | null = null;
 let wasmPathsSet = false;
+/** tfjs, imported on first use (it takes most of a second to load). */
+let tf: typeof import('@tensorflow/tfjs') | null = null;
 
 
 /**
@@ -23,10 +23,12 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<BackendNa
   if (name !== 'wasm' && name !== 'cpu') {
     throw new SurmiseError('learn.backend', `unknown backend '${String(name)}': expected 'wasm' or 'cpu'`);
   }
-  if (pending && pendingName === name && tf.getBackend() === name) return pending;
+  if (pending && pendingName === name && tf?.getBackend() === name) return pending;
   pendingName = name;
   pending = (async () => {
+    tf ??= await import('@tensorflow/tfjs');
     if (name === 'wasm' && !wasmPathsSet) {
+      const { setWasmPaths } = await import('@tensorflow/tfjs-backend-wasm');
       const require = createRequire(import.meta.url);
       const dir = path.dirname(require.resolve('@tensorflow/tfjs-backend-wasm'));
       // In Node the wasm loader reads these with the file system: plain folder path with a trailing separator.
@@ -51,5 +53,5 @@ export async function ensureBackend(): Promise<BackendName> {
 
 /** The backend currently in use (after initBackend). */
 export function currentBackend(): string {
-  return tf.getBackend();
+  return tf ? tf.getBackend() : 'none';
 }

@@ -1,4 +1,5 @@
-/** The learning stage: the network (tfjs, wasm backend), baselines (constant, ridge) and metrics. */
+/** The learning stage: the network (engines: native ONNX runtime, tfjs wasm), baselines (constant, ridge) and metrics. */
+export { ENGINES, ENGINE_CHOICES, loadEngine, engineFailure, defaultEngineChoice, type Engine, type EngineChoice, type EngineName } from './engines.ts';
 export { initBackend, ensureBackend, currentBackend, type BackendName } from './backend.ts';
 export { type TrainData } from './data.ts';
 export { DEFAULT_NETWORK_OPTIONS, MAX_CLASSES, chooseTask, resolveNetworkOptions, type Activation, type LossName, type NetworkOptions, type Task } from './options.ts';

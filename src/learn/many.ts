@@ -1,13 +1,15 @@
 /**
- * Independent trainings (seeds × folds) spread over worker threads, each with its own wasm
- * backend (the wasm backend has no threads in Node, so workers are how both cores get used).
+ * Independent trainings (seeds × folds) spread over worker threads, each with its own engine
+ * (the tfjs wasm backend has no threads in Node, so workers are how both cores get used; the
+ * native engine's sessions in n workers take cores/n threads each).
  * Data travel once, as SharedArrayBuffer copies shared by every job that uses the same array.
  * When workers cannot start, the jobs run in this thread; with the wasm backend the result is
  * the same bit for bit either way.
  */
 import { Worker } from 'node:worker_threads';
 import { SurmiseError } from '../errors.ts';
-import { ensureBackend } from './backend.ts';
+import { availableParallelism } from 'node:os';
+import { loadEngine } from './engines.ts';
 import { checkData, type TrainData } from './data.ts';
 import { resolveNetworkOptions, type NetworkOptions } from './options.ts';
 import { trainToState } from './train.ts';
@@ -30,13 +32,13 @@ export interface TrainManyOptions {
 
 export interface TrainManyReport {
   states: NetworkState[];
-  /** where the jobs ran: 'workers' or 'in-process' (and why, when workers were wanted but failed) */
+  /** where the jobs ran: 'workers' or 'in-process' (and why, when workers were wanted but failed); each state names its engine */
   ranIn: 'workers' | 'in-process';
   fallbackReason?: string;
 }
 
 export type WorkerJobMessage =
-  | { type: 'job'; id: number; train: TrainData; validation: TrainData; options: NetworkOptions }
+  | { type: 'job'; id: number; train: TrainData; validation: TrainData; options: NetworkOptions; threads: number }
   | { type: 'stop' };
 export type WorkerReply =
   | { type: 'ready' }
@@ -68,15 +70,19 @@ function rebuildError(r: { code: string | null; message: string; exitCode: 1 | 2
 
 /** Run the jobs in this thread, in order. */
 async function inProcess(jobs: Resolved[], out: NetworkState[], todo: number[], onJobDone?: TrainManyOptions['onJobDone']): Promise<void> {
-  await ensureBackend();
   for (const i of todo) {
-    out[i] = trainToState(jobs[i]!.train, jobs[i]!.validation, jobs[i]!.options);
+    const engine = await loadEngine(jobs[i]!.options.engine);
+    out[i] = trainToState(jobs[i]!.train, jobs[i]!.validation, jobs[i]!.options, undefined, engine.name);
     onJobDone?.(i, out[i]!);
   }
 }
 
-/** The worker module is TypeScript; a small JavaScript bootstrap registers tsx in the worker first (execArgv alone did not load .ts here). */
-const WORKER_URL = new URL('./worker-boot.mjs', import.meta.url);
+/**
+ * The worker's entry: compiled (build/learn/worker.js) when this module is compiled; from the
+ * sources, a small JavaScript bootstrap registers tsx in the worker first (execArgv alone did not
+ * load .ts here).
+ */
+const WORKER_URL = import.meta.url.endsWith('.js') ? new URL('./worker.js', import.meta.url) : new URL('./worker-boot.mjs', import.meta.url);
 
 /**
  * Train every job; returns the states in job order. Options are checked for every job before
@@ -93,6 +99,8 @@ export async function trainMany(jobs: TrainJob[], opts: TrainManyOptions = {}): 
     checkData(j.validation, `job ${k + 1}: validation rows`, j.train.p);
     return { train: j.train, validation: j.validation, options };
   });
+  // 'auto' is settled here, once, so every worker runs the engine this thread would
+  for (const r of resolved) r.options = { ...r.options, engine: (await loadEngine(r.options.engine)).name };
   const states: NetworkState[] = new Array(jobs.length);
   if (jobs.length === 0) return { states, ranIn: 'in-process' };
   if (nWorkers === 0 || jobs.length === 1) {
@@ -132,7 +140,8 @@ function runWorkers(jobs: Resolved[], n: number, states: NetworkState[], onJobDo
       }
       const id = next++;
       const j = jobs[id]!;
-      w.postMessage({ type: 'job', id, train: j.train, validation: j.validation, options: j.options } satisfies WorkerJobMessage);
+      const threads = Math.max(1, Math.floor(availableParallelism() / n));
+      w.postMessage({ type: 'job', id, train: j.train, validation: j.validation, options: j.options, threads } satisfies WorkerJobMessage);
     };
     for (let k = 0; k < n; k++) {
       let w: Worker;

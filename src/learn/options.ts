@@ -3,6 +3,7 @@
  * entry point (trainNetwork / trainMany), with messages naming the option.
  */
 import { SurmiseError } from '../errors.ts';
+import { ENGINE_CHOICES, defaultEngineChoice, type EngineChoice } from './engines.ts';
 
 export type Task = 'regression' | 'classification';
 export type Activation = 'relu' | 'gelu';
@@ -18,6 +19,8 @@ export interface NetworkOptions {
   patience: number;
   seed: number;
   task?: Task;
+  /** 'auto' (native when it loads, else tfjs), 'native' or 'tfjs'; default SURMISE_ENGINE or 'auto' */
+  engine: EngineChoice;
 }
 
 /**
@@ -25,7 +28,7 @@ export interface NetworkOptions {
  * inputs, to early stop, load average ~7 on 2 cores): width 64 took 24 s (13 CPU-s, 107 epochs),
  * width 128 took 71 s (32 CPU-s) and reached no better validation loss (0.012 vs 0.023).
  */
-export const DEFAULT_NETWORK_OPTIONS: Readonly<NetworkOptions> = Object.freeze({
+export const DEFAULT_NETWORK_OPTIONS: Readonly<Omit<NetworkOptions, 'engine'>> = Object.freeze({
   hidden: [64, 64, 64],
   activation: 'relu',
   loss: 'mse',
@@ -41,7 +44,7 @@ function bad(key: string, expected: string, got: unknown): never {
 }
 
 const isPosInt = (v: unknown): v is number => typeof v === 'number' && Number.isInteger(v) && v >= 1;
-const KNOWN = ['hidden', 'activation', 'loss', 'learningRate', 'batchSize', 'maxEpochs', 'patience', 'seed', 'task'];
+const KNOWN = ['hidden', 'activation', 'loss', 'learningRate', 'batchSize', 'maxEpochs', 'patience', 'seed', 'task', 'engine'];
 
 /** Fill defaults and validate every option once. */
 export function resolveNetworkOptions(opts: Partial<NetworkOptions> = {}): NetworkOptions {
@@ -50,7 +53,7 @@ export function resolveNetworkOptions(opts: Partial<NetworkOptions> = {}): Netwo
       throw new SurmiseError('learn.unknownOption', `unknown network option '${k}'; known options: ${KNOWN.join(', ')}`, { option: k });
     }
   }
-  const o: NetworkOptions = { ...DEFAULT_NETWORK_OPTIONS, hidden: [...DEFAULT_NETWORK_OPTIONS.hidden] };
+  const o: NetworkOptions = { ...DEFAULT_NETWORK_OPTIONS, hidden: [...DEFAULT_NETWORK_OPTIONS.hidden], engine: opts.engine ?? defaultEngineChoice() };
   for (const [k, v] of Object.entries(opts)) if (v !== undefined) (o as unknown as Record<string, unknown>)[k] = v;
   if (!Array.isArray(o.hidden) || !o.hidden.every(isPosInt)) bad('hidden', 'a list of positive integer layer widths (possibly empty)', o.hidden);
   o.hidden = [...o.hidden];
@@ -61,6 +64,7 @@ export function resolveNetworkOptions(opts: Partial<NetworkOptions> = {}): Netwo
   if (!isPosInt(o.maxEpochs)) bad('maxEpochs', 'a positive integer', o.maxEpochs);
   if (!(typeof o.patience === 'number' && Number.isInteger(o.patience) && o.patience >= 0)) bad('patience', 'an integer ≥ 0', o.patience);
   if (!(typeof o.seed === 'number' && Number.isInteger(o.seed) && o.seed >= 0 && o.seed <= 0xffffffff)) bad('seed', 'an integer in [0, 4294967295]', o.seed);
+  if (!ENGINE_CHOICES.includes(o.engine)) bad('engine', ENGINE_CHOICES.map((e) => `'${e}'`).join(', '), o.engine);
   if (o.task !== undefined && o.task !== 'regression' && o.task !== 'classification') bad('task', "'regression' or 'classification'", o.task);
   return o;
 }

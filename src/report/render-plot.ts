@@ -1,6 +1,13 @@
-import * as vega from 'vega';
-import * as vl from 'vega-lite';
+import type * as VegaModule from 'vega';
+import type * as VegaLiteModule from 'vega-lite';
 import { Resvg, renderAsync } from '@resvg/resvg-js';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+
+/** vega and vega-lite, imported when the first plot is drawn (together ~0.6 CPU-s to load: kept out of the CLI's start). */
+let plotLibs: Promise<[typeof VegaModule, typeof VegaLiteModule]> | null = null;
+const loadPlotLibs = () => (plotLibs ??= Promise.all([import('vega'), import('vega-lite')]));
 
 /** A vega-lite specification (kept loose: the plot builders own its shape). */
 export type PlotSpec = Record<string, unknown>;
@@ -11,7 +18,8 @@ export type PlotSpec = Record<string, unknown>;
  * ids are prefixed with `idPrefix` so several SVGs can be inlined in one HTML page.
  */
 export async function specToSvg(spec: PlotSpec, idPrefix: string): Promise<string> {
-  const compiled = vl.compile(spec as unknown as vl.TopLevelSpec).spec;
+  const [vega, vl] = await loadPlotLibs();
+  const compiled = vl.compile(spec as unknown as VegaLiteModule.TopLevelSpec).spec;
   const view = new vega.View(vega.parse(compiled), { renderer: 'none' });
   try {
     const svg = await view.toSVG();
@@ -71,4 +79,24 @@ function pngOptions(scale: number) {
 }
 
 /** Versions of the plotting libraries, for the reproducibility section. */
-export const plotLibraryVersions: Record<string, string> = { vega: vega.version, 'vega-lite': vl.version };
+export const plotLibraryVersions: Record<string, string> = { vega: installedVersion('vega'), 'vega-lite': installedVersion('vega-lite') };
+
+/** An installed package's version, from the package.json above its entry file (without loading the package). */
+function installedVersion(name: string): string {
+  try {
+    let dir = dirname(createRequire(import.meta.url).resolve(name));
+    for (;;) {
+      try {
+        const pkg = JSON.parse(readFileSync(join(dir, 'package.json'), 'utf8')) as { name?: string; version?: string };
+        if (pkg.name === name && pkg.version) return pkg.version;
+      } catch {
+        // no package.json at this level
+      }
+      const up = dirname(dir);
+      if (up === dir) return 'unknown';
+      dir = up;
+    }
+  } catch {
+    return 'unknown';
+  }
+}

@@ -24,6 +24,7 @@ const NetworkSchema = z.strictObject({
   patience: positiveInt.default(8),
   batchSize: positiveInt.default(256),
   learningRate: z.number().positive().default(0.001),
+  engine: z.enum(['auto', 'native', 'tfjs']).default('auto'),
 });
 
 const AttributionSchema = z.strictObject({

@@ -35,6 +35,8 @@ export interface RunOptions {
   onRankProgress?: (e: RankProgress) => void;
   /** Called when the search screens subsets. */
   onSearchProgress?: (done: number, total: number) => void;
+  /** The network engine, over the configuration's `network.engine`. */
+  engine?: 'auto' | 'native' | 'tfjs';
 }
 
 export interface RunResults {
@@ -387,6 +389,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     ...(config.network.task !== 'auto' ? { task: config.network.task } : {}),
     hidden: config.network.hidden,
     epochs: config.network.epochs,
+    engine: opts.engine ?? config.network.engine,
     seed: config.seed,
     dropTop: config.attribution.dropTop,
     ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),

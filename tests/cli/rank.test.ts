@@ -54,6 +54,8 @@ describe('surmise rank', () => {
     expect(r.rankingMethod).toBe('consensus');
     expect(r.rows.inputRows).toBe(800);
     expect(r.seeds).toEqual([1, 2]);
+    // which engine ran is said: auto picks native when it loads (SURMISE_ENGINE may force one)
+    expect(r.model.engine).toBe(process.env.SURMISE_ENGINE === 'tfjs' ? 'tfjs' : 'native');
     // x6, x7 are inert in Friedman #1: both rank below x4 (largest total effect, fixture attribution-benchmarks.json)
     const pos = (f: string) => r.ranking.findIndex((e: { feature: string }) => e.feature === f);
     expect(pos('x6')).toBeGreaterThan(pos('x4'));
@@ -70,6 +72,7 @@ describe('surmise rank', () => {
     expect(io.out).toMatch(/ridge baseline +-?\d\.\d{3}/);
     expect(io.out).toMatch(/constant baseline +-?\d\.\d{3}/);
     expect(io.out).toMatch(/rows: kept 800 of 800 rows; nothing dropped/);
+    expect(io.out).toMatch(/network 16×16 \((native|tfjs) engine\)/);
     expect(io.out).toMatch(/ {4}1 {2}x\d +0\.\d{3} {2}\[0\.\d{3}, 0\.\d{3}\] +█+/);
   }, 120_000);
 
@@ -91,6 +94,7 @@ describe('surmise rank', () => {
       [['--split', 'kfold:1'], /kfold needs a whole number of folds >= 2/],
       [['--permutation-loss', 'entropy'], /--permutation-loss entropy: expected error or cross-entropy/],
       [['--workers', '-1'], /expected --workers to be a non-negative integer, got -1/],
+      [['--engine', 'gpu'], /--engine gpu: expected one of auto, native, tfjs \[option\.badEngine\]/],
     ];
     for (const [args, re] of cases) {
       const io = memoryIO(dir);
