@@ -11,7 +11,7 @@ import { pathToFileURL } from 'node:url';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { renderReport } from '../../src/report/index.ts';
 import { EVIL, makeInput } from './fixture-input.ts';
-import { decodePng, inkStats, pageMetrics } from './helpers.ts';
+import { checkWidth, decodePng, inkStats } from './helpers.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
 const haveChromium = existsSync(CHROMIUM);
@@ -141,16 +141,7 @@ describe.skipIf(!haveChromium)('report.html in a real browser', () => {
   });
 
   it('fits the page at 390 px and 1280 px (no horizontal overflow), with tick labels of at least 11 px at 1280 px', async () => {
-    for (const width of [390, 1280]) {
-      await page.setViewportSize({ width, height: 900 });
-      await page.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
-      const m = await pageMetrics(page);
-      expect(m.scrollWidth, `scrollWidth at ${width} px`).toBeLessThanOrEqual(m.innerWidth);
-      if (width === 1280) expect(m.smallestPlotText).toBeGreaterThanOrEqual(11);
-      const ink = inkStats(decodePng(new Uint8Array(await page.screenshot({ fullPage: false }))));
-      expect(ink.inked, `screenshot at ${width} px`).toBeGreaterThan(0.01);
-      expect(ink.distinct).toBeGreaterThan(20);
-    }
+    for (const width of [390, 1280]) await checkWidth(page, width, expect);
     // the table of contents points at sections that exist
     const targets = await page.evaluate(() => Array.from(document.querySelectorAll('nav.toc a')).map((a) => document.getElementById(a.getAttribute('href')!.slice(1)) !== null));
     expect(targets.length).toBeGreaterThan(3);

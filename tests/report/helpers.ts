@@ -108,3 +108,23 @@ export async function pageMetrics(page: { evaluate<T>(f: () => T): Promise<T> })
     return { scrollWidth: document.documentElement.scrollWidth, innerWidth: window.innerWidth, smallestPlotText: smallest };
   });
 }
+
+/**
+ * The layout checks at one viewport width, folded sections opened: no horizontal page overflow
+ * (scrollWidth ≤ innerWidth), plot text of at least 11 px on screen at 1280 px and wider, and a
+ * screenshot that is not blank.
+ */
+export async function checkWidth(
+  page: { setViewportSize(s: { width: number; height: number }): Promise<void>; evaluate<T>(f: () => T): Promise<T>; screenshot(o: { fullPage: boolean }): Promise<Uint8Array> },
+  width: number,
+  expectFn: (v: unknown, message?: string) => { toBeLessThanOrEqual(n: number): void; toBeGreaterThanOrEqual(n: number): void; toBeGreaterThan(n: number): void },
+): Promise<void> {
+  await page.setViewportSize({ width, height: 900 });
+  await page.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
+  const m = await pageMetrics(page);
+  expectFn(m.scrollWidth, `scrollWidth at ${width} px`).toBeLessThanOrEqual(m.innerWidth);
+  if (width >= 1280) expectFn(m.smallestPlotText, `smallest plot text at ${width} px`).toBeGreaterThanOrEqual(11);
+  const ink = inkStats(decodePng(new Uint8Array(await page.screenshot({ fullPage: false }))));
+  expectFn(ink.inked, `screenshot at ${width} px`).toBeGreaterThan(0.01);
+  expectFn(ink.distinct, `colours at ${width} px`).toBeGreaterThan(20);
+}

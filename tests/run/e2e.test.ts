@@ -185,7 +185,7 @@ describe.skipIf(!existsSync(CHROMIUM))('the demo report in Chromium at 390 px an
   it('has no horizontal overflow, readable plot text at 1280 px, and is not blank at either width', async () => {
     const { chromium } = await import('playwright-core');
     const { pathToFileURL } = await import('node:url');
-    const { decodePng, inkStats, pageMetrics } = await import('../report/helpers.ts');
+    const { checkWidth } = await import('../report/helpers.ts');
     const context = await chromium.launchPersistentContext(join(work, 'profile'), {
       executablePath: CHROMIUM,
       headless: true,
@@ -199,13 +199,7 @@ describe.skipIf(!existsSync(CHROMIUM))('the demo report in Chromium at 390 px an
       for (const width of [390, 1280]) {
         await page.setViewportSize({ width, height: 900 });
         await page.goto(url, { waitUntil: 'load' });
-        await page.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
-        const m = await pageMetrics(page);
-        expect(m.scrollWidth, `scrollWidth at ${width} px`).toBeLessThanOrEqual(m.innerWidth);
-        if (width === 1280) expect(m.smallestPlotText).toBeGreaterThanOrEqual(11);
-        const ink = inkStats(decodePng(new Uint8Array(await page.screenshot({ fullPage: false }))));
-        expect(ink.inked, `screenshot at ${width} px`).toBeGreaterThan(0.01);
-        expect(ink.distinct).toBeGreaterThan(20);
+        await checkWidth(page, width, expect);
         // every number cell keeps its number on one line: its text is no taller than one line
         const wrapped = await page.evaluate(() =>
           Array.from(document.querySelectorAll('td.num')).filter((td) => {
