@@ -59,3 +59,27 @@ export function didYouMean(name: string, candidates: readonly string[]): string 
   const n = nearest(name, candidates);
   return n === undefined ? '' : ` (did you mean '${n}'?)`;
 }
+
+/** A file system error in words ("no such file", "it is a folder, not a file", …), never a bare ENOENT. */
+export function fileErrorReason(e: unknown): string {
+  const code = (e as NodeJS.ErrnoException)?.code;
+  if (code === 'ENOENT') return 'no such file';
+  if (code === 'EACCES' || code === 'EPERM') return 'permission denied';
+  if (code === 'EISDIR') return 'it is a folder, not a file';
+  if (code === 'ENOTDIR') return 'a part of the path is a file, not a folder';
+  return (e as Error)?.message ?? String(e);
+}
+
+/**
+ * Text from the user's data made safe to show in one line of a message or note: control
+ * characters escaped (`\n`, `\t`, `\u0007`), and cut to `max` characters with the full length
+ * said, so a 5 MB cell is never echoed.
+ */
+export function printable(s: string, max = 60): string {
+  const cut = s.length > max ? s.slice(0, max) : s;
+  // eslint-disable-next-line no-control-regex
+  const esc = cut.replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]/g, (c) =>
+    c === '\n' ? '\\n' : c === '\t' ? '\\t' : c === '\r' ? '\\r' : `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`,
+  );
+  return s.length > max ? `${esc}… (${s.length.toLocaleString('en-US')} characters)` : esc;
+}

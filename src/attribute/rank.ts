@@ -13,6 +13,8 @@ import type { Table } from '../table/types.ts';
 import { buildDataset, type Dataset, type DropReport } from '../table/dataset.ts';
 import { parseDerive } from '../table/expr/index.ts';
 import { SurmiseError } from '../errors.ts';
+import { checkInteger, tooLarge } from '../util/integer.ts';
+import { RANK_LIMITS } from './limits.ts';
 import { deriveSeed, Rng } from '../util/rng.ts';
 import { trainNetwork } from '../learn/train.ts';
 import { trainMany } from '../learn/many.ts';
@@ -181,25 +183,27 @@ function dependenceCurves(predict: (x: Float64Array, n: number) => Float64Array,
 }
 
 function checkOptions(o: RankOptions): void {
-  const posInt = (name: string, v: number | undefined, min: number) => {
-    if (v !== undefined && !(Number.isInteger(v) && v >= min)) {
-      throw new SurmiseError('rank.badOption', `expected ${name} to be an integer ≥ ${min}, got ${v}`, { option: name });
-    }
+  const count = (name: keyof typeof RANK_LIMITS, v: number | undefined) => {
+    if (v !== undefined) checkInteger(name, v, RANK_LIMITS[name], 'rank.badOption');
   };
-  posInt('seeds', o.seeds, 1);
-  posInt('folds', o.folds, 0);
+  count('seeds', o.seeds);
+  count('folds', o.folds);
   if (o.folds === 1) throw new SurmiseError('rank.badOption', 'expected folds to be 0 (one random split) or at least 2, got 1', { option: 'folds' });
-  posInt('epochs', o.epochs, 1);
-  posInt('seed', o.seed, 0);
-  posInt('dropTop', o.dropTop, 0);
-  posInt('workers', o.workers, 0);
-  posInt('attributionRows', o.attributionRows, 2);
-  posInt('smoothGradSamples', o.smoothGradSamples, 1);
-  posInt('integratedSteps', o.integratedSteps, 1);
-  posInt('permutationRepeats', o.permutationRepeats, 1);
-  posInt('resamples', o.resamples, 10);
+  count('epochs', o.epochs);
+  count('seed', o.seed);
+  count('dropTop', o.dropTop);
+  count('workers', o.workers);
+  count('attributionRows', o.attributionRows);
+  count('smoothGradSamples', o.smoothGradSamples);
+  count('integratedSteps', o.integratedSteps);
+  count('permutationRepeats', o.permutationRepeats);
+  count('resamples', o.resamples);
   if (o.hidden && !o.hidden.every((h) => Number.isInteger(h) && h >= 1)) {
     throw new SurmiseError('rank.badOption', `expected hidden to be positive integer layer widths, got ${o.hidden.join(',')}`, { option: 'hidden' });
+  }
+  if (o.hidden) {
+    if (o.hidden.length > RANK_LIMITS.hiddenLayers.max) throw tooLarge('hidden', o.hidden.length, RANK_LIMITS.hiddenLayers, 'the number of hidden layers');
+    for (const h of o.hidden) if (h > RANK_LIMITS.hiddenWidth.max) throw tooLarge('hidden', h, RANK_LIMITS.hiddenWidth, 'each hidden layer width');
   }
   if (o.smoothGradNoise !== undefined && !(Number.isFinite(o.smoothGradNoise) && o.smoothGradNoise >= 0)) {
     throw new SurmiseError('rank.badOption', `expected smoothGradNoise to be a number ≥ 0, got ${o.smoothGradNoise}`, { option: 'smoothGradNoise' });

@@ -1,3 +1,4 @@
+import { checkInteger, type IntegerRange } from '../util/integer.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import type { Table } from '../table/types.ts';
 import { deriveColumn, evaluateExpression, parseDerive } from '../table/expr/index.ts';
@@ -194,6 +195,12 @@ function withDerived(table: Table, derive: readonly string[]): Table {
   return t;
 }
 
+/** Ranges of findBound's count options (strata and witness rows); the ceilings keep output finite. */
+export const BOUND_LIMITS = Object.freeze({
+  bins: { min: 1, max: 1000 },
+  top: { min: 1, max: 1000 },
+} satisfies Record<string, IntegerRange>);
+
 interface CheckedSpec {
   lhs: string;
   rhs: string[];
@@ -212,19 +219,14 @@ function checkSpec(spec: BoundSpec): CheckedSpec {
   if (rhs.length === 0) throw new SurmiseError('bound.badOption', 'expected at least one rhs expression, got none');
   for (const r of rhs) if (typeof r !== 'string' || r.trim() === '') throw new SurmiseError('bound.badOption', 'expected every rhs to be an expression, got an empty one');
   if (spec.by !== undefined && (typeof spec.by !== 'string' || spec.by.trim() === '')) throw new SurmiseError('bound.badOption', 'expected by to be an expression, got an empty one');
-  const int = (name: string, v: unknown, dflt: number, min: number): number => {
-    if (v === undefined) return dflt;
-    if (typeof v !== 'number' || !Number.isInteger(v) || v < min) {
-      throw new SurmiseError('bound.badOption', `expected ${name} to be an integer ≥ ${min}, got ${String(v)}`);
-    }
-    return v;
-  };
+  const int = (name: keyof typeof BOUND_LIMITS, v: unknown, dflt: number): number =>
+    v === undefined ? dflt : checkInteger(name, v, BOUND_LIMITS[name], 'bound.badOption');
   return {
     lhs: spec.lhs,
     rhs,
     by: spec.by ?? null,
-    bins: int('bins', spec.bins, 10, 1),
-    top: int('top', spec.top, 5, 1),
+    bins: int('bins', spec.bins, 10),
+    top: int('top', spec.top, 5),
     id: spec.id ? [...spec.id] : null,
     skipInvalid: Boolean(spec.skipInvalid),
     lower: Boolean(spec.lower),

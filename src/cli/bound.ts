@@ -2,7 +2,8 @@ import type { Command } from 'commander';
 import { resolve } from 'node:path';
 import { readingProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
-import { collect, parsePositiveInt } from './options.ts';
+import { collect, parsePositiveInt, rangeHelp } from './options.ts';
+import { BOUND_LIMITS } from '../bound/find.ts';
 import { readTable, type TableFormat } from '../table/read.ts';
 import { findBound } from '../bound/find.ts';
 import { formatBound } from '../bound/format.ts';
@@ -34,8 +35,8 @@ export function registerBound(program: Command, io: CliIO): void {
     .requiredOption('--lhs <expr>', 'left-hand side expression, e.g. "abs(2*sig - slope)"')
     .requiredOption('--rhs <expr>', 'right-hand side expression, > 0 on every row (repeat to compare candidates)', collect, [])
     .option('--by <expr>', 'stratify by this expression (default: each candidate by its own rhs)')
-    .option('--bins <n>', 'number of equal-count strata', '10')
-    .option('--top <k>', 'number of witness rows shown', '5')
+    .option('--bins <n>', `number of equal-count strata${rangeHelp(BOUND_LIMITS.bins)}`, '10')
+    .option('--top <k>', `number of witness rows shown${rangeHelp(BOUND_LIMITS.top)}`, '5')
     .option('--id <col>', 'column shown beside witness rows (repeat or comma-separate; default: every label column)', collect, [])
     .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. slope=re(lon/mer) (repeatable)', collect, [])
     .option('--skip-invalid', 'drop and count rows with a missing cell, a non-finite value or rhs ≤ 0 instead of refusing them')
@@ -44,8 +45,8 @@ export function registerBound(program: Command, io: CliIO): void {
     .option('--json', 'print one JSON object on standard output')
     .option('--no-progress', 'no progress output on standard error')
     .action(async (file: string, opts: BoundOptions) => {
-      const bins = parsePositiveInt('--bins', opts.bins);
-      const top = parsePositiveInt('--top', opts.top);
+      const bins = parsePositiveInt('--bins', opts.bins, BOUND_LIMITS.bins.max);
+      const top = parsePositiveInt('--top', opts.top, BOUND_LIMITS.top.max);
       const id = opts.id.flatMap((s) => s.split(',')).map((s) => s.trim()).filter((s) => s.length > 0);
       const reading = readingProgress(io, file, opts.progress);
       const table = await readTable(resolve(io.cwd, file), {

@@ -6,7 +6,9 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
-import { collect } from './options.ts';
+import { collect, rangeHelp } from './options.ts';
+import { tooLarge } from '../util/integer.ts';
+import { RELATE_LIMITS } from '../relate/limits.ts';
 import { SurmiseError } from '../errors.ts';
 import { readTable } from '../table/read.ts';
 import { parseDerive } from '../table/expr/derive.ts';
@@ -29,11 +31,12 @@ export interface FitOptions {
   keepDuplicates?: boolean;
 }
 
-/** A non-negative integer option, or `relate.badOption` naming it. */
-export function intOption(name: string, text: string, min: number): number {
+/** An integer option ≥ `min` (else `relate.badOption` naming it) and at most its ceiling `max` (else `option.tooLarge`). */
+export function intOption(name: string, text: string, min: number, max = Infinity): number {
   const v = Number(text);
   if (text.trim() === '' || !Number.isInteger(v) || v < min)
     throw new SurmiseError('relate.badOption', `expected ${name} to be an integer ≥ ${min}, got '${text}'`);
+  if (v > max) throw tooLarge(name, text, { min, max });
   return v;
 }
 
@@ -110,14 +113,14 @@ export function registerFit(program: Command, io: CliIO): void {
     .option('--split <spec>', 'fit on one part and report the error on another: random:TRAIN,VALIDATION,TEST (fit on train, measure on test) or where:CONDITION')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
     .option('--seed <n>', 'seed for the split and the cross-validation folds', '0')
-    .option('--folds <k>', 'cross-validation folds', '5')
+    .option('--folds <k>', `cross-validation folds${rangeHelp(RELATE_LIMITS.folds)}`, '5')
     .option('--level <p>', 'confidence level of the intervals', '0.95')
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
     .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column used (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .action(async (file: string, o: FitOptions) => {
       const seed = intOption('--seed', o.seed, 0);
-      const folds = intOption('--folds', o.folds, 2);
+      const folds = intOption('--folds', o.folds, RELATE_LIMITS.folds.min, RELATE_LIMITS.folds.max);
       const level = Number(o.level);
       if (!(level > 0 && level < 1)) throw new SurmiseError('relate.badOption', `expected --level to lie strictly between 0 and 1, got '${o.level}'`);
       const terms = splitTerms(o.terms);

@@ -38,7 +38,7 @@ import {
   type InvariantName,
   type KnotInvariants,
 } from '../knots/index.ts';
-import { invariantsOf, readDiagramFile, tableRecord } from '../knots/batch.ts';
+import { invariantColumns, invariantsOf, readDiagramFile, tableRecord } from '../knots/batch.ts';
 
 const CONVENTIONS =
   'Conventions: PD crossings X[a,b,c,d] are read counter-clockwise from the incoming under-edge; a crossing is\n' +
@@ -119,6 +119,15 @@ function jsonRow(name: string, r: KnotInvariants, inv: readonly InvariantName[])
       o.alexander_sign_fixed = r.alexanderSignFixed ?? null;
     } else if (k === 'linking') o.linking = r.linking ?? [];
     else if (k === 'jumps') o.jumps = r.jumps ?? [];
+    else if (k === 'hyperbolic') {
+      const h = r.hyperbolic;
+      o.geometry = h?.geometry ?? null;
+      o.geometry_reason = h?.reason ?? null;
+      o.volume = h?.volume ?? null;
+      o.cusp_shape = h?.cuspShape ?? null;
+      o.natural_slope = h?.naturalSlope ?? null;
+      o.tetrahedra = h?.tetrahedra ?? null;
+    }
     else if (k === 'levine_tristram') {
       o.levine_tristram = r.levineTristram ?? null;
       o.omega = r.omega ?? null;
@@ -147,8 +156,13 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
 
   const prefix = o.prefix ?? '';
   const records = sources.map((s, k) => tableRecord(s.name, results[k]!, inv));
-  const kinds: Record<string, 'label' | 'integer' | 'real'> = { name: 'label' };
+  const kinds: Record<string, 'label' | 'integer' | 'real' | 'complex'> = { name: 'label' };
   for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
+  if (inv.includes('hyperbolic')) {
+    delete kinds.hyperbolic;
+    Object.assign(kinds, { geometry: 'label', geometry_reason: 'label', volume: 'real', cusp_shape: 'complex', natural_slope: 'real' });
+  }
+  const cols = invariantColumns(inv);
   // a determinant beyond 2^53 − 1 is a decimal string (exact); the column is then text so no digit is rounded
   if (records.some((r) => typeof r.determinant === 'string')) kinds.determinant = 'label';
   let table: Table;
@@ -159,7 +173,7 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
     if (!keyCol)
       throw new SurmiseError('knots.noColumn', `--on ${o.on}: ${o.join} has no column '${o.on}'${didYouMean(o.on!, census.columns.map((c) => c.name))}`);
     if (keyCol.kind === 'complex') throw new SurmiseError('knots.option', `--on ${o.on}: a complex column cannot be a key`);
-    const newNames = inv.map((k) => prefix + k);
+    const newNames = cols.map((k) => prefix + k);
     for (const n of newNames)
       if (census.columns.some((c) => c.name === n))
         throw new SurmiseError('knots.columnExists', `${o.join} already has a column '${n}'; give --prefix to name the new columns differently`);
@@ -172,15 +186,15 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
       const key = keyCol.missing[i] ? undefined : keyCol.kind === 'label' ? keyCol.values[i]! : String(keyCol.values[i]!);
       const k = key === undefined ? undefined : byName.get(key);
       const rec: Record<string, unknown> = {};
-      for (const kk of inv) rec[prefix + kk] = k === undefined ? null : records[k]![kk];
+      for (const kk of cols) rec[prefix + kk] = k === undefined ? null : records[k]![kk];
       if (k === undefined) rowsUnmatched.push(key ?? `(empty key, line ${census.lines ? census.lines[i] : i + 2})`);
       else used.add(key!);
       joined.push(rec);
     }
     const diagramsUnmatched = sources.filter((s) => !used.has(s.name)).map((s) => s.name);
     unmatched = { diagrams: diagramsUnmatched, rows: rowsUnmatched };
-    const pk: Record<string, 'label' | 'integer' | 'real'> = {};
-    for (const k of inv) pk[prefix + k] = kinds[k]!;
+    const pk: Record<string, 'label' | 'integer' | 'real' | 'complex'> = {};
+    for (const k of cols) pk[prefix + k] = kinds[k]!;
     const added = tableFromRecords(joined, '(knots)', { kinds: pk, complexPairs: 'none' });
     table = { source: census.source, nRows: census.nRows, columns: [...census.columns, ...added.columns], lines: census.lines };
     const show = (xs: string[]): string => xs.slice(0, 5).join(', ') + (xs.length > 5 ? `, … (${xs.length - 5} more)` : '');
@@ -194,7 +208,7 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
       for (const [k, v] of Object.entries(r)) x[k === 'name' ? 'name' : prefix + k] = v;
       return x;
     });
-    const pk: Record<string, 'label' | 'integer' | 'real'> = {};
+    const pk: Record<string, 'label' | 'integer' | 'real' | 'complex'> = {};
     for (const [k, v] of Object.entries(kinds)) pk[k === 'name' ? 'name' : prefix + k] = v;
     table = tableFromRecords(recs, file, { kinds: pk, complexPairs: 'none' });
   }

@@ -13,7 +13,9 @@ import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
 import { formatDropReport } from '../table/dataset.ts';
 import { rankFeatures, RANK_DEFAULTS, type RankResult, type RankEntry } from '../attribute/rank.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod } from '../attribute/types.ts';
-import { collect, parseEngine, parseNonNegativeInt, parsePositiveInt, parseIntOption } from './options.ts';
+import { collect, parseEngine, parseNonNegativeInt, parsePositiveInt, parseIntOption, rangeHelp } from './options.ts';
+import { RANK_LIMITS } from '../attribute/limits.ts';
+import { tooLarge } from '../util/integer.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
 
@@ -79,7 +81,9 @@ export function parseGroups(specs: string[]): Record<string, string[]> {
 
 function parseHidden(raw: string): number[] {
   if (raw.trim() === '' || raw.trim() === 'none') return [];
-  return raw.split(',').map((s) => parsePositiveInt('--hidden (each layer width)', s.trim()));
+  const widths = raw.split(',').map((s) => parsePositiveInt('--hidden (each layer width)', s.trim(), RANK_LIMITS.hiddenWidth.max));
+  if (widths.length > RANK_LIMITS.hiddenLayers.max) throw tooLarge('--hidden', widths.length, RANK_LIMITS.hiddenLayers, '--hidden (number of layers)');
+  return widths;
 }
 
 const fmt = (x: number | null | undefined, digits = 3): string =>
@@ -174,16 +178,16 @@ export function registerRank(program: Command, io: CliIO): void {
     .option('--derive <name=expr>', 'add a computed column first (repeatable), e.g. slope=re(lon/mer)', collect, [])
     .option('--group <name=a,b>', 'score these features as one group (repeatable); a complex column is always one group', collect, [])
     .option('--method <m>', `attribution method: ${ATTRIBUTION_METHODS.join('|')}|all, or a comma list`, 'all')
-    .option('--seeds <n>', 'networks per split', String(RANK_DEFAULTS.seeds))
-    .option('--folds <k>', '0 = one random split per seed; k ≥ 2 = k-fold cross-validation', String(RANK_DEFAULTS.folds))
+    .option('--seeds <n>', `networks per split${rangeHelp(RANK_LIMITS.seeds)}`, String(RANK_DEFAULTS.seeds))
+    .option('--folds <k>', `0 = one random split per seed; k ≥ 2 = k-fold cross-validation (at most ${RANK_LIMITS.folds.max})`, String(RANK_DEFAULTS.folds))
     .option('--split <spec>', 'random | random:TRAIN,VALIDATION,TEST | kfold:K | where:CONDITION (condition true = training side)')
     .option('--task <task>', 'regression | classification (default: chosen from the target)')
-    .option('--hidden <widths>', 'hidden layer widths', RANK_DEFAULTS.hidden.join(','))
-    .option('--epochs <n>', 'most training epochs (early stopping on the validation rows)', String(RANK_DEFAULTS.epochs))
+    .option('--hidden <widths>', `hidden layer widths (at most ${RANK_LIMITS.hiddenLayers.max} layers of width ${RANK_LIMITS.hiddenWidth.max})`, RANK_DEFAULTS.hidden.join(','))
+    .option('--epochs <n>', `most training epochs (early stopping on the validation rows)${rangeHelp(RANK_LIMITS.epochs)}`, String(RANK_DEFAULTS.epochs))
     .option('--seed <s>', 'the seed every other seed is derived from', String(RANK_DEFAULTS.seed))
-    .option('--drop-top <k>', 'also retrain without the k best groups and report the skill left', '0')
+    .option('--drop-top <k>', `also retrain without the k best groups and report the skill left${rangeHelp(RANK_LIMITS.dropTop)}`, '0')
     .option('--permutation-loss <loss>', 'classification loss for permutation importance: error (drop in accuracy) | cross-entropy', 'error')
-    .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
+    .option('--workers <n>', `worker threads for training (0 = train in this thread)${rangeHelp(RANK_LIMITS.workers)}`, String(RANK_DEFAULTS.workers))
     .option('--engine <engine>', 'network engine: auto (native when it loads) | native | tfjs', 'auto')
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
@@ -201,7 +205,7 @@ export function registerRank(program: Command, io: CliIO): void {
       if (o.permutationLoss !== 'error' && o.permutationLoss !== 'cross-entropy') {
         throw new SurmiseError('option.badLoss', `--permutation-loss ${o.permutationLoss}: expected error or cross-entropy${didYouMean(o.permutationLoss, ['error', 'cross-entropy'])}`);
       }
-      const folds = parseNonNegativeInt('--folds', o.folds);
+      const folds = parseNonNegativeInt('--folds', o.folds, RANK_LIMITS.folds.max);
       if (folds === 1) throw new SurmiseError('option.badInteger', 'expected --folds to be 0 (one random split) or at least 2, got 1');
       const seed = parseIntOption('--seed', o.seed);
       if (seed < 0 || seed > 0xffffffff) throw new SurmiseError('option.badInteger', `expected --seed to be an integer in [0, 4294967295], got ${o.seed}`);
@@ -212,15 +216,15 @@ export function registerRank(program: Command, io: CliIO): void {
         derive: o.derive,
         ...(o.group.length ? { groups: parseGroups(o.group) } : {}),
         methods: parseMethods(o.method),
-        seeds: parsePositiveInt('--seeds', o.seeds),
+        seeds: parsePositiveInt('--seeds', o.seeds, RANK_LIMITS.seeds.max),
         folds,
         ...(o.split !== undefined ? { split: o.split } : {}),
         ...(o.task !== undefined ? { task: o.task as 'regression' | 'classification' } : {}),
         hidden: parseHidden(o.hidden),
-        epochs: parsePositiveInt('--epochs', o.epochs),
+        epochs: parsePositiveInt('--epochs', o.epochs, RANK_LIMITS.epochs.max),
         seed,
-        dropTop: parseNonNegativeInt('--drop-top', o.dropTop),
-        workers: parseNonNegativeInt('--workers', o.workers),
+        dropTop: parseNonNegativeInt('--drop-top', o.dropTop, RANK_LIMITS.dropTop.max),
+        workers: parseNonNegativeInt('--workers', o.workers, RANK_LIMITS.workers.max),
         engine: parseEngine(o.engine),
         permutationLoss: o.permutationLoss as 'error' | 'cross-entropy',
       };

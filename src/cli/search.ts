@@ -16,6 +16,8 @@ import { splitRows } from '../relate/split-option.ts';
 import { withDerived } from '../relate/rows.ts';
 import { alignTable, num, toJson } from '../relate/text.ts';
 import { intOption } from './fit.ts';
+import { rangeHelp } from './options.ts';
+import { RELATE_LIMITS } from '../relate/limits.ts';
 
 interface SearchOptions {
   target: string;
@@ -91,10 +93,10 @@ export function registerSearch(program: Command, io: CliIO): void {
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
     .requiredOption('--target <expr>', 'expression to predict')
     .requiredOption('--from <columns>', 'columns to build terms from, comma-separated')
-    .option('--max-terms <k>', 'largest number of terms besides the intercept', '2')
+    .option('--max-terms <k>', `largest number of terms besides the intercept${rangeHelp(RELATE_LIMITS.maxTerms)}`, '2')
     .option('--powers <lo..hi>', 'integer powers of each column', '-3..3')
     .option('--split <spec>', 'selection and held-out parts: random:TRAIN,VALIDATION,TEST (select on train, measure on test) or where:CONDITION; default a random 60/40 split')
-    .option('--top <n>', 'candidates to list', '10')
+    .option('--top <n>', `candidates to list${rangeHelp(RELATE_LIMITS.top)}`, '10')
     .option('--seed <n>', 'seed for the split', '0')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
@@ -104,7 +106,7 @@ export function registerSearch(program: Command, io: CliIO): void {
     .action(async (file: string, o: SearchOptions) => {
       const seed = intOption('--seed', o.seed, 0);
       const maxTerms = intOption('--max-terms', o.maxTerms, 1);
-      const top = intOption('--top', o.top, 1);
+      const top = intOption('--top', o.top, 1, RELATE_LIMITS.top.max);
       const powers = parsePowers(o.powers);
       const from = o.from.split(',').map((s) => s.trim());
       from.forEach((c, i) => {

@@ -133,10 +133,16 @@ export function invariantsOf(src: DiagramSource, file: string, kind: DiagramKind
   }
 }
 
+/** The columns the `hyperbolic` invariant adds (cusp_shape is complex). */
+export const HYPERBOLIC_COLUMNS = ['geometry', 'geometry_reason', 'volume', 'cusp_shape', 'natural_slope'] as const;
+
 /** Column order and record layout of the output table. */
 export function invariantColumns(inv: readonly InvariantName[]): string[] {
   const cols: string[] = [];
-  for (const k of inv) cols.push(k === 'levine_tristram' ? 'levine_tristram' : k);
+  for (const k of inv) {
+    if (k === 'hyperbolic') cols.push(...HYPERBOLIC_COLUMNS);
+    else cols.push(k);
+  }
   return cols;
 }
 
@@ -146,8 +152,8 @@ export function linkingText(l: KnotInvariants['linking']): string {
 }
 
 /** One flat record for a table (alexander as text, lists as space-separated text). */
-export function tableRecord(name: string, r: KnotInvariants, inv: readonly InvariantName[]): Record<string, string | number | null> {
-  const rec: Record<string, string | number | null> = { name };
+export function tableRecord(name: string, r: KnotInvariants, inv: readonly InvariantName[]): Record<string, string | number | null | { re: number; im: number }> {
+  const rec: Record<string, string | number | null | { re: number; im: number }> = { name };
   for (const k of inv) {
     switch (k) {
       case 'crossings': rec[k] = r.crossings; break;
@@ -162,6 +168,15 @@ export function tableRecord(name: string, r: KnotInvariants, inv: readonly Invar
       case 'linking': rec[k] = linkingText(r.linking); break;
       case 'levine_tristram': rec[k] = r.levineTristram ?? null; break;
       case 'jumps': rec[k] = (r.jumps ?? []).join(' '); break;
+      case 'hyperbolic': {
+        const h = r.hyperbolic;
+        rec.geometry = h?.geometry ?? null;
+        rec.geometry_reason = h?.reason ?? null;
+        rec.volume = h?.volume ?? null;
+        rec.cusp_shape = h?.cuspShape ? { re: h.cuspShape[0], im: h.cuspShape[1] } : null;
+        rec.natural_slope = h?.naturalSlope ?? null;
+        break;
+      }
     }
   }
   return rec;

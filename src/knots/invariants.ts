@@ -25,6 +25,7 @@ import { gordonLitherland } from './goeritz.ts';
 import { alexanderUnitRoots, levineTristram } from './levine.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
 import { pdToBraid } from './vogel.ts';
+import { hyperbolicInvariants, type HyperbolicInvariants } from './hyperbolic/index.ts';
 import { centre, exactOut, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
 
 export const INVARIANT_NAMES = [
@@ -39,6 +40,7 @@ export const INVARIANT_NAMES = [
   'linking',
   'levine_tristram',
   'jumps',
+  'hyperbolic',
 ] as const;
 export type InvariantName = (typeof INVARIANT_NAMES)[number];
 export const DEFAULT_INVARIANTS: readonly InvariantName[] = ['crossings', 'writhe', 'components', 'signature', 'determinant', 'alexander'];
@@ -63,6 +65,8 @@ export interface KnotInvariants {
   omega?: number;
   /** x ∈ (0, 1/2] with Δ(e^{2πix}) = 0. */
   jumps?: number[];
+  /** Status, volume, cusp shape and natural slope (`hyperbolic/`). */
+  hyperbolic?: HyperbolicInvariants;
 }
 
 /** Number of Seifert circles: cycles of the oriented smoothing (plus free loops). */
@@ -222,5 +226,6 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
     else if (x - Math.floor(x) === 0.5) res.levineTristram = gordonLitherland(info).signature;
     else if (info.nPieces === 1 && d.freeLoops === 0) res.levineTristram = levineTristram(vogelSeifert(d, res), x);
   }
+  if (want.has('hyperbolic')) res.hyperbolic = hyperbolicInvariants(d);
   return res;
 }

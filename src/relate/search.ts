@@ -7,6 +7,8 @@
  * Regression", 2nd ed., ch. 3); the reported numbers always come from the QR refit.
  */
 import { SurmiseError } from '../errors.ts';
+import { tooLarge } from '../util/integer.ts';
+import { RELATE_LIMITS } from './limits.ts';
 import type { Table } from '../table/types.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import { buildCandidates, type CandidateTerm, type SkippedTerm } from './candidates.ts';
@@ -142,6 +144,7 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   if (!Number.isInteger(maxTerms) || maxTerms < 1 || maxTerms > 6)
     throw new SurmiseError('relate.badMaxTerms', `expected the maximum number of terms to be an integer from 1 to 6, got ${maxTerms}`);
   if (!Number.isInteger(top) || top < 1) throw new SurmiseError('relate.badTop', `expected the number of candidates to report to be a positive integer, got ${top}`);
+  if (top > RELATE_LIMITS.top.max) throw tooLarge('top', top, RELATE_LIMITS.top);
   if (!(Number.isInteger(powers[0]) && Number.isInteger(powers[1]) && powers[0] <= powers[1] && Math.max(-powers[0], powers[1]) <= 12 && (powers[0] !== 0 || powers[1] !== 0)))
     throw new SurmiseError('relate.badPowers', `expected a power range lo..hi of integers within −12..12, not both 0, got ${powers[0]}..${powers[1]}`);
   if (spec.from.length === 0) throw new SurmiseError('relate.noColumns', 'give at least one column to build terms from');

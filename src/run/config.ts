@@ -7,22 +7,26 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
 import { z } from 'zod';
-import { SurmiseError, didYouMean } from '../errors.ts';
+import { SurmiseError, didYouMean, fileErrorReason } from '../errors.ts';
+import type { IntegerRange } from '../util/integer.ts';
+import { RANK_LIMITS } from '../attribute/limits.ts';
+import { RELATE_LIMITS } from '../relate/limits.ts';
+import { BOUND_LIMITS } from '../bound/find.ts';
 
-const positiveInt = z.number().int().min(1);
-const nonNegativeInt = z.number().int().min(0);
+/** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
+const count = (r: IntegerRange) => z.number().int().min(r.min).max(r.max);
 const exprString = z.string().min(1);
 /** A list, where a single item may be written without brackets (`rhs: b` = `rhs: [b]`). */
 const listOf = <T extends z.ZodType>(item: T, min = 0) => z.preprocess((v) => (typeof v === 'string' ? [v] : v), z.array(item).min(min));
 
 const NetworkSchema = z.strictObject({
-  hidden: z.array(positiveInt).min(1).default([64, 64, 64]),
+  hidden: z.array(count(RANK_LIMITS.hiddenWidth)).min(1).max(RANK_LIMITS.hiddenLayers.max).default([64, 64, 64]),
   activation: z.enum(['relu', 'gelu']).default('relu'),
   loss: z.enum(['mse', 'huber']).default('mse'),
   task: z.enum(['auto', 'regression', 'classification']).default('auto'),
-  epochs: positiveInt.default(60),
-  patience: positiveInt.default(8),
-  batchSize: positiveInt.default(256),
+  epochs: count(RANK_LIMITS.epochs).default(60),
+  patience: count({ min: 1, max: RANK_LIMITS.epochs.max }).default(8),
+  batchSize: count({ min: 1, max: 1 << 20 }).default(256),
   learningRate: z.number().positive().default(0.001),
   engine: z.enum(['auto', 'native', 'tfjs']).default('auto'),
 });
@@ -30,9 +34,9 @@ const NetworkSchema = z.strictObject({
 const AttributionSchema = z.strictObject({
   methods: listOf(z.enum(['saliency', 'smoothgrad', 'integrated', 'permutation']), 1)
     .default(['saliency', 'smoothgrad', 'integrated', 'permutation']),
-  seeds: positiveInt.default(3),
-  folds: nonNegativeInt.default(0),
-  dropTop: nonNegativeInt.default(0),
+  seeds: count(RANK_LIMITS.seeds).default(3),
+  folds: count(RANK_LIMITS.folds).default(0),
+  dropTop: count(RANK_LIMITS.dropTop).default(0),
 });
 
 const FitSchema = z.strictObject({
@@ -44,17 +48,17 @@ const FitSchema = z.strictObject({
 const SearchSchema = z.strictObject({
   target: exprString,
   from: listOf(z.string().min(1), 1),
-  maxTerms: positiveInt.default(2),
+  maxTerms: count(RELATE_LIMITS.maxTerms).default(2),
   powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
-  top: positiveInt.default(10),
+  top: count(RELATE_LIMITS.top).default(10),
 });
 
 const BoundSchema = z.strictObject({
   lhs: exprString,
   rhs: listOf(exprString, 1),
   by: exprString.optional(),
-  bins: positiveInt.default(10),
-  top: positiveInt.default(5),
+  bins: count(BOUND_LIMITS.bins).default(10),
+  top: count(BOUND_LIMITS.top).default(5),
   skipInvalid: z.boolean().default(false),
 });
 
@@ -159,7 +163,16 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
     const e = doc.errors[0]!;
     throw new SurmiseError('config.yaml', `${where(e.pos[0])}: not valid YAML: ${e.message.split('\n')[0]}`);
   }
-  const data: unknown = doc.toJS();
+  let data: unknown;
+  try {
+    // the YAML library refuses documents whose aliases expand past its limit (an "alias bomb")
+    data = doc.toJS({ maxAliasCount: 100 });
+  } catch (e) {
+    const why = /alias/i.test((e as Error).message)
+      ? 'its aliases (*name) expand to too much data; write the values out instead'
+      : (e as Error).message;
+    throw new SurmiseError('config.yaml', `${file}: not a usable configuration: ${why}`);
+  }
   if (data === null || typeof data !== 'object' || Array.isArray(data)) {
     throw new SurmiseError('config.notMapping', `${file}: expected a mapping of keys (table, target, ...) at the top level`);
   }
@@ -183,10 +196,33 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
     let expected = issue.message;
     if (issue.code === 'invalid_type') expected = `expected ${issue.expected === 'array' ? 'a list' : issue.expected}`;
     else if (issue.code === 'too_small' && issue.origin === 'number') expected = `expected a number ≥ ${String(issue.minimum)}`;
+    else if (issue.code === 'too_big' && issue.origin === 'number') {
+      throw new SurmiseError(
+        'option.tooLarge',
+        `${where(node?.range?.[0])}: ${keyPath(path)}: expected at most ${Number(issue.maximum).toLocaleString('en-US')} (its ceiling), got ${describe(got)}`,
+        { key: keyPath(path) },
+      );
+    } else if (issue.code === 'too_big' && issue.origin === 'array') expected = `expected a list of at most ${String(issue.maximum)} item(s)`;
     else if (issue.code === 'too_small' && issue.origin === 'array') expected = `expected a list of at least ${String(issue.minimum)} item(s)`;
     else if (issue.code === 'too_small' && issue.origin === 'string') expected = 'expected a non-empty text';
     else if (issue.code === 'invalid_value') expected = `expected one of ${issue.values.map((v) => `'${String(v)}'`).join(', ')}`;
     if (got === undefined) {
+      // a misspelt required key: name the nearest unknown key written at the same level
+      const key = path[path.length - 1];
+      const parent = valueAt(data, path.slice(0, -1));
+      if (typeof key === 'string' && parent !== null && typeof parent === 'object' && !Array.isArray(parent)) {
+        const level = path.slice(0, -1).filter((p) => typeof p === 'string').join('.');
+        const known = KNOWN_KEYS[level] ?? [];
+        const typo = Object.keys(parent).filter((k) => !known.includes(k)).find((k) => didYouMean(k, [key]) !== '');
+        if (typo !== undefined) {
+          const at = nodeAt(doc.contents as YamlNode, path.slice(0, -1), typo);
+          throw new SurmiseError(
+            'config.missingKey',
+            `${where(at?.range?.[0])}: missing required key '${keyPath(path)}'; found '${keyPath([...path.slice(0, -1), typo])}' (did you mean '${key}'?)`,
+            { key: keyPath(path) },
+          );
+        }
+      }
       throw new SurmiseError('config.missingKey', `${where(node?.range?.[0])}: missing required key '${keyPath(path)}'`);
     }
     throw new SurmiseError('config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`);
@@ -205,7 +241,7 @@ export function loadConfig(file: string, display = file): LoadedConfig {
   try {
     text = readFileSync(file, 'utf8');
   } catch (e) {
-    throw new SurmiseError('config.unreadable', `cannot read configuration ${display}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+    throw new SurmiseError('config.unreadable', `cannot read configuration ${display}: ${fileErrorReason(e)}`);
   }
   return parseConfig(text, display, dirname(resolve(file)));
 }

@@ -7,9 +7,10 @@ import { createHash } from 'node:crypto';
 import { createReadStream, readFileSync } from 'node:fs';
 import { isAbsolute, relative } from 'node:path';
 import { stringify } from 'yaml';
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, didYouMean } from '../errors.ts';
 import { VERSION } from '../version.ts';
 import { deriveColumn, evaluateExpression, readTable, type Table } from '../table/index.ts';
+import { formatColumnName } from '../table/expr/format.ts';
 import { rankFeatures, type RankProgress, type RankResult } from '../attribute/rank.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchResult } from '../relate/search.ts';
@@ -100,6 +101,11 @@ function seconds(t0: number): number {
   return Math.round((performance.now() - t0) / 10) / 100;
 }
 
+/** A target as rank reads it: a column of that exact name, else an expression. */
+function targetExpression(table: Table, target: string): string {
+  return table.columns.some((c) => c.name === target) ? formatColumnName(target) : target;
+}
+
 /** Values of an expression on the given rows, real part (NaN where missing). */
 function realValues(table: Table, source: string): Float64Array {
   const v = evaluateExpression(table, source);
@@ -112,7 +118,7 @@ function realValues(table: Table, source: string): Float64Array {
 function featureExpression(table: Table, name: string): string | null {
   const col = table.columns.find((c) => c.name === name);
   if (!col || col.kind === 'label') return null;
-  const q = /^[A-Za-z_][A-Za-z0-9_.]*$/.test(name) ? name : `\`${name.replace(/`/g, '')}\``;
+  const q = formatColumnName(name);
   return col.kind === 'complex' ? `abs(${q})` : q;
 }
 
@@ -203,7 +209,7 @@ function buildReportInput(
     // target against the top feature, coloured by the second
     const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
     if (top.length >= 1) {
-      const y = realValues(table, config.target);
+      const y = realValues(table, targetExpression(table, config.target));
       const x = realValues(table, top[0]!);
       const c = top.length >= 2 ? realValues(table, top[1]!) : null;
       const { idx, from } = finiteSample(c ? [x, y, c] : [x, y], config.seed);
@@ -331,14 +337,20 @@ function inConfig<T>(path: Array<string | number>, at: (p: Array<string | number
 function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string | number>) => string): void {
   inConfig(['split'], at, () => parseSplitSpec(config.split));
   const expr = (path: Array<string | number>, source: string) => inConfig(path, at, () => evaluateExpression(table, source));
-  expr(['target'], config.target);
+  expr(['target'], targetExpression(table, config.target));
   config.fits.forEach((f, i) => {
     expr(['fits', i, 'target'], f.target);
     f.terms.forEach((t, j) => expr(['fits', i, 'terms', j], t));
   });
   if (config.search) {
     expr(['search', 'target'], config.search.target);
-    config.search.from.forEach((c, j) => expr(['search', 'from', j], c));
+    // search builds its terms from columns named as they are (any name), not from expressions
+    const names = table.columns.map((c) => c.name);
+    config.search.from.forEach((c, j) => {
+      if (!names.includes(c)) {
+        throw new SurmiseError('config.unknownColumn', `${at(['search', 'from', j])}: search.from[${j}]: no column '${c}' in the table${didYouMean(c, names)}`, { column: c });
+      }
+    });
     inConfig(['search', 'powers'], at, () => parsePowers(config.search!.powers));
   }
   config.bounds.forEach((b, i) => {

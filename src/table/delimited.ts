@@ -9,7 +9,7 @@
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { isAscii } from 'node:buffer';
 import { StringDecoder } from 'node:string_decoder';
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, fileErrorReason } from '../errors.ts';
 
 export interface DelimitedHandler {
   /** One field of the current record; `quoted` when it was written in quotes. */
@@ -57,16 +57,7 @@ export function openForReading(path: string, display: string): { fd: number; siz
 }
 
 export function unreadable(display: string, e: unknown): SurmiseError {
-  const code = (e as NodeJS.ErrnoException)?.code;
-  const why =
-    code === 'ENOENT'
-      ? 'no such file'
-      : code === 'EACCES' || code === 'EPERM'
-        ? 'permission denied'
-        : code === 'EISDIR'
-          ? 'it is a folder, not a file'
-          : ((e as Error)?.message ?? String(e));
-  return new SurmiseError('table.unreadable', `cannot read ${display}: ${why}`);
+  return new SurmiseError('table.unreadable', `cannot read ${display}: ${fileErrorReason(e)}`);
 }
 
 /** One chunk of decoded text; for ASCII text also its bytes, and the string is made on demand. */

@@ -4,11 +4,12 @@
  * `nan`/`inf`/`-inf`, complex values as `a+bj` (JSON: {"re": a, "im": b}), missing cells empty
  * (JSON: null). Delimited fields are quoted per RFC 4180 when they hold the separator, a quote,
  * CR or LF (and label cells that would otherwise read back as missing or with trimmed blanks).
- * The file is written under a temporary name in the same folder and renamed into place.
+ * The file is written under a partial name in the same folder and renamed into place
+ * (src/util/partial.ts: removed on SIGINT/SIGTERM, and by the next write after a SIGKILL).
  */
 import { closeSync, existsSync, openSync, renameSync, unlinkSync, writeSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
 import { SurmiseError } from '../errors.ts';
+import { beginPartial, endPartial, removeStalePartials } from '../util/partial.ts';
 import { formatComplex, formatNumber, isMissingText } from './cell.ts';
 import { formatFromPath, type TableFormat } from './read.ts';
 import type { Column, Table } from './types.ts';
@@ -65,11 +66,13 @@ export async function writeTable(
   const fmt = formatFromPath(path, format);
   if (!opts.force && existsSync(path))
     throw new SurmiseError('table.exists', `${path} already exists; not overwriting it (use --force to replace it)`);
-  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now().toString(36)}.tmp`);
+  removeStalePartials(path);
+  const tmp = beginPartial(path);
   let fd: number;
   try {
     fd = openSync(tmp, 'wx');
   } catch (e) {
+    endPartial(tmp);
     throw new SurmiseError('table.unwritable', `cannot write ${path}: ${(e as Error).message}`);
   }
   let parts: string[] = [];
@@ -109,6 +112,7 @@ export async function writeTable(
     if (parts.length) writeSync(fd, parts.join(''));
     closeSync(fd);
     renameSync(tmp, path);
+    endPartial(tmp);
   } catch (e) {
     try {
       closeSync(fd);
@@ -120,6 +124,7 @@ export async function writeTable(
     } catch {
       /* nothing to remove */
     }
+    endPartial(tmp);
     throw e;
   }
 }

@@ -1,6 +1,6 @@
 import { existsSync, renameSync, writeFileSync, unlinkSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
 import { SurmiseError } from '../errors.ts';
+import { beginPartial, endPartial, removeStalePartials } from './partial.ts';
 
 /**
  * Write `data` to `path` via a temporary file in the same folder and a rename, so a reader never
@@ -17,16 +17,19 @@ export function writeFileAtomic(
   if (!opts.force && existsSync(path)) {
     throw new SurmiseError(`${prefix}.exists`, `${shown} already exists; pass --force to replace it`);
   }
-  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
+  removeStalePartials(path);
+  const tmp = beginPartial(path);
   try {
     writeFileSync(tmp, data);
     renameSync(tmp, path);
+    endPartial(tmp);
   } catch (e) {
     try {
       unlinkSync(tmp);
     } catch {
       /* nothing to clean */
     }
+    endPartial(tmp);
     const err = e as NodeJS.ErrnoException;
     throw new SurmiseError(`${prefix}.unwritable`, `cannot write ${shown}: ${err.code ?? err.message}`);
   }

@@ -1,13 +1,25 @@
 import { SurmiseError } from '../../errors.ts';
 
+/** Most characters of the expression shown around the caret; a longer one is cut with '…'. */
+const WINDOW = 120;
+
 /**
  * The expression on one line and a caret line under [pos, end): the message's second and third
- * lines. Tabs and line breaks are shown as spaces so the caret stays aligned.
+ * lines. Tabs, line breaks and other control characters are shown as spaces so the caret stays
+ * aligned; an expression longer than 120 characters is shown cut to a window around the place.
  */
 export function caretBlock(source: string, pos: number, end = pos + 1): string {
-  const shown = source.replace(/[\t\r\n\v\f]/g, ' ');
-  const width = Math.max(1, Math.min(end, shown.length + 1) - pos);
-  return `  ${shown}\n  ${' '.repeat(pos)}${'^'.repeat(width)}`;
+  let shown = source.replace(/[\u0000-\u001f\u007f]/g, ' ');
+  let at = pos;
+  let width = Math.max(1, Math.min(end, shown.length + 1) - pos);
+  if (shown.length > WINDOW) {
+    width = Math.min(width, WINDOW / 2);
+    const from = Math.max(0, Math.min(pos - WINDOW / 4, shown.length - WINDOW));
+    const to = Math.min(shown.length, from + WINDOW);
+    shown = (from > 0 ? '…' : '') + shown.slice(from, to) + (to < shown.length ? '…' : '');
+    at = pos - from + (from > 0 ? 1 : 0);
+  }
+  return `  ${shown}\n  ${' '.repeat(at)}${'^'.repeat(width)}`;
 }
 
 /**

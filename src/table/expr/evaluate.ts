@@ -1,4 +1,4 @@
-import { SurmiseError, didYouMean } from '../../errors.ts';
+import { SurmiseError, didYouMean, printable } from '../../errors.ts';
 import type { Column, Table } from '../types.ts';
 import type { BinaryNode, CallNode, Expr } from './ast.ts';
 import { expressionColumns } from './ast.ts';
@@ -59,6 +59,7 @@ function resolveColumn(table: Table, name: string): { col: Column; part?: 're' |
 export function compileExpression(table: Table, source: string | Expr): CompiledExpression {
   const expr = typeof source === 'string' ? parseExpression(source) : source;
   const text = typeof source === 'string' ? source : expressionSource(expr);
+  refuseAmbiguousConstants(table, expr, text);
   const names = expressionColumns(expr);
   const cols = new Map<string, { re: Float64Array; im: Float64Array | null }>();
   const masks: Uint8Array[] = [];
@@ -71,7 +72,7 @@ export function compileExpression(table: Table, source: string | Expr): Compiled
       if (hint === '' && FUNCTIONS.has(name)) hint = ` ('${name}' is a function: write ${name}(...))`;
       throw exprError(
         'expr.unknownColumn',
-        `unknown column '${name}' at position ${node.pos + 1} of the expression (table ${table.source})${hint}`,
+        `unknown column '${printable(name)}' at position ${node.pos + 1} of the expression (table ${table.source})${hint}`,
         text,
         node.pos,
         node.end,
@@ -82,7 +83,7 @@ export function compileExpression(table: Table, source: string | Expr): Compiled
     if (col.kind === 'label') {
       throw exprError(
         'expr.labelColumn',
-        `column '${name}' holds labels (text), so it cannot be used in an expression (position ${node.pos + 1})`,
+        `column '${printable(name)}' holds labels (text), so it cannot be used in an expression (position ${node.pos + 1})`,
         text,
         node.pos,
         node.end,
@@ -127,6 +128,33 @@ export function compileExpression(table: Table, source: string | Expr): Compiled
 /** Evaluate an expression on every row of `table`, column at a time. */
 export function evaluateExpression(table: Table, source: string | Expr): Evaluated {
   return compileExpression(table, source).evaluate();
+}
+
+const CONSTANT_VALUES: Record<string, string> = { pi: 'the constant π = 3.14159…', e: 'the constant e = 2.71828…', i: 'the imaginary unit i' };
+
+/**
+ * A bare `pi`, `e` or `i` is a constant; when the table also has a column of that name the
+ * reading is ambiguous, so it is refused with the backquoted form that names the column.
+ */
+function refuseAmbiguousConstants(table: Table, e: Expr, text: string | undefined): void {
+  const stack: Expr[] = [e];
+  while (stack.length) {
+    const x = stack.pop()!;
+    if (x.type === 'constant' && resolveColumn(table, x.name)) {
+      throw exprError(
+        'expr.ambiguousName',
+        `'${x.name}' at position ${x.pos + 1} is both a column of the table and ${CONSTANT_VALUES[x.name]}; ` +
+          `write \`${x.name}\` (in backquotes) for the column`,
+        text,
+        x.pos,
+        x.end,
+        { column: x.name },
+      );
+    }
+    if (x.type === 'unary') stack.push(x.arg);
+    else if (x.type === 'binary') stack.push(x.right, x.left);
+    else if (x.type === 'call') for (let k = x.args.length - 1; k >= 0; k--) stack.push(x.args[k]!);
+  }
 }
 
 function findColumnNode(e: Expr, name: string): Expr | undefined {

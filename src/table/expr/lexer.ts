@@ -1,3 +1,4 @@
+import { printable } from '../../errors.ts';
 import { exprError } from './caret.ts';
 
 export type Token =
@@ -111,7 +112,7 @@ export function tokenize(source: string): Token[] {
     else if (c === '[' || c === '{') hint = '; use ( ) for grouping';
     throw exprError(
       'expr.parse',
-      `cannot read expression at position ${start + 1}: unexpected character '${c}'${hint}`,
+      `cannot read expression at position ${start + 1}: unexpected character '${printable(c)}'${hint}`,
       source,
       start,
     );

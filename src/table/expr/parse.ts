@@ -15,7 +15,16 @@ import { type Token, tokenize } from './lexer.ts';
  * Bare `pi`, `e`, `i` are the constants; a column with one of those names is written in backquotes.
  */
 
+/** Deepest nesting of parentheses, calls, signs and powers the parser follows. */
 const MAX_DEPTH = 256;
+/**
+ * Deepest syntax tree accepted: a flat sum of n terms is a tree n deep (left-associative), and
+ * every later walk of the tree (evaluation, formatting) recurses once per level; 500 levels stay
+ * far inside the JavaScript stack wherever the expression is evaluated.
+ */
+export const MAX_EXPRESSION_DEPTH = 500;
+/** Longest expression text read, in characters. */
+export const MAX_EXPRESSION_LENGTH = 20_000;
 const sources = new WeakMap<Expr, string>();
 
 /** The text an Expr was parsed from (for caret messages), when it came from parseExpression. */
@@ -27,9 +36,37 @@ export function parseExpression(source: string): Expr {
   if (typeof source !== 'string') {
     throw new SurmiseError('expr.parse', `cannot read expression: expected text, got ${typeof source}`);
   }
+  if (source.length > MAX_EXPRESSION_LENGTH) {
+    throw new SurmiseError(
+      'expr.tooLong',
+      `cannot read expression: it is ${source.length.toLocaleString('en-US')} characters long, more than the ${MAX_EXPRESSION_LENGTH.toLocaleString('en-US')} read; split it into derived columns`,
+      { length: source.length, limit: MAX_EXPRESSION_LENGTH },
+    );
+  }
   const tokens = tokenize(source);
   let k = 0;
   let depth = 0;
+  /** Height of each subtree built so far (leaves 1). */
+  const heights = new WeakMap<Expr, number>();
+  const heightOf = (e: Expr): number => heights.get(e) ?? 1;
+  /** A node over `children`, refused when the tree would be deeper than MAX_EXPRESSION_DEPTH. */
+  const node = <T extends Expr>(e: T, ...children: Expr[]): T => {
+    let h = 0;
+    for (const c of children) h = Math.max(h, heightOf(c));
+    if (h + 1 > MAX_EXPRESSION_DEPTH) {
+      throw exprError(
+        'expr.tooDeep',
+        `cannot read expression at position ${e.pos + 1}: more than ${MAX_EXPRESSION_DEPTH} operations are chained or nested here ` +
+          `(e.g. a sum or product of more than ${MAX_EXPRESSION_DEPTH} terms); split it into derived columns`,
+        source,
+        e.pos,
+        e.end,
+        { limit: MAX_EXPRESSION_DEPTH },
+      );
+    }
+    heights.set(e, h + 1);
+    return e;
+  };
   const peek = (): Token => tokens[k]!;
   const prevText = (): string | undefined => (k > 0 ? tokens[k - 1]!.text : undefined);
   const fail = (pos: number, msg: string, end = pos + 1): never => {
@@ -51,7 +88,7 @@ export function parseExpression(source: string): Expr {
       if (t2.type === 'op' && ['<', '<=', '>', '>=', '==', '!='].includes(t2.op)) {
         fail(t2.pos, `comparisons cannot be chained; write (a < b) * (b < c) for 'a < b < c'`, t2.end);
       }
-      return { type: 'binary', op: t.op as BinaryOp, left, right, pos: t.pos, end: t.end };
+      return node({ type: 'binary', op: t.op as BinaryOp, left, right, pos: t.pos, end: t.end }, left, right);
     }
     return left;
   }
@@ -63,7 +100,7 @@ export function parseExpression(source: string): Expr {
       if (t.type === 'op' && (t.op === '+' || t.op === '-')) {
         k++;
         const right = multiplicative();
-        left = { type: 'binary', op: t.op, left, right, pos: t.pos, end: t.end };
+        left = node({ type: 'binary', op: t.op, left, right, pos: t.pos, end: t.end }, left, right);
       } else return left;
     }
   }
@@ -75,7 +112,7 @@ export function parseExpression(source: string): Expr {
       if (t.type === 'op' && (t.op === '*' || t.op === '/')) {
         k++;
         const right = unary();
-        left = { type: 'binary', op: t.op, left, right, pos: t.pos, end: t.end };
+        left = node({ type: 'binary', op: t.op, left, right, pos: t.pos, end: t.end }, left, right);
       } else return left;
     }
   }
@@ -87,7 +124,7 @@ export function parseExpression(source: string): Expr {
       k++;
       const arg = unary();
       depth--;
-      return { type: 'unary', op: t.op, arg, pos: t.pos, end: t.end };
+      return node({ type: 'unary', op: t.op, arg, pos: t.pos, end: t.end }, arg);
     }
     return power();
   }
@@ -100,7 +137,7 @@ export function parseExpression(source: string): Expr {
       k++;
       const exponent = unary();
       depth--;
-      return { type: 'binary', op: '^', left: base, right: exponent, pos: t.pos, end: t.end };
+      return node({ type: 'binary', op: '^', left: base, right: exponent, pos: t.pos, end: t.end }, base, exponent);
     }
     return base;
   }
@@ -190,7 +227,7 @@ export function parseExpression(source: string): Expr {
         { function: info.name },
       );
     }
-    return { type: 'call', name: info.name, args, pos: nameTok.pos, end: close.end };
+    return node({ type: 'call', name: info.name, args, pos: nameTok.pos, end: close.end }, ...args);
   }
 
   /** A token that cannot follow a complete value. */

@@ -1,0 +1,114 @@
+/**
+ * Hyperbolic invariants of one diagram: status, volume, cusp shape and natural slope.
+ *
+ * - `not hyperbolic` only with a mathematical reason: a split diagram (several pieces, or a
+ *   crossing-free component: the complement contains an essential sphere), a diagram with at most
+ *   two crossings after removing kinks (unknot, Hopf link), or a braid recognised as a torus link
+ *   (Seifert fibred).
+ * - `hyperbolic` when Newton's method finds a solution of the gluing and completeness equations
+ *   with every shape in the upper half-plane (Thurston): then the volume is Σ D(z) over the
+ *   tetrahedra (Bloch–Wigner; Milnor 1982) and the cusp geometry is read from the developed cusp.
+ * - `unresolved` otherwise, with the reason (no geometric solution found within the budget; this
+ *   includes satellites and torus knots not recognised from their diagram).
+ * Cusp shape λ/μ: μ right-handed meridian, λ the longitude of linking number 0 oriented along the
+ * component, reported with Im > 0; natural slope Re(λ/μ). For links, the first component's cusp.
+ */
+import type { Diagram } from '../diagram.ts';
+import { analysePD } from '../pd.ts';
+import { blochWigner } from './dilog.ts';
+import { removeKinks } from './kinks.ts';
+import { solveShapes } from './newton.ts';
+import { cuspGeometry, type CuspGeometry } from './peripheral.ts';
+import { findGeometricSolution, SEARCH_DEFAULTS, type SearchOptions } from './search.ts';
+import { recogniseTorusBraid } from './torus.ts';
+import { combinatorics } from './triangulation.ts';
+import { cuspBases } from './cusp.ts';
+import { gluingEquations } from './equations.ts';
+
+export const GEOMETRY_STATUSES = ['hyperbolic', 'not hyperbolic', 'unresolved'] as const;
+export type Geometry = (typeof GEOMETRY_STATUSES)[number];
+
+export interface HyperbolicInvariants {
+  geometry: Geometry;
+  /** Why not hyperbolic / why unresolved; for hyperbolic rows, notes (e.g. cusp not measured). */
+  reason?: string;
+  volume?: number;
+  /** λ/μ of the first component, Im > 0. */
+  cuspShape?: [number, number];
+  naturalSlope?: number;
+  /** Every component's cusp (links). */
+  cusps?: CuspGeometry[];
+  /** Tetrahedra of the geometric triangulation and the largest equation residual. */
+  tetrahedra?: number;
+  residual?: number;
+}
+
+function volumeOf(re: Float64Array, im: Float64Array): number {
+  // Kahan–Babuška summation of the tetrahedra's volumes
+  let s = 0;
+  let comp = 0;
+  for (let t = 0; t < re.length; t++) {
+    const x = blochWigner(re[t]!, im[t]!);
+    const u = s + x;
+    comp += Math.abs(s) >= Math.abs(x) ? s - u + x : x - u + s;
+    s = u;
+  }
+  return s + comp;
+}
+
+/** Hyperbolic invariants of a diagram (see the module comment for the statuses). */
+export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DEFAULTS): HyperbolicInvariants {
+  if (d.freeLoops > 0 || d.info.nPieces > 1)
+    return { geometry: 'not hyperbolic', reason: 'split link: the diagram falls into separate pieces (an essential sphere)' };
+  if (d.braid) {
+    const tk = recogniseTorusBraid(d.braid);
+    if (tk) return { geometry: 'not hyperbolic', reason: `torus ${d.info.nComponents === 1 ? 'knot' : 'link'} T(${tk.p},${tk.q}) (Seifert fibred)` };
+  }
+  const k = removeKinks(d.info.crossings);
+  if (k.freeLoops > 0 && d.info.nComponents > 1) return { geometry: 'not hyperbolic', reason: 'split link: a component is an unknotted loop apart from the rest' };
+  if (k.pd.length === 0) return { geometry: 'not hyperbolic', reason: 'unknot (no crossings left after removing kinks)' };
+  if (k.pd.length <= 2) return { geometry: 'not hyperbolic', reason: `${k.pd.length} crossings after removing kinks: unknot or Hopf link` };
+  const info = analysePD(k.pd);
+  if (info.nPieces > 1) return { geometry: 'not hyperbolic', reason: 'split link: the diagram falls into separate pieces (an essential sphere)' };
+  for (let comp = 0; comp < info.nComponents; comp++) {
+    let over = false;
+    let under = false;
+    for (let c = 0; c < info.nCrossings; c++) {
+      if (info.component[info.edge[4 * c + 1]!] === comp) over = true;
+      if (info.component[info.edge[4 * c]!] === comp) under = true;
+    }
+    if (!over || !under)
+      return { geometry: 'not hyperbolic', reason: `split link: component ${comp + 1} passes ${over ? 'over' : 'under'} everything it meets, so it lifts off the rest` };
+  }
+  const sol = findGeometricSolution(info, info.nComponents, opts);
+  if (!('tri' in sol))
+    return {
+      geometry: 'unresolved',
+      reason: `no geometric solution of the gluing equations found (${sol.triangulations} triangulations, ${sol.solves} Newton solves); not hyperbolic, or the search was too short`,
+    };
+  const volume = volumeOf(sol.re, sol.im);
+  const out: HyperbolicInvariants = { geometry: 'hyperbolic', volume, tetrahedra: sol.tri.n, residual: sol.residual };
+  // cusp: on the geometric triangulation if the meridians survive, else on the unsimplified one
+  let cg = cuspGeometry(info, sol.tri, sol.cb, sol, sol.fromOctahedral);
+  if (typeof cg === 'string') {
+    const u = sol.unsimplified;
+    const cb = combinatorics(u.tri);
+    const sys = gluingEquations(u.tri, cb, cuspBases(u.tri, cb).flat());
+    const r = solveShapes(sys, new Float64Array(u.tri.n).fill(0.5), new Float64Array(u.tri.n).fill(Math.sqrt(3) / 2));
+    const v2 = volumeOf(r.re, r.im);
+    if (r.converged && Math.abs(v2 - volume) < 1e-9 * Math.max(1, volume)) cg = cuspGeometry(info, u.tri, cb, r, u.keptIndex);
+    else cg = `the unsimplified triangulation gave volume ${v2} (cusp not measured)`;
+  }
+  if (typeof cg === 'string') {
+    out.reason = `cusp not measured: ${cg}`;
+    return out;
+  }
+  if (cg.some((c) => !(c.mismatch < 1e-8))) {
+    out.reason = 'cusp not measured: holonomies are not translations to 1e-8';
+    return out;
+  }
+  out.cusps = cg;
+  out.cuspShape = cg[0]!.shape;
+  out.naturalSlope = cg[0]!.shape[0];
+  return out;
+}

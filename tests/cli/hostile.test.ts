@@ -1,0 +1,113 @@
+/**
+ * Hostile and extreme inputs, one row each: the command, its input files, the exit code and the
+ * error code expected. Every row must end in one clear message (exit 2, a `[code]`, no stack
+ * trace) or succeed as stated. Add a row for every new refusal; rows are run in the test process
+ * (`runCli` with an in-memory IO), so ceilings are asserted by the refusal, never by timing.
+ */
+import { describe, it, expect, beforeAll } from 'vitest';
+import { mkdirSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { runCli } from '../../src/cli/main.ts';
+import { memoryIO } from '../../src/cli/io.ts';
+import { tempDir, put } from '../table/helpers.ts';
+
+export interface HostileRow {
+  /** What the row tries, in a few words. */
+  name: string;
+  /** Arguments after `surmise`. */
+  args: string[];
+  /** Files written in the row's folder first (name → content). */
+  files?: Record<string, string>;
+  exit: 0 | 2;
+  /** The error code printed as `[code]` (rows with exit 0 leave it out). */
+  code?: string;
+  /** Text the message must contain (optional). */
+  says?: string;
+}
+
+const XY = 'x,y\n1,2\n2,4\n3,6.5\n4,8\n5,10.1\n6,12\n';
+const sum = (n: number, op: string) => Array.from({ length: n }, () => 'x').join(op);
+const aliasBomb =
+  'a: &a ["x","x","x","x","x","x","x","x","x"]\n' +
+  'b: &b [*a,*a,*a,*a,*a,*a,*a,*a,*a]\nc: &c [*b,*b,*b,*b,*b,*b,*b,*b,*b]\nd: &d [*c,*c,*c,*c,*c,*c,*c,*c,*c]\n' +
+  'e: &e [*d,*d,*d,*d,*d,*d,*d,*d,*d]\nf: &f [*e,*e,*e,*e,*e,*e,*e,*e,*e]\ng: [*f,*f,*f,*f,*f,*f,*f,*f,*f]\n' +
+  'table: xy.csv\ntarget: y\n';
+
+export const ROWS: HostileRow[] = [
+  // ---- existing refusals (kept fixed)
+  { name: 'unknown command', args: ['frobnicate'], exit: 2 },
+  { name: 'ragged row', args: ['inspect', 'ragged.csv'], files: { 'ragged.csv': 'a,b\n1,2\n3\n' }, exit: 2, code: 'table.raggedRow', says: 'ragged.csv:3' },
+  { name: 'missing table file', args: ['inspect', 'nope.csv'], exit: 2, code: 'table.unreadable', says: 'no such file' },
+  { name: 'table path is a folder', args: ['inspect', 'dir.csv'], exit: 2, code: 'table.unreadable', says: 'it is a folder' },
+  { name: 'unknown column in a term', args: ['fit', 'xy.csv', '--target', 'y', '--terms', 'z'], files: { 'xy.csv': XY }, exit: 2, code: 'expr.unknownColumn', says: "did you mean 'x'" },
+  { name: 'unknown rank target', args: ['rank', 'xy.csv', '--target', 'q'], files: { 'xy.csv': XY }, exit: 2, code: 'dataset.unknownColumn' },
+  { name: 'bad split spec', args: ['fit', 'xy.csv', '--target', 'y', '--terms', 'x', '--split', 'bogus'], files: { 'xy.csv': XY }, exit: 2, code: 'split.badSpec' },
+  { name: 'rhs not positive', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x-3'], files: { 'xy.csv': XY }, exit: 2, code: 'bound.badRhs' },
+  { name: 'integer option with trailing text', args: ['demo-data', '--seed', '12abc'], exit: 2, code: 'option.badInteger' },
+  { name: 'too many search terms', args: ['search', 'xy.csv', '--target', 'y', '--from', 'x', '--max-terms', '9'], files: { 'xy.csv': XY }, exit: 2, code: 'relate.badMaxTerms' },
+
+  // ---- expressions: length and depth
+  { name: '3,000-term flat sum', args: ['fit', 'xy.csv', '--target', 'y', '--terms', sum(3000, '+')], files: { 'xy.csv': XY }, exit: 2, code: 'expr.tooDeep', says: 'more than 500' },
+  { name: '3,000-term flat product', args: ['bound', 'xy.csv', '--lhs', sum(3000, '*'), '--rhs', 'x'], files: { 'xy.csv': XY }, exit: 2, code: 'expr.tooDeep' },
+  { name: '3,000-term sum as a derived column', args: ['inspect', 'xy.csv', '--derive', `s=${sum(3000, '+')}`], files: { 'xy.csv': XY }, exit: 2, code: 'expr.tooDeep' },
+  { name: '100 KB expression', args: ['fit', 'xy.csv', '--target', 'y', '--terms', 'x+'.repeat(50_000) + 'x'], files: { 'xy.csv': XY }, exit: 2, code: 'expr.tooLong' },
+
+  // ---- configuration files
+  { name: 'YAML alias bomb', args: ['run', 'bomb.yaml'], files: { 'bomb.yaml': aliasBomb, 'xy.csv': XY }, exit: 2, code: 'config.yaml', says: 'bomb.yaml' },
+  { name: 'misspelt required key', args: ['run', 'typo.yaml'], files: { 'typo.yaml': 'table: xy.csv\ntaget: y\n', 'xy.csv': XY }, exit: 2, code: 'config.missingKey', says: "did you mean 'target'" },
+  { name: 'missing configuration', args: ['run', 'nope.yaml'], exit: 2, code: 'config.unreadable', says: 'no such file' },
+  { name: 'configuration path is a folder', args: ['run', 'dir.csv'], exit: 2, code: 'config.unreadable', says: 'it is a folder' },
+  { name: 'config count above its ceiling', args: ['run', 'seeds.yaml'], files: { 'seeds.yaml': 'table: xy.csv\ntarget: y\nattribution:\n  seeds: 1000000000\n', 'xy.csv': XY }, exit: 2, code: 'option.tooLarge', says: 'attribution.seeds' },
+  { name: 'config search.from names an absent column', args: ['run', 'from.yaml'], files: { 'from.yaml': 'table: xy.csv\ntarget: y\nsearch:\n  target: y\n  from: [x, "my col"]\n', 'xy.csv': XY }, exit: 2, code: 'config.unknownColumn', says: 'search.from[1]' },
+
+  // ---- count options: every one has a ceiling named in the refusal
+  { name: 'rank --seeds 1e9', args: ['rank', 'xy.csv', '--target', 'y', '--seeds', '1e9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge', says: 'at most 100' },
+  { name: 'rank --hidden 100000000', args: ['rank', 'xy.csv', '--target', 'y', '--hidden', '100000000'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge', says: 'at most 4,096' },
+  { name: 'rank --hidden with 40 layers', args: ['rank', 'xy.csv', '--target', 'y', '--hidden', Array(40).fill('2').join(',')], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge', says: 'at most 16' },
+  { name: 'rank --epochs 1e12', args: ['rank', 'xy.csv', '--target', 'y', '--epochs', '1e12'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
+  { name: 'rank --folds 1e6', args: ['rank', 'xy.csv', '--target', 'y', '--folds', '1000000'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
+  { name: 'rank --drop-top 1e6', args: ['rank', 'xy.csv', '--target', 'y', '--drop-top', '1000000'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
+  { name: 'rank --workers 1e6', args: ['rank', 'xy.csv', '--target', 'y', '--workers', '1000000'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
+  { name: 'fit --folds 1e6', args: ['fit', 'xy.csv', '--target', 'y', '--terms', 'x', '--folds', '1000000'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge', says: 'at most 255' },
+  { name: 'search --top 1e12', args: ['search', 'xy.csv', '--target', 'y', '--from', 'x', '--top', '1e12'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
+  { name: 'bound --bins 1e9', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x', '--bins', '1e9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
+  { name: 'bound --top 1e9', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x', '--top', '1e9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
+
+  // ---- output folders and files
+  { name: 'run --force into a folder of the user\'s files', args: ['run', 'c.yaml', '--force'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/notes.txt': 'mine' }, exit: 2, code: 'output.notRunFolder', says: 'notes.txt' },
+  { name: 'run --force into a folder with a forged format string', args: ['run', 'c.yaml', '--force'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/results.json': '{"format":"surmise-run"}' }, exit: 2, code: 'output.notRunFolder' },
+  { name: 'run without --force into an existing folder', args: ['run', 'c.yaml'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/notes.txt': 'mine' }, exit: 2, code: 'output.exists' },
+  { name: 'knots generate --out over an existing file', args: ['knots', 'generate', 'torus', '--p', '2..3', '--q', '3..5', '--out', 'xy.csv'], files: { 'xy.csv': XY }, exit: 2, code: 'knots.exists' },
+
+  // ---- names that are also constants
+  { name: 'bare e that is also a column (fit)', args: ['fit', 'econ.csv', '--target', 'y', '--terms', 'e'], files: { 'econ.csv': 'x,e,y\n1,2,3\n2,3,5\n3,4,7\n4,5,9.5\n5,6,11\n' }, exit: 2, code: 'expr.ambiguousName', says: 'write `e`' },
+  { name: 'bare pi that is also a column (bound)', args: ['bound', 'pi.csv', '--lhs', 'y', '--rhs', 'pi'], files: { 'pi.csv': 'pi,y\n1,2\n2,3\n' }, exit: 2, code: 'expr.ambiguousName', says: 'write `pi`' },
+  { name: 'backquoted e reads the column', args: ['bound', 'econ.csv', '--lhs', 'y', '--rhs', '`e`'], files: { 'econ.csv': 'x,e,y\n1,2,3\n2,3,5\n3,4,7\n4,5,9.5\n5,6,11\n' }, exit: 0 },
+];
+
+describe('hostile inputs: one clear line, the right exit code and error code', () => {
+  let dir: string;
+  beforeAll(() => {
+    dir = tempDir('hostile');
+  });
+  for (const row of ROWS) {
+    it(`${row.name}: exit ${row.exit}${row.code ? ` [${row.code}]` : ''}`, async () => {
+      const here = join(dir, row.name.replace(/[^A-Za-z0-9]+/g, '-'));
+      mkdirSync(here, { recursive: true });
+      mkdirSync(join(here, 'dir.csv'), { recursive: true });
+      for (const [name, text] of Object.entries(row.files ?? {})) {
+        mkdirSync(dirname(join(here, name)), { recursive: true });
+        put(here, name, text);
+      }
+      const io = memoryIO(here);
+      const exit = await runCli(row.args, io);
+      expect(exit, io.err).toBe(row.exit);
+      expect(io.err).not.toMatch(/\n\s+at /); // no stack trace
+      expect(io.err).not.toContain('internal error');
+      if (row.code) expect(io.err).toContain(`[${row.code}]`);
+      if (row.says) expect(io.err).toContain(row.says);
+      // a message never runs past a few lines, whatever the input's size
+      expect(io.err.length).toBeLessThan(2000);
+    });
+  }
+});

@@ -1,0 +1,43 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runCli } from '../../src/cli/main.ts';
+import { memoryIO } from '../../src/cli/io.ts';
+
+let dir: string;
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'surmise-hyp-'));
+  // invented file of standard diagrams; expected values: figure-eight volume 2.0298832128193 and cusp 2√3·i (from memory)
+  writeFileSync(join(dir, 'd.txt'), 'fig8\t1 -2 1 -2\ntrefoil\t1 1 1\nfive2\tX[1,5,2,4] X[3,9,4,8] X[5,1,6,10] X[7,3,8,2] X[9,7,10,6]\n');
+});
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
+  const io = memoryIO(dir);
+  const code = await runCli(args, io);
+  return { code, out: io.out, err: io.err };
+}
+
+describe('surmise knots --invariants hyperbolic', () => {
+  it('adds geometry, geometry_reason, volume, cusp_shape (complex) and natural_slope', async () => {
+    const r = await run(['knots', 'd.txt', '--invariants', 'hyperbolic']);
+    expect(r.code).toBe(0);
+    const lines = r.out.trim().split('\n');
+    expect(lines[0]).toBe('name,geometry,geometry_reason,volume,cusp_shape,natural_slope');
+    const fig8 = lines[1]!.split(',');
+    expect(fig8[1]).toBe('hyperbolic');
+    expect(Number(fig8[3])).toBeCloseTo(2.029883212819307, 12);
+    expect(fig8[4]).toMatch(/\+3\.46410161513\d*j$/);
+    const tref = lines[2]!;
+    expect(tref).toMatch(/^trefoil,not hyperbolic,"torus knot T\(2,3\) \(Seifert fibred\)",,,$/);
+  });
+  it('JSON rows carry the cusp shape as [re, im] and the tetrahedra used; `all` includes the columns', async () => {
+    const j = JSON.parse((await run(['knots', 'd.txt', '--invariants', 'hyperbolic', '--json'])).out);
+    expect(j.rows[0].cusp_shape[1]).toBeCloseTo(2 * Math.sqrt(3), 9);
+    expect(j.rows[1].volume).toBeNull();
+    expect(j.rows[2].volume).toBeCloseTo(2.8281220883308, 10); // 5_2, from memory
+    const all = await run(['knots', 'd.txt', '--invariants', 'all']);
+    expect(all.out.split('\n')[0]).toMatch(/,geometry,geometry_reason,volume,cusp_shape,natural_slope$/);
+  });
+});
