@@ -15,6 +15,12 @@ export interface AggregateOptions {
    * repeats carry per-row scores, since a bootstrap over 3 repeats alone has at most 10 distinct means.
    */
   resampleRows?: boolean;
+  /**
+   * Normalise by the positive parts of the first `normaliseOver` groups only (default all). Noise
+   * probes appended after the real groups are then expressed on the real groups' scale and do not
+   * change the real shares.
+   */
+  normaliseOver?: number;
 }
 
 /** The evidence for one method: everything is per group, in the order of `groups`. */
@@ -40,13 +46,15 @@ export interface MethodRanking {
 }
 
 /**
- * Normalise a score vector to sum 1: s_k / Σ max(s_l, 0). Negative scores (permutation importance
- * of a feature whose shuffling helped, i.e. noise) stay negative; an all-zero vector stays zero.
+ * Normalise a score vector to sum 1: s_k / Σ max(s_l, 0), the sum over the first `over` entries
+ * (default all). Negative scores (permutation importance of a feature whose shuffling helped, i.e.
+ * noise) stay negative; an all-zero vector stays zero.
  * @example normaliseScores([3, 1, 0]) // [0.75, 0.25, 0]
+ * @example normaliseScores([3, 1, 2], 2) // [0.75, 0.25, 0.5]
  */
-export function normaliseScores(s: ArrayLike<number>): number[] {
+export function normaliseScores(s: ArrayLike<number>, over = s.length): number[] {
   let tot = 0;
-  for (let k = 0; k < s.length; k++) tot += Math.max(0, s[k]!);
+  for (let k = 0; k < over; k++) tot += Math.max(0, s[k]!);
   return Array.from(s, (v) => (tot > 0 ? v / tot : 0));
 }
 
@@ -79,7 +87,7 @@ export function aggregateRepeats(
     if (r.scores.length !== G) throw new RangeError(`aggregateRepeats: a repeat has ${r.scores.length} scores for ${G} groups`);
   }
   const rawPerRepeat = repeats.map((r) => Array.from(r.scores));
-  const perRepeat = rawPerRepeat.map((s) => normaliseScores(s));
+  const perRepeat = rawPerRepeat.map((s) => normaliseScores(s, opts.normaliseOver));
   const mean = new Array<number>(G).fill(0);
   for (const s of perRepeat) for (let k = 0; k < G; k++) mean[k]! += s[k]! / R;
 
@@ -137,7 +145,7 @@ export function bootstrapReplicates(
           for (let k = 0; k < G; k++) sums[k] += pr[row + k]!;
         }
         for (let k = 0; k < G; k++) sums[k] /= n;
-        s = normaliseScores(sums);
+        s = normaliseScores(sums, opts.normaliseOver);
       } else s = perRepeat[r]!;
       for (let k = 0; k < G; k++) acc[k] += s[k]! / R;
     }
@@ -190,7 +198,7 @@ export function consensusRanking(
   const R = M > 0 ? repeatsByMethod[0]!.length : 0;
   const B = opts.resamples ?? 1000;
   const level = opts.level ?? 0.95;
-  const perRepeatByMethod = repeatsByMethod.map((reps) => reps.map((r) => normaliseScores(r.scores)));
+  const perRepeatByMethod = repeatsByMethod.map((reps) => reps.map((r) => normaliseScores(r.scores, opts.normaliseOver)));
   const perRepeat: number[][] = Array.from({ length: R }, (_, r) => {
     const s = new Array<number>(G).fill(0);
     for (const pm of perRepeatByMethod) for (let k = 0; k < G; k++) s[k]! += pm[r]![k]! / M;

@@ -27,5 +27,8 @@ export {
   type RankOptions,
   type RankProgress,
   type RankResult,
+  type NoiseLevel,
   type Skill,
 } from './rank.ts';
+export { describeProbes, noiseReference, planProbes, probeColumns, type ProbeSpec } from './probes.ts';
+export { roundedHitRate } from './rounded.ts';

@@ -20,4 +20,6 @@ export const RANK_LIMITS = Object.freeze({
   integratedSteps: { min: 1, max: 10_000 },
   permutationRepeats: { min: 1, max: 1000 },
   resamples: { min: 10, max: 100_000 },
+  /** Noise probes per repeat (probes.ts): each is one more network input and attribution group. */
+  probes: { min: 0, max: 50 },
 } satisfies Record<string, IntegerRange>);

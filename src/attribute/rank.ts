@@ -27,8 +27,10 @@ import { evaluate, type Evaluation } from '../learn/evaluate.ts';
 import type { TrainData } from '../learn/data.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod, type FeatureGroup, type RepeatScores } from './types.ts';
 import { attributeRepeat, type ClassificationLoss } from './repeat.ts';
-import { aggregateRepeats, consensusRanking, type MethodRanking } from './aggregate.ts';
+import { aggregateRepeats, consensusRanking, meanPairwiseTau, type MethodRanking } from './aggregate.ts';
 import { planRepeats, repeatData, type RepeatData } from './prepare.ts';
+import { noiseReference, planProbes, probeColumns, probeGroups, withProbes, type ProbeSpec } from './probes.ts';
+import { roundedHitRate } from './rounded.ts';
 
 export interface RankOptions {
   /** Target column or expression. */
@@ -70,6 +72,8 @@ export interface RankOptions {
   permutationLoss?: ClassificationLoss;
   /** Bootstrap resamples. Default 1000. */
   resamples?: number;
+  /** Noise probes added to every repeat (half permuted copies of features, half Gaussian; see probes.ts). 0 = none. Default 6, at most 50. */
+  probes?: number;
   onProgress?: (e: RankProgress) => void;
 }
 
@@ -99,6 +103,7 @@ export const RANK_DEFAULTS = Object.freeze({
   permutationRepeats: 5,
   resamples: 1000,
   workers: 0,
+  probes: 6,
 });
 
 export interface RankEntry {
@@ -107,6 +112,22 @@ export interface RankEntry {
   score: number;
   low: number;
   high: number;
+  /** With noise probes: whether the whole interval lies above the probes' upper reference (`noiseReference`). */
+  aboveNoise?: boolean;
+  /** The probes' upper reference of this ranking (the largest upper interval end of any probe). */
+  noiseReference?: number;
+}
+
+/** The noise level of a ranking, measured with probe columns that cannot predict the target. */
+export interface NoiseLevel {
+  probes: ProbeSpec[];
+  /** The headline ranking's reference: the largest upper interval end of any probe. */
+  reference: number;
+  /** Per method run, that method's reference. */
+  perMethod: Partial<Record<AttributionMethod, number>>;
+  /** The probes' own headline entries (shares on the real quantities' scale), best first. */
+  scores: RankEntry[];
+  rule: string;
 }
 
 export interface Skill {
@@ -116,6 +137,8 @@ export interface Skill {
   perRepeat: number[];
   /** The second held-out figure: RMSE (regression) or balanced accuracy (classification), mean and per repeat. */
   secondary?: { metric: 'rmse' | 'balancedAccuracy'; score: number; perRepeat: number[] };
+  /** Integer target fitted as a regression: fraction of held-out rows the rounded prediction gets exactly right. */
+  roundedExact?: { score: number; perRepeat: number[] };
 }
 
 export interface RankResult {
@@ -140,6 +163,8 @@ export interface RankResult {
   repeats: Array<{ seed: number; fold: number; split: string; train: number; validation: number; test: number; attributed: number; constantFeatures: string[]; standardizer: StandardizerState }>;
   interval: { level: number; resamples: number; resampledRows: boolean };
   ablation?: Ablation;
+  /** Noise probes and the level they set; absent when `probes` is 0. Probes never enter `ranking`. */
+  noise?: NoiseLevel;
   /** Held-out actual and predicted values of the first repeat (at most 5,000 rows, seeded sample); classification: the expected value Σ p_k·c_k. */
   predictions?: { actual: number[]; predicted: number[]; repeat: string; sampledFrom: number };
   /** Classification: counts of held-out rows of the first repeat by actual class (rows) and most probable class (columns). */
@@ -198,6 +223,7 @@ function checkOptions(o: RankOptions): void {
   count('integratedSteps', o.integratedSteps);
   count('permutationRepeats', o.permutationRepeats);
   count('resamples', o.resamples);
+  count('probes', o.probes);
   if (o.hidden && !o.hidden.every((h) => Number.isInteger(h) && h >= 1)) {
     throw new SurmiseError('rank.badOption', `expected hidden to be positive integer layer widths, got ${o.hidden.join(',')}`, { option: 'hidden' });
   }
@@ -218,12 +244,13 @@ function checkOptions(o: RankOptions): void {
   }
 }
 
-function skill(metric: 'r2' | 'accuracy', perRepeat: number[], second?: number[]): Skill {
+function skill(metric: 'r2' | 'accuracy', perRepeat: number[], second?: number[], exact?: number[]): Skill {
   const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
   const out: Skill = { metric, score: mean(perRepeat), perRepeat };
   if (second && second.length === perRepeat.length) {
     out.secondary = { metric: metric === 'r2' ? 'rmse' : 'balancedAccuracy', score: mean(second), perRepeat: second };
   }
+  if (exact && exact.length === perRepeat.length && exact.every((v) => !Number.isNaN(v))) out.roundedExact = { score: mean(exact), perRepeat: exact };
   return out;
 }
 
@@ -258,8 +285,14 @@ class Scores {
   readonly net2: number[] = [];
   readonly constant2: number[] = [];
   readonly ridge2: number[] = [];
+  readonly netExact: number[] = [];
+  readonly constantExact: number[] = [];
+  readonly ridgeExact: number[] = [];
 
   add(f: Fit): void {
+    this.netExact.push(f.exact[0]);
+    this.constantExact.push(f.exact[1]);
+    this.ridgeExact.push(f.exact[2]);
     this.net.push(f.score);
     this.constant.push(f.constant);
     this.ridge.push(f.ridge);
@@ -278,6 +311,8 @@ interface Fit {
   score2: number;
   constant2: number;
   ridge2: number;
+  /** Rounded-prediction hit rates of the network, constant and ridge (NaN unless an integer regression target). */
+  exact: [number, number, number];
   epochsRun: number;
 }
 
@@ -292,7 +327,7 @@ async function* trainAll(
   datas: readonly RepeatData[],
   seeds: readonly number[],
   task: Task,
-  o: { hidden: number[]; epochs: number; workers: number; engine?: EngineChoice },
+  o: { hidden: number[]; epochs: number; workers: number; integerTarget: boolean; engine?: EngineChoice },
   onUnits: (done: number, message: string) => void,
   labels: readonly string[],
 ): AsyncGenerator<Fit> {
@@ -308,9 +343,14 @@ async function* trainAll(
   });
   const score = (net: TrainedNetwork, d: RepeatData): Fit => {
     const e = evaluate(net, d.test);
-    const c = evaluate(fitConstant(d.train.y, task), d.test);
-    const rg = evaluate(selectRidge(d.train, d.validation, task).model, d.test);
-    return { net, score: e.score, constant: c.score, ridge: rg.score, score2: second(e), constant2: second(c), ridge2: second(rg), epochsRun: net.epochs };
+    const cm = fitConstant(d.train.y, task);
+    const rm = selectRidge(d.train, d.validation, task).model;
+    const c = evaluate(cm, d.test);
+    const rg = evaluate(rm, d.test);
+    const hit = (m: { predict(x: typeof d.test.x, n: number): Float64Array }) =>
+      o.integerTarget && task === 'regression' ? roundedHitRate(m.predict(d.test.x, d.test.n), d.test.y) : Number.NaN;
+    const exact: [number, number, number] = [hit(net), hit(cm), hit(rm)];
+    return { net, score: e.score, constant: c.score, ridge: rg.score, score2: second(e), constant2: second(c), ridge2: second(rg), exact, epochsRun: net.epochs };
   };
   if (o.workers >= 1 && datas.length > 1) {
     let finished = 0;
@@ -340,6 +380,28 @@ function subsample(n: number, max: number, seed: number): Int32Array {
   return new Rng(seed).permutation(n).subarray(0, max).sort();
 }
 
+/** The first G groups of a ranking (the real quantities): order and Kendall τ-b recomputed on them alone. */
+function realPart(r: MethodRanking, G: number): MethodRanking {
+  if (r.groups.length === G) return r;
+  const perRepeat = r.perRepeat.map((s) => s.slice(0, G));
+  return {
+    ...r,
+    groups: r.groups.slice(0, G),
+    mean: r.mean.slice(0, G),
+    low: r.low.slice(0, G),
+    high: r.high.slice(0, G),
+    perRepeat,
+    rawPerRepeat: r.rawPerRepeat.map((s) => s.slice(0, G)),
+    kendallTau: meanPairwiseTau(perRepeat),
+    order: r.order.filter((k) => k < G),
+  };
+}
+
+/** The groups after the first G (the probes), best first. */
+function probePart(r: MethodRanking, G: number): MethodRanking {
+  return { ...r, groups: r.groups, order: r.order.filter((k) => k >= G) };
+}
+
 function entries(r: MethodRanking): RankEntry[] {
   return r.order.map((k) => ({ feature: r.groups[k]!, score: r.mean[k]!, low: r.low[k]!, high: r.high[k]! }));
 }
@@ -357,6 +419,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const resamples = options.resamples ?? RANK_DEFAULTS.resamples;
   const dropTop = options.dropTop ?? 0;
   const workers = options.workers ?? RANK_DEFAULTS.workers;
+  const nProbes = options.probes ?? RANK_DEFAULTS.probes;
 
   const ds = buildDataset(table, {
     target: options.target,
@@ -377,6 +440,11 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const { plans, spec } = planRepeats(table, ds, { seed, seeds: nSeeds, folds, split: options.split });
   const R = plans.length;
   const all = Array.from({ length: p }, (_, j) => j);
+  const probes = planProbes(ds.featureNames, nProbes, seed);
+  const G = groups.length;
+  const allGroups = [...groups, ...probeGroups(probes, p)];
+  const allWithProbes = Array.from({ length: p + probes.length }, (_, j) => j);
+  const integerTarget = ds.y.every((v) => Number.isInteger(v));
   const unitsPerRepeat = epochs;
   const total = R * unitsPerRepeat * (dropTop > 0 ? 2 : 1);
   const report = (phase: RankProgress['phase'], done: number, message: string) => options.onProgress?.({ phase, done: Math.min(done, total), total, message });
@@ -388,11 +456,14 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const completeness: RankResult['completeness'] = [];
   const repeatsInfo: RankResult['repeats'] = [];
   const metric: 'r2' | 'accuracy' = task === 'regression' ? 'r2' : 'accuracy';
-  const datas = plans.map((plan) => repeatData(ds, plan, all));
+  // the probes are drawn once and kept in every repeat, like a real inert column: a chance
+  // in-sample link to the target then shows in the probes as it does in the real columns
+  const dsProbed = probes.length ? withProbes(ds, probes, probeColumns(ds, probes, deriveSeed(seed, 'probes'))) : ds;
+  const datas = plans.map((plan) => repeatData(dsProbed, plan, probes.length ? allWithProbes : all));
   let predictions: RankResult['predictions'];
   let confusion: RankResult['confusion'];
   let dependence: RankResult['dependence'];
-  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
+  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers, integerTarget, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
     const d = datas[r]!;
@@ -411,7 +482,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
         xa.set(d.test.x.subarray(i * pk, (i + 1) * pk), k * pk);
         ya[k] = d.test.y[i]!;
       });
-      const att = attributeRepeat(fit.net, xa, ya, rows.length, groupsOnKept(groups, d.kept), {
+      const att = attributeRepeat(fit.net, xa, ya, rows.length, groupsOnKept(allGroups, d.kept), {
         methods,
         seed: deriveSeed(plan.seed, 'attribution'),
         smoothGradSamples: options.smoothGradSamples ?? RANK_DEFAULTS.smoothGradSamples,
@@ -434,16 +505,25 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
         dependence = dependenceCurves((x, m) => fit.net.predict(x, m), d, ds.featureNames, deriveSeed(plan.seed, 'dependence-rows'));
       }
       if (att.completeness) completeness.push(att.completeness);
-      repeatsInfo.push({ seed: plan.seed, fold: plan.fold, split: plan.description, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length, constantFeatures: d.constant, standardizer: d.standardizer });
+      repeatsInfo.push({ seed: plan.seed, fold: plan.fold, split: plan.description, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length, constantFeatures: d.constant.filter((c) => ds.featureNames.includes(c)), standardizer: d.standardizer });
     } finally {
       fit.net.dispose();
     }
   }
 
-  const names = groups.map((g) => g.name);
+  const names = allGroups.map((g) => g.name);
   const aggSeed = deriveSeed(seed, 'bootstrap');
-  const perMethod = methods.map((m) => aggregateRepeats(m, names, byMethod.get(m)!, { seed: aggSeed, resamples }));
-  const consensus = methods.length > 1 ? consensusRanking(names, methods.map((m) => byMethod.get(m)!), { seed: aggSeed, resamples }) : perMethod[0]!;
+  const agg = { seed: aggSeed, resamples, normaliseOver: G };
+  const perMethodAll = methods.map((m) => aggregateRepeats(m, names, byMethod.get(m)!, agg));
+  const consensusAll = methods.length > 1 ? consensusRanking(names, methods.map((m) => byMethod.get(m)!), agg) : perMethodAll[0]!;
+  const perMethod = perMethodAll.map((r) => realPart(r, G));
+  const consensus = realPart(consensusAll, G);
+  const marked = (all: MethodRanking): RankEntry[] => {
+    const e = entries(realPart(all, G));
+    if (!probes.length) return e;
+    const ref = noiseReference(all.high.slice(G));
+    return e.map((x) => ({ ...x, aboveNoise: x.low > ref, noiseReference: ref }));
+  };
 
   const result: RankResult = {
     target: ds.targetName,
@@ -451,17 +531,17 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     features: [...ds.featureNames],
     groups: groups.map((g) => ({ name: g.name, members: g.members.map((j) => ds.featureNames[j]!) })),
     model: {
-      ...skill(metric, scores.net, scores.net2),
-      baselines: { constant: skill(metric, scores.constant, scores.constant2), ridge: skill(metric, scores.ridge, scores.ridge2) },
+      ...skill(metric, scores.net, scores.net2, scores.netExact),
+      baselines: { constant: skill(metric, scores.constant, scores.constant2, scores.constantExact), ridge: skill(metric, scores.ridge, scores.ridge2, scores.ridgeExact) },
       hidden,
       epochsRun,
       engine: engine!,
     },
-    ranking: entries(consensus),
+    ranking: marked(consensusAll),
     rankingMethod: methods.length > 1 ? 'consensus' : methods[0]!,
     kendallTau: consensus.kendallTau,
     methods: Object.fromEntries(
-      perMethod.map((r) => [r.method, { ranking: entries(r), kendallTau: r.kendallTau, perRepeat: r.perRepeat, rawPerRepeat: r.rawPerRepeat }]),
+      perMethod.map((r, k) => [r.method, { ranking: marked(perMethodAll[k]!), kendallTau: r.kendallTau, perRepeat: r.perRepeat, rawPerRepeat: r.rawPerRepeat }]),
     ),
     rows: ds.drops,
     seeds: Array.from({ length: nSeeds }, (_, k) => k + 1),
@@ -472,6 +552,15 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     interval: { level: consensus.level, resamples: consensus.resamples, resampledRows: consensus.resampledRows },
   };
   if (completeness.length) result.completeness = completeness;
+  if (probes.length) {
+    result.noise = {
+      probes,
+      reference: noiseReference(consensusAll.high.slice(G)),
+      perMethod: Object.fromEntries(perMethodAll.map((r) => [r.method, noiseReference(r.high.slice(G))])),
+      scores: entries(probePart(consensusAll, G)),
+      rule: 'above the noise level when the whole interval lies above the largest upper interval end of any probe',
+    };
+  }
   if (predictions) result.predictions = predictions;
   if (confusion) result.confusion = confusion;
   if (dependence) result.dependence = dependence;
@@ -483,7 +572,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const abScores = new Scores();
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
-    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers, engine: options.engine }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
+    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers, integerTarget, engine: options.engine }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
       fit.net.dispose();
       abScores.add(fit);
     }

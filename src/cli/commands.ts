@@ -11,6 +11,7 @@ import { registerRun } from './run.ts';
 import { registerDemo } from './demo.ts';
 import { registerRerun } from './rerun.ts';
 import { registerCompare } from './compare.ts';
+import { registerResidual } from './residual.ts';
 
 /** Every command, in the order --help lists them. */
 export const commandRegistrations: Array<(program: Command, io: CliIO) => void> = [
@@ -19,6 +20,7 @@ export const commandRegistrations: Array<(program: Command, io: CliIO) => void> 
   registerRank,
   registerFit,
   registerSearch,
+  registerResidual,
   registerBound,
   registerKnots,
   registerRun,

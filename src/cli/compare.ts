@@ -5,7 +5,7 @@ import type { CliIO } from './io.ts';
 export function registerCompare(program: Command, io: CliIO): void {
   program
     .command('compare')
-    .description('show side by side how rankings, fitted coefficients and bound constants moved between two runs')
+    .description('compare two runs with both runs\' uncertainty: rankings, fitted coefficients, the best searched formula and bound constants (difference and its interval; "consistent" when it contains 0)')
     .argument('<run-a>', 'the earlier run folder')
     .argument('<run-b>', 'the later run folder')
     .option('--json', 'print the comparison as one JSON object')

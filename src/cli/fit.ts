@@ -29,6 +29,7 @@ export interface FitOptions {
   format?: string;
   json?: boolean;
   keepDuplicates?: boolean;
+  noisy?: string;
 }
 
 /** An integer option ≥ `min` (else `relate.badOption` naming it) and at most its ceiling `max` (else `option.tooLarge`). */
@@ -61,14 +62,14 @@ export function renderFit(r: FitResult): string {
   lines.push(`least squares: ${r.target} on ${nT} term${nT === 1 ? '' : 's'}${r.intercept ? ' and an intercept' : ' (no intercept)'}, ${r.n} rows used${drop}`);
   lines.push('');
   const pct = `${Math.round(r.level * 100)}% interval`;
-  const rows: string[][] = [['term', 'estimate', 'std. error', pct, 'simplest rational in interval']];
+  const rows: string[][] = [['term', 'estimate', 'std. error', pct, 'simple fraction (denominator ≤ 12)']];
   for (const t of r.terms) {
     rows.push([
       t.term,
       t.aliased ? 'aliased' : num(t.coef, 8),
       num(t.se, 4),
       t.aliased ? '' : `[${num(t.low, 6)}, ${num(t.high, 6)}]`,
-      t.rational ? t.rational.text : '—',
+      t.aliased ? '—' : t.fraction.text,
     ]);
   }
   lines.push(alignTable(rows).trimEnd());
@@ -90,8 +91,16 @@ export function renderFit(r: FitResult): string {
     ['rank', `${r.rank} of ${r.terms.length}`],
   ];
   if (r.heldOut) stats.push(['held-out RMSE', `${num(r.heldOut.rmse, 6)} on ${r.heldOut.n} rows (MAE ${num(r.heldOut.mae, 6)})`]);
+  if (r.roundedExact) {
+    stats.push(['rounded fit exactly right', `${num(r.roundedExact.fitted, 4)} of fitted rows${r.roundedExact.heldOut !== null ? `, ${num(r.roundedExact.heldOut, 4)} of held-out rows` : ''} (integer target)`]);
+  }
+  if (r.orthogonal) stats.push(['orthogonal slope', `${num(r.orthogonal.slope, 8)} (intercept ${num(r.orthogonal.intercept, 8)}; total least squares)`]);
   if (r.split) stats.push(['split', r.split]);
   lines.push(alignTable(stats).trimEnd());
+  lines.push('');
+  lines.push(`fractions: ${r.fractionRule}.`);
+  if (r.orthogonal) lines.push(`${r.orthogonal.text}.`);
+  if (r.errorsInVariables) lines.push(`${r.errorsInVariables.text}.`);
   if (r.warnings.length) {
     lines.push('');
     lines.push('warnings:');
@@ -116,6 +125,7 @@ export function registerFit(program: Command, io: CliIO): void {
     .option('--folds <k>', `cross-validation folds${rangeHelp(RELATE_LIMITS.folds)}`, '5')
     .option('--level <p>', 'confidence level of the intervals', '0.95')
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
+    .option('--noisy <terms>', 'terms measured with error, separated by ";" (their slopes are attenuated; errors-in-variables)')
     .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column used (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .action(async (file: string, o: FitOptions) => {
@@ -135,7 +145,7 @@ export function registerFit(program: Command, io: CliIO): void {
         const s = splitRows(table, o.split, seed);
         split = { train: s.first, test: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
-      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, seed, folds, level, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}) });
+      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, seed, folds, level, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}), ...(o.noisy !== undefined ? { noisyTerms: splitTerms(o.noisy) } : {}) });
       if (o.json) io.stdout(toJson(r) + '\n');
       else io.stdout(renderFit(r));
     });

@@ -13,6 +13,7 @@ import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
 import { formatDropReport } from '../table/dataset.ts';
 import { rankFeatures, RANK_DEFAULTS, type RankResult, type RankEntry } from '../attribute/rank.ts';
 import { ATTRIBUTION_METHODS, type AttributionMethod } from '../attribute/types.ts';
+import { describeProbes } from '../attribute/probes.ts';
 import { collect, parseEngine, parseNonNegativeInt, parsePositiveInt, parseIntOption, rangeHelp } from './options.ts';
 import { RANK_LIMITS } from '../attribute/limits.ts';
 import { tooLarge } from '../util/integer.ts';
@@ -37,6 +38,7 @@ interface RankCliOptions {
   dropTop: string;
   workers: string;
   permutationLoss: string;
+  probes: string;
   format?: string;
   json?: boolean;
   out?: string;
@@ -79,7 +81,7 @@ export function parseGroups(specs: string[]): Record<string, string[]> {
   return out;
 }
 
-function parseHidden(raw: string): number[] {
+export function parseHidden(raw: string): number[] {
   if (raw.trim() === '' || raw.trim() === 'none') return [];
   const widths = raw.split(',').map((s) => parsePositiveInt('--hidden (each layer width)', s.trim(), RANK_LIMITS.hiddenWidth.max));
   if (widths.length > RANK_LIMITS.hiddenLayers.max) throw tooLarge('--hidden', widths.length, RANK_LIMITS.hiddenLayers, '--hidden (number of layers)');
@@ -94,16 +96,30 @@ function bar(score: number, max: number, width = 30): string {
   return '█'.repeat(Math.max(1, Math.round((score / max) * width)));
 }
 
-function rankingTable(rows: RankEntry[], levelPct: number): string[] {
+/**
+ * The ranking as aligned text. With a noise reference, each row says whether its interval lies
+ * above it, and a line marks where the shares fall below the reference.
+ */
+export function rankingTable(rows: RankEntry[], levelPct: number, noiseRef?: number): string[] {
   const w = Math.max(7, ...rows.map((r) => r.feature.length));
   const max = Math.max(0, ...rows.map((r) => r.score));
-  const lines = [`  ${'#'.padStart(3)}  ${'feature'.padEnd(w)}  ${'share'.padStart(6)}  ${`${levelPct}% interval`.padEnd(17)}`];
+  const noise = noiseRef !== undefined && Number.isFinite(noiseRef);
+  const lines = [`  ${'#'.padStart(3)}  ${'feature'.padEnd(w)}  ${'share'.padStart(6)}  ${`${levelPct}% interval`.padEnd(17)}${noise ? '  vs noise' : ''}`];
+  let lineDrawn = false;
   rows.forEach((r, i) => {
+    if (noise && !lineDrawn && r.score <= noiseRef!) {
+      lines.push(`  ${'-'.repeat(3)}  noise level ${fmt(noiseRef)} (probes' upper reference) ${'-'.repeat(12)}`);
+      lineDrawn = true;
+    }
     const iv = `[${fmt(r.low)}, ${fmt(r.high)}]`;
-    lines.push(`  ${String(i + 1).padStart(3)}  ${r.feature.padEnd(w)}  ${fmt(r.score).padStart(6)}  ${iv.padEnd(17)}  ${bar(r.score, max)}`);
+    const vs = noise ? `  ${(r.aboveNoise ? 'above' : 'at noise').padEnd(8)}` : '';
+    lines.push(`  ${String(i + 1).padStart(3)}  ${r.feature.padEnd(w)}  ${fmt(r.score).padStart(6)}  ${iv.padEnd(17)}${vs}  ${bar(r.score, max)}`.trimEnd());
   });
+  if (noise && !lineDrawn) lines.push(`  ${'-'.repeat(3)}  noise level ${fmt(noiseRef)} (probes' upper reference) ${'-'.repeat(12)}`);
   return lines;
 }
+
+
 
 /** The human-readable report of a ranking. */
 export function formatRank(r: RankResult, source: string): string {
@@ -125,6 +141,10 @@ export function formatRank(r: RankResult, source: string): string {
   L.push(`  network ${r.model.hidden.join('×') || 'linear'} (${r.model.engine} engine)   ${fmt(r.model.score)}${also(r.model)}   (per repeat ${r.model.perRepeat.map((v) => fmt(v)).join(', ')})`);
   L.push(`  ridge baseline       ${fmt(r.model.baselines.ridge.score)}${also(r.model.baselines.ridge)}`);
   L.push(`  constant baseline    ${fmt(r.model.baselines.constant.score)}${also(r.model.baselines.constant)}`);
+  if (r.model.roundedExact) {
+    const ex = (s: { roundedExact?: { score: number } }) => (s.roundedExact ? fmt(s.roundedExact.score) : 'n/a');
+    L.push(`  integer target: rounded prediction exactly right on ${ex(r.model)} of held-out rows (ridge ${ex(r.model.baselines.ridge)}, constant ${ex(r.model.baselines.constant)})`);
+  }
   if (r.model.score <= Math.max(r.model.baselines.ridge.score, r.model.baselines.constant.score)) {
     L.push('  the network does not beat the baselines: the ranking below explains little');
   }
@@ -137,7 +157,12 @@ export function formatRank(r: RankResult, source: string): string {
       : `ranking: ${r.rankingMethod}`,
   );
   L.push(`  share = fraction of the total attribution; ${levelPct}% bootstrap interval over ${r.interval.resamples} resamples of repeats${r.interval.resampledRows ? ' and held-out rows' : ''}`);
-  L.push(...rankingTable(r.ranking, levelPct));
+  L.push(...rankingTable(r.ranking, levelPct, r.noise?.reference));
+  if (r.noise) {
+    const above = r.ranking.filter((e) => e.aboveNoise).length;
+    L.push(`  noise level: ${describeProbes(r.noise.probes)} trained and attributed in every repeat; the largest probe upper interval end is ${fmt(r.noise.reference)}.`);
+    L.push(`  ${above} of ${r.ranking.length} quantities have their whole interval above it; the rest are indistinguishable from noise here. Probes are not ranked.`);
+  }
   L.push('');
   L.push(`rank stability (mean Kendall τ-b between repeats): ${fmt(r.kendallTau, 2)}${r.kendallTau === null ? ' (needs 2 repeats)' : ''}`);
   if (methods.length > 1) {
@@ -188,6 +213,7 @@ export function registerRank(program: Command, io: CliIO): void {
     .option('--drop-top <k>', `also retrain without the k best groups and report the skill left${rangeHelp(RANK_LIMITS.dropTop)}`, '0')
     .option('--permutation-loss <loss>', 'classification loss for permutation importance: error (drop in accuracy) | cross-entropy', 'error')
     .option('--workers <n>', `worker threads for training (0 = train in this thread)${rangeHelp(RANK_LIMITS.workers)}`, String(RANK_DEFAULTS.workers))
+    .option('--probes <n>', `noise probes per repeat: half permuted copies of features, half Gaussian columns; 0 = none${rangeHelp(RANK_LIMITS.probes)}`, String(RANK_DEFAULTS.probes))
     .option('--engine <engine>', 'network engine: auto (native when it loads) | native | tfjs', 'auto')
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
@@ -225,6 +251,7 @@ export function registerRank(program: Command, io: CliIO): void {
         seed,
         dropTop: parseNonNegativeInt('--drop-top', o.dropTop, RANK_LIMITS.dropTop.max),
         workers: parseNonNegativeInt('--workers', o.workers, RANK_LIMITS.workers.max),
+        probes: parseProbes(o.probes),
         engine: parseEngine(o.engine),
         permutationLoss: o.permutationLoss as 'error' | 'cross-entropy',
       };
@@ -253,6 +280,11 @@ export function registerRank(program: Command, io: CliIO): void {
       if (o.json) io.stdout(json + '\n');
       else io.stdout(formatRank(result, file) + (outFile ? `wrote ${join(o.out!, 'rank.json')}\n` : ''));
     });
+}
+
+/** --probes: an integer in RANK_LIMITS.probes. */
+export function parseProbes(raw: string): number {
+  return parseNonNegativeInt('--probes', raw, RANK_LIMITS.probes.max);
 }
 
 /** Refuse an existing rank.json without --force before any work is done (the final write checks again). */

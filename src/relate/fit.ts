@@ -5,7 +5,8 @@
 import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
 import { lstsq } from './lstsq.ts';
-import { simplestRational, type Rational } from './rational.ts';
+import { simpleFraction, SIMPLE_DENOMINATOR, type Rational, type SimpleFraction } from './rational.ts';
+import { orthogonalLine } from './orthogonal.ts';
 import { crossValidatedRmse, gather, predictRows, rmseOn } from './crossval.ts';
 import { completeRows, describeRow, realExpression, withDerived, type DroppedRows } from './rows.ts';
 
@@ -28,6 +29,10 @@ export interface FitSpec {
   level?: number;
   /** Keep rows that repeat an earlier row in every column the target and terms use (default false: drop and count them). */
   keepDuplicates?: boolean;
+  /** Terms whose values are themselves measured with error (errors-in-variables): their slopes are attenuated. */
+  noisyTerms?: string[];
+  /** Also return the residual of every fitted row (for a residual ranking). Default false. */
+  keepResiduals?: boolean;
 }
 
 export interface FitTerm {
@@ -36,8 +41,10 @@ export interface FitTerm {
   se: number;
   low: number;
   high: number;
-  /** Simplest fraction inside [low, high], or null (interval undefined or too narrow for a small fraction). */
+  /** The one fraction with denominator ≤ 12 inside [low, high] (simpleFraction), or null. */
   rational: Rational | null;
+  /** What the interval says about simple fractions: one, several (too wide), or none. */
+  fraction: SimpleFraction;
   aliased: boolean;
 }
 
@@ -76,6 +83,25 @@ export interface FitResult {
   split: string | null;
   seed: number;
   warnings: string[];
+  /** The fraction rule, in words. */
+  fractionRule: string;
+  /** One-term fits: the orthogonal (total least squares) line beside the ordinary one. */
+  orthogonal?: { term: string; slope: number; intercept: number; text: string };
+  /** Terms declared noisy, and what that does to their least-squares slopes. */
+  errorsInVariables?: { terms: string[]; text: string };
+  /** Integer target: fraction of rows the rounded fitted value gets exactly right (fitted rows; held-out rows when split). */
+  roundedExact?: { fitted: number; heldOut: number | null };
+  /** With keepResiduals: data rows fitted (0-based) and their residuals y − ŷ. */
+  residuals?: { rows: Int32Array; values: Float64Array };
+}
+
+export const FRACTION_RULE = `a fraction is shown only when it is the one fraction with denominator ≤ ${SIMPLE_DENOMINATOR} inside the coefficient's interval`;
+
+/** Fraction of rows where round(ŷ) = y exactly (y integer). */
+function hitRate(pred: ArrayLike<number>, y: ArrayLike<number>): number {
+  let h = 0;
+  for (let i = 0; i < y.length; i++) if (Math.round(pred[i]!) === y[i]) h++;
+  return y.length ? h / y.length : NaN;
 }
 
 /** Fit `spec.target ≈ Σ coef · term` by least squares (Householder QR) on the table's complete rows. */
@@ -131,15 +157,10 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
   const y = all ? target.values : gather(target.values, trainRows);
   const fit = lstsq(cols, y, { intercept, names: spec.terms, level });
   warnings.push(...fit.warnings);
-  const fitTerms: FitTerm[] = fit.names.map((term, j) => ({
-    term,
-    coef: fit.coef[j]!,
-    se: fit.se[j]!,
-    low: fit.low[j]!,
-    high: fit.high[j]!,
-    rational: fit.aliased[j] ? null : simplestRational(fit.low[j]!, fit.high[j]!, 1000),
-    aliased: fit.aliased[j]!,
-  }));
+  const fitTerms: FitTerm[] = fit.names.map((term, j) => {
+    const fraction = fit.aliased[j] ? simpleFraction(NaN, NaN) : simpleFraction(fit.low[j]!, fit.high[j]!);
+    return { term, coef: fit.coef[j]!, se: fit.se[j]!, low: fit.low[j]!, high: fit.high[j]!, rational: fraction.rational, fraction, aliased: fit.aliased[j]! };
+  });
   const cv = trainRows.length >= 2 * folds && fit.rank === p ? crossValidatedRmse(cols, y, { k: folds, seed, intercept }) : null;
   if (!cv) warnings.push(`${folds}-fold cross-validation skipped (${fit.rank < p ? 'rank-deficient design' : 'too few rows'})`);
   let heldOut: FitResult['heldOut'] = null;
@@ -153,7 +174,44 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
     }
   }
   const worst = trainRows[fit.maxAbsResidualRow]!;
+  const extra: Partial<FitResult> = {};
+  if (spec.terms.length === 1 && !fitTerms.some((t) => t.aliased)) {
+    const o = orthogonalLine(cols[0]!, y, intercept);
+    const ols = fitTerms.find((t) => t.term !== '1')!.coef;
+    extra.orthogonal = {
+      term: spec.terms[0]!,
+      slope: o.slope,
+      intercept: o.intercept,
+      text: `orthogonal (total least squares) slope ${o.slope.toPrecision(6)} beside the ordinary ${ols.toPrecision(6)}: it treats errors in '${spec.terms[0]}' and in the target as equal in size, in these units`,
+    };
+  }
+  const noisy = (spec.noisyTerms ?? []).map((t) => {
+    const k = spec.terms.findIndex((u) => u.replace(/\s+/g, '') === t.replace(/\s+/g, ''));
+    if (k < 0) throw new SurmiseError('relate.unknownNoisyTerm', `noisy term '${t}' is not one of the fitted terms (${spec.terms.join('; ')})`);
+    return spec.terms[k]!;
+  });
+  if (noisy.length) {
+    extra.errorsInVariables = {
+      terms: noisy,
+      text:
+        `${noisy.map((t) => `'${t}'`).join(', ')} ${noisy.length === 1 ? 'is' : 'are'} measured with error: least squares biases ${noisy.length === 1 ? 'its slope' : 'their slopes'} toward 0 ` +
+        `by the factor var(true value)/var(observed value) (attenuation, errors-in-variables; Fuller, Measurement Error Models, 1987, §1.1)` +
+        (extra.orthogonal ? '; the orthogonal slope corrects this when the two error variances are equal' : ''),
+    };
+  }
+  if (y.every((v) => Number.isInteger(v))) {
+    const fitted = Float64Array.from(y, (v, i) => v - fit.residuals[i]!);
+    let heldOutRate: number | null = null;
+    if (testRows && testRows.length) {
+      const pred = predictRows(terms.map((t) => t.values), fit.coef, intercept, testRows);
+      heldOutRate = hitRate(pred, Array.from(testRows, (i) => target.values[i]!));
+    }
+    extra.roundedExact = { fitted: hitRate(fitted, y), heldOut: heldOutRate };
+  }
+  if (spec.keepResiduals) extra.residuals = { rows: Int32Array.from(trainRows), values: Float64Array.from(fit.residuals) };
   return {
+    ...extra,
+    fractionRule: FRACTION_RULE,
     target: spec.target,
     terms: fitTerms,
     intercept,

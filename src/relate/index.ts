@@ -2,7 +2,7 @@
 export { lstsq, type LstsqOptions, type LstsqResult, type Collinearity } from './lstsq.ts';
 export { pivotedHouseholderQR, singularValues, type PivotedQR } from './qr.ts';
 export { studentTQuantile, studentTUpperTail, studentTCdf, logGamma, regularizedBeta, erfc } from '../util/special.ts';
-export { simplestRational, convergents, type Rational } from './rational.ts';
+export { simplestRational, simpleFraction, SIMPLE_DENOMINATOR, convergents, type Rational, type SimpleFraction } from './rational.ts';
 export { crossValidatedRmse, type CrossValidation } from './crossval.ts';
 export { fitRelation, type FitSpec, type FitResult, type FitTerm, type RowRef } from './fit.ts';
 export { searchRelations, type SearchSpec, type SearchResult, type SearchCandidate } from './search.ts';

@@ -98,3 +98,50 @@ export function convergents(x: number, n: number): Rational[] {
   }
   return out;
 }
+
+/** Largest denominator of a fraction worth showing (our rule; see simpleFraction). */
+export const SIMPLE_DENOMINATOR = 12;
+
+/** What the interval says about simple fractions: exactly one (shown), several (too wide to pick one), or none. */
+export interface SimpleFraction {
+  status: 'one' | 'several' | 'none';
+  /** The one fraction with denominator ≤ maxDen in the interval (status 'one'), else null. */
+  rational: Rational | null;
+  /** "1/2"; "several simple fractions (1/2, 2/3, …)"; "no simple fraction". */
+  text: string;
+}
+
+function gcd(a: number, b: number): number {
+  while (b) [a, b] = [b, a % b];
+  return Math.abs(a);
+}
+
+/**
+ * A fraction that means something: shown only when exactly one fraction p/q with q ≤ maxDen
+ * (default 12) lies in the closed interval [low, high], i.e. the data single it out among the
+ * simple fractions (our rule). A wide interval holds several (it cannot pick one; width ≥ 1 always
+ * holds at least k/1 and k/2 or two halves); a narrow one may hold none ("no simple fraction": the
+ * estimate is better written as a decimal). Fractions are enumerated per denominator q from
+ * ⌈low·q⌉ to ⌊high·q⌋ and reduced (the Farey sequence of order maxDen; Hardy & Wright ch. III).
+ * @example simpleFraction(0.4957, 0.5017).text // '1/2'
+ * @example simpleFraction(0.489, 0.491).text // 'no simple fraction' (25/51 is inside; denominator 51 > 12)
+ * @example simpleFraction(0.45, 0.7).status // 'several' (1/2, 2/3, 3/5, …)
+ */
+export function simpleFraction(low: number, high: number, maxDen = SIMPLE_DENOMINATOR): SimpleFraction {
+  if (!(Number.isFinite(low) && Number.isFinite(high)) || low > high) return { status: 'none', rational: null, text: 'no simple fraction' };
+  const found: Array<[number, number]> = [];
+  if (high - low < 1) {
+    for (let q = 1; q <= maxDen && found.length < 3; q++) {
+      for (let p = Math.ceil(low * q); p <= Math.floor(high * q) && found.length < 3; p++) {
+        if (gcd(p, q) === 1) found.push([p, q]); // reduced only: 0/1 once, 2/4 is 1/2
+      }
+    }
+  }
+  if (high - low >= 1 || found.length > 1) {
+    const shown = found.slice(0, 2).map(([p, q]) => make(p, q).text);
+    return { status: 'several', rational: null, text: `several simple fractions (${shown.length ? shown.join(', ') + ', …' : 'interval wider than 1'})` };
+  }
+  if (found.length === 0) return { status: 'none', rational: null, text: 'no simple fraction' };
+  const r = make(found[0]![0], found[0]![1]);
+  return { status: 'one', rational: r, text: r.text };
+}

@@ -15,7 +15,7 @@ import { buildCandidates, type CandidateTerm, type SkippedTerm } from './candida
 import { getColumnOrThrow } from './columns.ts';
 import { gather, predictRows, rmseOn } from './crossval.ts';
 import { lstsq } from './lstsq.ts';
-import { simplestRational, type Rational } from './rational.ts';
+import { simpleFraction, type Rational } from './rational.ts';
 import { completeRows, realExpression, withDerived, type DroppedRows } from './rows.ts';
 
 export interface SearchSpec {
@@ -51,7 +51,7 @@ export interface SearchCandidate {
   se: number[];
   low: number[];
   high: number[];
-  /** Simplest rational inside each interval (intercept first), or null. */
+  /** The one fraction with denominator ≤ 12 inside each interval (simpleFraction; intercept first), or null. */
   rationals: Array<Rational | null>;
   intercept: { coef: number; se: number; low: number; high: number; rational: Rational | null };
   complexity: number;
@@ -347,7 +347,7 @@ function refit(ts: CandidateTerm[], y: Float64Array, sel: Int32Array, held: Int3
   const all = ts.map((t) => t.values);
   const pred = predictRows(all, fit.coef, true, held);
   const heldOutRmse = rmseOn(pred, y, held);
-  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simplestRational(fit.low[j]!, fit.high[j]!, 1000)));
+  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simpleFraction(fit.low[j]!, fit.high[j]!).rational));
   const rounded = Float64Array.from(fit.coef, (c, j) => (rationals[j] ? rationals[j]!.num / rationals[j]!.den : c));
   const roundedHeldOutRmse = rmseOn(predictRows(all, rounded, true, held), y, held);
   const coefs = Array.from(fit.coef);

@@ -10,6 +10,7 @@ import {
   predictabilitySection,
   relationsSection,
   reproducibilitySection,
+  residualSection,
 } from './sections.ts';
 import { specToSvg, svgToPngAsync } from './render-plot.ts';
 import { renderHtml } from './html.ts';
@@ -29,6 +30,7 @@ export function planReport(input: ReportInput, opts?: ReportOptions): { blocks: 
     ...predictabilitySection(input, plan, set),
     ...attributionSection(input, plan, set),
     ...relationsSection(input, plan, set),
+    ...residualSection(input),
     ...boundsSection(input, plan, set),
     ...reproducibilitySection(input),
   ];

@@ -167,12 +167,27 @@ function confusionBlocks(target: string, c: NonNullable<NonNullable<ReportInput[
 
 function rankingTable(ranking: readonly Interval[]): Block {
   const sorted = [...ranking].sort((a, b) => b.score - a.score);
+  const noise = sorted.some((f) => f.aboveNoise !== undefined);
   return {
     kind: 'table',
-    header: ['rank', 'quantity', 'score', 'low', 'high'],
-    rows: sorted.map((f, k) => [String(k + 1), { text: f.feature, code: true }, n4(f.score), n4(f.low), n4(f.high)]),
-    numeric: [true, false, true, true, true],
+    header: ['rank', 'quantity', 'score', 'low', 'high', ...(noise ? ['vs noise'] : [])],
+    rows: sorted.map((f, k) => [String(k + 1), { text: f.feature, code: true }, n4(f.score), n4(f.low), n4(f.high), ...(noise ? [f.aboveNoise ? 'above' : 'at noise'] : [])]),
+    numeric: noise ? [true, false, true, true, true, false] : [true, false, true, true, true],
   };
+}
+
+/** The noise line under a ranking: what the probes were, their reference, and how many quantities clear it. */
+function noiseParagraph(ranking: readonly Interval[], noise: NonNullable<ReportInput['rank']>['noise']): Block[] {
+  if (!noise) return [];
+  const above = ranking.filter((f) => f.aboveNoise).length;
+  return [{
+    kind: 'paragraph',
+    parts: [
+      `Noise level: ${noise.probes} were trained and attributed beside the real quantities in every repeat; the largest upper interval end of any probe is `,
+      { text: formatNumber(noise.reference), key: 'noise-reference' },
+      `. ${above} of ${ranking.length} quantities have their whole interval above it (“above”); the others cannot be told apart from noise on this table (“at noise”). Probes are not ranked.`,
+    ],
+  }];
 }
 
 /** The combined ranking, then per method its plot, table and Kendall τ; the target-against-top-feature plot. */
@@ -190,6 +205,7 @@ export function attributionSection(input: ReportInput, plan: PlotPlan, set: Sect
     });
     const combinedTitle = 'Combined ranking (all methods)';
     out.push({ kind: 'plot', name: plan.add('attribution-combined', combinedTitle, attributionSpec('all methods combined', r.ranking)), title: combinedTitle });
+    out.push(...noiseParagraph(r.ranking, r.noise));
     out.push({ kind: 'details', summary: 'The combined ranking as a table', blocks: [rankingTable(r.ranking)] });
     for (const [method, m] of Object.entries(r.methods)) {
       const inner: Block[] = [];
@@ -218,6 +234,42 @@ export function attributionSection(input: ReportInput, plan: PlotPlan, set: Sect
     );
     out.push({ kind: 'plot', name, title });
   }
+  return out;
+}
+
+/** What the first formula leaves over: the residual's ranking and its size's, with noise lines, and the proposed next term. */
+export function residualSection(input: ReportInput): Block[] {
+  const r = input.residual;
+  if (!r) return [];
+  const out: Block[] = [{ kind: 'heading', level: 2, text: 'What the fit leaves over', id: 'residual' }];
+  out.push({
+    kind: 'paragraph',
+    parts: [
+      'After the fit ',
+      { text: r.fit, code: true },
+      ` (R² ${formatNumber(r.r2)}, RMSE ${formatNumber(r.rmse)}), its residual `,
+      { text: r.residualName, code: true },
+      ` was ranked against the remaining columns (${r.features.join(', ')}) with the same network, methods and noise probes:`,
+    ],
+  });
+  out.push(rankingTable(r.ranking), ...noiseParagraph(r.ranking, r.noise));
+  if (r.absolute) {
+    out.push({ kind: 'paragraph', parts: ['The size of the error, ', { text: `|${r.residualName}|`, code: true }, ', which a bound on the error must follow:'] });
+    out.push(rankingTable(r.absolute.ranking), ...noiseParagraph(r.absolute.ranking, r.absolute.noise));
+  }
+  if (r.next) {
+    out.push({
+      kind: 'paragraph',
+      parts: [
+        `Next term proposed by the formula search over ${r.next.from.join(', ')}: `,
+        { text: `${r.residualName} ≈ ${r.next.formula}`, code: true },
+        ` (held-out RMSE ${formatNumber(r.next.heldOutRmse)}). Fit next with the terms `,
+        { text: r.next.nextTerms.join('; '), code: true },
+        '.',
+      ],
+    });
+  }
+  for (const n of r.notes) out.push({ kind: 'paragraph', parts: [n] });
   return out;
 }
 

@@ -9,6 +9,8 @@ export interface Interval {
   score: number;
   low: number;
   high: number;
+  /** With noise probes: whether the whole interval lies above the probes' upper reference. */
+  aboveNoise?: boolean;
 }
 
 export interface ReportDrops {
@@ -40,6 +42,8 @@ export interface ReportRank {
   confusion?: { classes: number[]; counts: number[][] };
   /** Partial dependence of the network on the leading quantity: mean prediction at each value x. */
   dependence?: { feature: string; x: number[]; mean: number[] };
+  /** Noise probes: what they were (words, e.g. "3 permuted copies (of a, b, c) and 3 Gaussian columns") and the headline reference. */
+  noise?: { probes: string; reference: number };
 }
 
 export interface ReportScatter {
@@ -103,6 +107,23 @@ export interface ReportSearch {
   notes?: string[];
 }
 
+/** What a first fit leaves over, ranked (the run's `residual` key). */
+export interface ReportResidual {
+  target: string;
+  /** The first fit's equation text, e.g. `y ≈ 1.2 + 3·a^2`, and its figures. */
+  fit: string;
+  r2: number;
+  rmse: number;
+  residualName: string;
+  features: string[];
+  ranking: Interval[];
+  noise?: { probes: string; reference: number };
+  /** Ranking of |residual|, when run. */
+  absolute?: { ranking: Interval[]; noise?: { probes: string; reference: number } };
+  next: { from: string[]; formula: string; heldOutRmse: number; nextTerms: string[] } | null;
+  notes: string[];
+}
+
 export interface ReportWitness {
   row: number;
   lhs: number;
@@ -141,6 +162,7 @@ export interface ReportInput {
   scatter?: ReportScatter;
   fits?: ReportFit[];
   search?: ReportSearch;
+  residual?: ReportResidual;
   bounds?: ReportBound[];
   /** The resolved configuration, shown verbatim. */
   configText?: string;

@@ -1,18 +1,27 @@
 /**
- * Compare two runs' results: how the rankings, the fitted coefficients and the bound constants
- * moved. Flags are deliberately conservative: a rank change counts only when the two runs'
- * intervals do not overlap (inside the intervals it is noise), a coefficient only when the new
- * estimate leaves the old 95% interval, and a bound constant whenever it grew.
+ * Compare two runs' results with both runs' uncertainty: for every ranked quantity, fitted
+ * coefficient and coefficient of the best searched formula, the difference B − A with its interval
+ * (differenceOf: half-widths combined as √(h_A² + h_B²)); a difference is flagged only when that
+ * interval excludes 0, otherwise the two are reported "consistent". The held-out skill is compared
+ * through its per-repeat values (Student-t interval of each mean). A bound constant is a maximum
+ * (or minimum) over rows, not an estimate: a constant that grew means B's table has a row beyond
+ * A's bound — a real failure of A's statement on B's rows — and is always flagged.
  */
+import { differenceOf, meanEstimate, type Difference, type Estimate } from './difference.ts';
 
-interface RankEntry { feature: string; score: number; low: number; high: number }
+interface RankEntry { feature: string; score: number; low: number; high: number; aboveNoise?: boolean }
 interface FitTerm { term: string; coef: number; low: number; high: number }
+interface SearchCand { terms: string[]; coefs: number[]; low: number[]; high: number[]; intercept: { coef: number; low: number; high: number }; heldOutRmse: number; formula: string }
 interface ComparableResults {
   input?: { path?: string; sha256?: string; rows?: number };
-  rank?: { target?: string; model?: { metric?: string; score?: number }; ranking?: RankEntry[] } | null;
+  rank?: { target?: string; model?: { metric?: string; score?: number; perRepeat?: number[] }; ranking?: RankEntry[]; noise?: { reference?: number } } | null;
   fits?: Array<{ target?: string; terms: FitTerm[] }>;
-  bounds?: Array<{ lhs: string; results: Array<{ rhs: string; constant: number }> }>;
+  search?: { target?: string; candidates?: SearchCand[] } | null;
+  bounds?: Array<{ lhs: string; form?: 'upper' | 'lower'; results: Array<{ rhs: string; constant: number }> }>;
 }
+
+/** A difference B − A with its interval; null fields when a side is missing. */
+type Diff = Pick<Difference, 'difference' | 'low' | 'high' | 'consistent'>;
 
 export interface RankMove {
   feature: string;
@@ -20,7 +29,11 @@ export interface RankMove {
   rankB: number | null;
   scoreA: number | null;
   scoreB: number | null;
-  /** true when the rank changed and the two intervals do not overlap */
+  diff: Diff | null;
+  /** Above the noise level in each run (undefined when a run had no probes). */
+  aboveNoiseA?: boolean;
+  aboveNoiseB?: boolean;
+  /** true when the difference interval excludes 0, or the quantity is ranked in one run only */
   flagged: boolean;
 }
 
@@ -31,7 +44,25 @@ export interface CoefMove {
   coefB: number | null;
   lowA: number | null;
   highA: number | null;
-  /** true when the new estimate lies outside the old 95% interval (or a term appeared/vanished) */
+  lowB: number | null;
+  highB: number | null;
+  diff: Diff | null;
+  /** true when the difference interval excludes 0 (or the term is in one run only) */
+  flagged: boolean;
+}
+
+export interface SearchMove {
+  target: string;
+  formulaA: string | null;
+  formulaB: string | null;
+  /** Both runs' best formulas use the same terms. */
+  sameTerms: boolean;
+  /** Where A's best formula (by its terms) stands among B's candidates (1-based), or null. */
+  rankOfAInB: number | null;
+  heldOutRmseA: number | null;
+  heldOutRmseB: number | null;
+  /** With the same terms: intercept and each coefficient compared. */
+  coefficients: CoefMove[];
   flagged: boolean;
 }
 
@@ -42,24 +73,83 @@ export interface ConstantMove {
   constantB: number | null;
   /** relative change (B − A)/|A| */
   change: number | null;
-  /** true when the constant grew */
+  /** true when B's constant lies beyond A's (grew for an upper bound, shrank for a lower one): A's bound fails on B's rows */
   flagged: boolean;
 }
 
 export interface Comparison {
   inputA: { path?: string; sha256?: string; rows?: number };
   inputB: { path?: string; sha256?: string; rows?: number };
-  skill: { metric: string; a: number | null; b: number | null } | null;
+  skill: { metric: string; a: number | null; b: number | null; diff: Diff | null } | null;
   ranking: RankMove[];
   coefficients: CoefMove[];
+  search: SearchMove | null;
   constants: ConstantMove[];
   flags: string[];
+  /** How differences are judged, in words. */
+  rule: string;
 }
+
+export const COMPARE_RULE =
+  'difference B − A with interval ±√(h_A² + h_B²) from the two runs\' interval half-widths (Altman & Bland 2003); ' +
+  '"consistent" when that interval contains 0; conservative when both runs share rows';
 
 function rankMap(r: RankEntry[] | undefined): Map<string, { rank: number; e: RankEntry }> {
   const m = new Map<string, { rank: number; e: RankEntry }>();
   (r ?? []).forEach((e, i) => m.set(e.feature, { rank: i + 1, e }));
   return m;
+}
+
+const est = (estimate: number, low: number, high: number): Estimate => ({ estimate, low, high });
+
+function coefMove(fit: string, term: string, a: Estimate | undefined, b: Estimate | undefined): CoefMove {
+  const diff = a && b ? differenceOf(a, b) : null;
+  return {
+    fit,
+    term,
+    coefA: a?.estimate ?? null,
+    coefB: b?.estimate ?? null,
+    lowA: a?.low ?? null,
+    highA: a?.high ?? null,
+    lowB: b?.low ?? null,
+    highB: b?.high ?? null,
+    diff,
+    flagged: !a || !b || diff!.consistent === false,
+  };
+}
+
+function coefFlag(c: CoefMove, where: string): string {
+  if (c.coefA === null || c.coefB === null) return `${where}: term '${c.term}' present in only one run`;
+  return `${where}: coefficient of '${c.term}' moved from ${fmt(c.coefA)} to ${fmt(c.coefB)}; difference ${fmtDiff(c.diff)} excludes 0`;
+}
+
+function compareSearch(a: ComparableResults['search'], b: ComparableResults['search']): SearchMove | null {
+  const ca = a?.candidates?.[0];
+  const cb = b?.candidates?.[0];
+  if (!ca && !cb) return null;
+  const key = (c: SearchCand) => [...c.terms].sort().join('\u0000');
+  const sameTerms = Boolean(ca && cb && key(ca) === key(cb));
+  const pos = ca && b?.candidates ? b.candidates.findIndex((c) => key(c) === key(ca)) : -1;
+  const target = a?.target ?? b?.target ?? '';
+  const coefficients: CoefMove[] = [];
+  if (sameTerms) {
+    coefficients.push(coefMove(target, '1', est(ca!.intercept.coef, ca!.intercept.low, ca!.intercept.high), est(cb!.intercept.coef, cb!.intercept.low, cb!.intercept.high)));
+    ca!.terms.forEach((t, j) => {
+      const k = cb!.terms.indexOf(t);
+      coefficients.push(coefMove(target, t, est(ca!.coefs[j]!, ca!.low[j]!, ca!.high[j]!), est(cb!.coefs[k]!, cb!.low[k]!, cb!.high[k]!)));
+    });
+  }
+  return {
+    target,
+    formulaA: ca?.formula ?? null,
+    formulaB: cb?.formula ?? null,
+    sameTerms,
+    rankOfAInB: pos >= 0 ? pos + 1 : null,
+    heldOutRmseA: ca?.heldOutRmse ?? null,
+    heldOutRmseB: cb?.heldOutRmse ?? null,
+    coefficients,
+    flagged: !sameTerms || coefficients.some((c) => c.flagged),
+  };
 }
 
 export function compareRuns(a: ComparableResults, b: ComparableResults): Comparison {
@@ -70,18 +160,22 @@ export function compareRuns(a: ComparableResults, b: ComparableResults): Compari
   const ranking: RankMove[] = features.map((f) => {
     const x = ra.get(f);
     const y = rb.get(f);
-    let flagged = false;
-    if (x && y && x.rank !== y.rank) flagged = x.e.high < y.e.low || y.e.high < x.e.low;
-    if (!x || !y) flagged = true;
+    const diff = x && y ? differenceOf(est(x.e.score, x.e.low, x.e.high), est(y.e.score, y.e.low, y.e.high)) : null;
+    const flagged = !x || !y || diff!.consistent === false;
     if (flagged) {
       flags.push(
         !x || !y
           ? `feature '${f}' ranked in only one run`
-          : `feature '${f}' moved from rank ${x.rank} to ${y.rank} and its intervals do not overlap ` +
-              `([${fmt(x.e.low)}, ${fmt(x.e.high)}] vs [${fmt(y.e.low)}, ${fmt(y.e.high)}])`,
+          : `feature '${f}': share ${fmt(x.e.score)} (rank ${x.rank}) → ${fmt(y.e.score)} (rank ${y.rank}); difference ${fmtDiff(diff)} excludes 0`,
       );
     }
-    return { feature: f, rankA: x?.rank ?? null, rankB: y?.rank ?? null, scoreA: x?.e.score ?? null, scoreB: y?.e.score ?? null, flagged };
+    const move: RankMove = { feature: f, rankA: x?.rank ?? null, rankB: y?.rank ?? null, scoreA: x?.e.score ?? null, scoreB: y?.e.score ?? null, diff, flagged };
+    if (x?.e.aboveNoise !== undefined) move.aboveNoiseA = x.e.aboveNoise;
+    if (y?.e.aboveNoise !== undefined) move.aboveNoiseB = y.e.aboveNoise;
+    if (move.aboveNoiseA !== undefined && move.aboveNoiseB !== undefined && move.aboveNoiseA !== move.aboveNoiseB) {
+      flags.push(`feature '${f}' is ${move.aboveNoiseA ? 'above' : 'at'} the noise level in A but ${move.aboveNoiseB ? 'above' : 'at'} it in B`);
+    }
+    return move;
   });
   ranking.sort((p, q) => (p.rankB ?? 1e9) - (q.rankB ?? 1e9));
 
@@ -95,16 +189,21 @@ export function compareRuns(a: ComparableResults, b: ComparableResults): Compari
     for (const term of terms) {
       const ta = fa?.terms.find((t) => t.term === term);
       const tb = fb?.terms.find((t) => t.term === term);
-      const flagged = !ta || !tb || tb.coef < ta.low || tb.coef > ta.high;
-      if (flagged) {
-        flags.push(
-          !ta || !tb
-            ? `fit of ${name}: term '${term}' present in only one run`
-            : `fit of ${name}: coefficient of '${term}' moved from ${fmt(ta.coef)} to ${fmt(tb.coef)}, outside the first run's 95% interval [${fmt(ta.low)}, ${fmt(ta.high)}]`,
-        );
-      }
-      coefficients.push({ fit: name, term, coefA: ta?.coef ?? null, coefB: tb?.coef ?? null, lowA: ta?.low ?? null, highA: ta?.high ?? null, flagged });
+      const c = coefMove(name, term, ta && est(ta.coef, ta.low, ta.high), tb && est(tb.coef, tb.low, tb.high));
+      if (c.flagged) flags.push(coefFlag(c, `fit of ${name}`));
+      coefficients.push(c);
     }
+  }
+
+  const search = compareSearch(a.search, b.search);
+  if (search?.flagged) {
+    if (!search.sameTerms) {
+      flags.push(
+        `search for ${search.target}: the best formula changed from ${search.formulaA ?? '(none)'} to ${search.formulaB ?? '(none)'}` +
+          (search.formulaA ? (search.rankOfAInB ? ` (A's formula is candidate ${search.rankOfAInB} in B)` : " (A's formula is not among B's candidates)") : ''),
+      );
+    }
+    for (const c of search.coefficients) if (c.flagged) flags.push(coefFlag(c, `search for ${search.target}`));
   }
 
   const constants: ConstantMove[] = [];
@@ -113,26 +212,39 @@ export function compareRuns(a: ComparableResults, b: ComparableResults): Compari
     const ba = a.bounds?.[i];
     const bb = b.bounds?.[i];
     const lhs = ba?.lhs ?? bb?.lhs ?? '';
+    const lower = (ba?.form ?? bb?.form) === 'lower';
     const rhss = [...new Set([...(ba?.results ?? []).map((r) => r.rhs), ...(bb?.results ?? []).map((r) => r.rhs)])];
     for (const rhs of rhss) {
       const x = ba?.results.find((r) => r.rhs === rhs)?.constant ?? null;
       const y = bb?.results.find((r) => r.rhs === rhs)?.constant ?? null;
       const change = x !== null && y !== null && x !== 0 ? (y - x) / Math.abs(x) : null;
-      const flagged = x !== null && y !== null && y > x;
-      if (flagged) flags.push(`bound ${lhs} ≤ c·(${rhs}): the constant grew from ${fmt(x)} to ${fmt(y)}`);
+      const flagged = x !== null && y !== null && (lower ? y < x : y > x);
+      if (flagged) {
+        flags.push(`bound ${lhs} ${lower ? '≥' : '≤'} c·(${rhs}): the constant ${lower ? 'shrank' : 'grew'} from ${fmt(x)} to ${fmt(y)}, so A's bound fails on some row of B`);
+      }
       constants.push({ lhs, rhs, constantA: x, constantB: y, change, flagged });
     }
   }
 
   const metric = a.rank?.model?.metric ?? b.rank?.model?.metric;
+  let skill: Comparison['skill'] = null;
+  if (metric) {
+    const pa = a.rank?.model?.perRepeat;
+    const pb = b.rank?.model?.perRepeat;
+    const diff = pa?.length && pb?.length ? differenceOf(meanEstimate(pa), meanEstimate(pb)) : null;
+    skill = { metric, a: a.rank?.model?.score ?? null, b: b.rank?.model?.score ?? null, diff };
+    if (diff?.consistent === false) flags.push(`held-out ${metric}: ${fmt(skill.a)} → ${fmt(skill.b)}; difference ${fmtDiff(diff)} excludes 0`);
+  }
   return {
     inputA: a.input ?? {},
     inputB: b.input ?? {},
-    skill: metric ? { metric, a: a.rank?.model?.score ?? null, b: b.rank?.model?.score ?? null } : null,
+    skill,
     ranking,
     coefficients,
+    search,
     constants,
     flags,
+    rule: COMPARE_RULE,
   };
 }
 
@@ -141,9 +253,30 @@ function fmt(x: number | null | undefined): string {
   return Number(x.toPrecision(4)).toString();
 }
 
+function fmtDiff(d: Diff | null): string {
+  if (!d) return '-';
+  const sign = d.difference >= 0 ? '+' : '';
+  return Number.isFinite(d.low) ? `${sign}${fmt(d.difference)} [${fmt(d.low)}, ${fmt(d.high)}]` : `${sign}${fmt(d.difference)} (no interval)`;
+}
+
+function verdict(d: Diff | null, flagged: boolean): string {
+  if (flagged) return '<< differs';
+  if (!d || d.consistent === null) return '';
+  return 'consistent';
+}
+
 function table(rows: string[][]): string {
   const widths = rows[0]!.map((_, j) => Math.max(...rows.map((r) => r[j]!.length)));
   return rows.map((r) => r.map((c, j) => c.padEnd(widths[j]!)).join('  ').trimEnd()).join('\n');
+}
+
+const iv = (low: number | null, high: number | null) => (low === null ? '-' : `[${fmt(low)}, ${fmt(high)}]`);
+
+function coefRows(cs: CoefMove[], withFit: boolean): string[][] {
+  return [
+    [...(withFit ? ['fit'] : []), 'term', 'A', 'interval A', 'B', 'interval B', 'B − A [interval]', ''],
+    ...cs.map((r) => [...(withFit ? [r.fit] : []), r.term, fmt(r.coefA), iv(r.lowA, r.highA), fmt(r.coefB), iv(r.lowB, r.highB), fmtDiff(r.diff), verdict(r.diff, r.flagged)]),
+  ];
 }
 
 /** The comparison as aligned text, side by side. */
@@ -151,23 +284,33 @@ export function formatComparison(c: Comparison): string {
   const out: string[] = [];
   out.push(`A: ${c.inputA.path ?? '?'} (${c.inputA.rows ?? '?'} rows, sha256 ${String(c.inputA.sha256 ?? '?').slice(0, 12)})`);
   out.push(`B: ${c.inputB.path ?? '?'} (${c.inputB.rows ?? '?'} rows, sha256 ${String(c.inputB.sha256 ?? '?').slice(0, 12)})`);
-  if (c.skill) out.push(`held-out ${c.skill.metric}: A ${fmt(c.skill.a)}  B ${fmt(c.skill.b)}`);
+  out.push(`rule: ${c.rule}`);
+  if (c.skill) out.push(`held-out ${c.skill.metric}: A ${fmt(c.skill.a)}  B ${fmt(c.skill.b)}  B − A ${fmtDiff(c.skill.diff)}${c.skill.diff?.consistent ? '  consistent' : ''}`);
   if (c.ranking.length) {
-    out.push('', 'ranking');
-    out.push(table([['feature', 'rank A', 'rank B', 'score A', 'score B', ''],
-      ...c.ranking.map((r) => [r.feature, String(r.rankA ?? '-'), String(r.rankB ?? '-'), fmt(r.scoreA), fmt(r.scoreB), r.flagged ? '<< moved' : ''])]));
+    const noise = c.ranking.some((r) => r.aboveNoiseA !== undefined || r.aboveNoiseB !== undefined);
+    const nz = (v: boolean | undefined) => (v === undefined ? '-' : v ? 'above' : 'at');
+    out.push('', 'ranking (shares)');
+    out.push(table([['feature', 'rank A', 'rank B', 'share A', 'share B', 'B − A [interval]', ...(noise ? ['noise A/B'] : []), ''],
+      ...c.ranking.map((r) => [r.feature, String(r.rankA ?? '-'), String(r.rankB ?? '-'), fmt(r.scoreA), fmt(r.scoreB), fmtDiff(r.diff), ...(noise ? [`${nz(r.aboveNoiseA)}/${nz(r.aboveNoiseB)}`] : []), verdict(r.diff, r.flagged)])]));
   }
   if (c.coefficients.length) {
-    out.push('', 'coefficients');
-    out.push(table([['fit', 'term', 'A', 'B', '95% interval (A)', ''],
-      ...c.coefficients.map((r) => [r.fit, r.term, fmt(r.coefA), fmt(r.coefB), r.lowA === null ? '-' : `[${fmt(r.lowA)}, ${fmt(r.highA)}]`, r.flagged ? '<< moved' : ''])]));
+    out.push('', 'fitted coefficients');
+    out.push(table(coefRows(c.coefficients, true)));
+  }
+  if (c.search) {
+    const s = c.search;
+    out.push('', `formula search for ${s.target}`);
+    out.push(`  best in A: ${s.formulaA ?? '(none)'}   held-out RMSE ${fmt(s.heldOutRmseA)}`);
+    out.push(`  best in B: ${s.formulaB ?? '(none)'}   held-out RMSE ${fmt(s.heldOutRmseB)}`);
+    if (s.sameTerms) out.push(table(coefRows(s.coefficients, false)));
+    else out.push(`  different terms${s.formulaA ? (s.rankOfAInB ? `; A's formula is candidate ${s.rankOfAInB} in B` : "; A's formula is not among B's candidates") : ''}`);
   }
   if (c.constants.length) {
-    out.push('', 'bound constants');
+    out.push('', 'bound constants (a maximum over rows: a larger c* in B means A\'s bound fails on some row of B)');
     out.push(table([['lhs', 'rhs', 'c* A', 'c* B', 'change', ''],
-      ...c.constants.map((r) => [r.lhs, r.rhs, fmt(r.constantA), fmt(r.constantB), r.change === null ? '-' : `${(r.change * 100).toFixed(1)}%`, r.flagged ? '<< grew' : ''])]));
+      ...c.constants.map((r) => [r.lhs, r.rhs, fmt(r.constantA), fmt(r.constantB), r.change === null ? '-' : `${(r.change * 100).toFixed(1)}%`, r.flagged ? '<< grew past A' : 'A holds on B'])]));
   }
-  out.push('', c.flags.length ? `${c.flags.length} change(s) flagged:` : 'nothing flagged: every move is inside the first run\'s intervals.');
+  out.push('', c.flags.length ? `${c.flags.length} difference(s) flagged:` : 'nothing flagged: every difference is consistent with both runs\' uncertainty.');
   for (const f of c.flags) out.push(`  - ${f}`);
   return out.join('\n') + '\n';
 }

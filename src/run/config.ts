@@ -12,6 +12,7 @@ import type { IntegerRange } from '../util/integer.ts';
 import { RANK_LIMITS } from '../attribute/limits.ts';
 import { RELATE_LIMITS } from '../relate/limits.ts';
 import { BOUND_LIMITS } from '../bound/find.ts';
+import { RESIDUAL_LIMITS } from './residual.ts';
 
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
 const count = (r: IntegerRange) => z.number().int().min(r.min).max(r.max);
@@ -37,12 +38,16 @@ const AttributionSchema = z.strictObject({
   seeds: count(RANK_LIMITS.seeds).default(3),
   folds: count(RANK_LIMITS.folds).default(0),
   dropTop: count(RANK_LIMITS.dropTop).default(0),
+  /** Noise probes per repeat (attribute/probes.ts). */
+  probes: count(RANK_LIMITS.probes).default(6),
 });
 
 const FitSchema = z.strictObject({
   target: exprString,
   terms: listOf(exprString, 1),
   intercept: z.boolean().default(true),
+  /** Terms measured with error (errors-in-variables): the fit says their slopes are attenuated. */
+  noisy: listOf(exprString).default([]),
 });
 
 const SearchSchema = z.strictObject({
@@ -51,6 +56,17 @@ const SearchSchema = z.strictObject({
   maxTerms: count(RELATE_LIMITS.maxTerms).default(2),
   powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
   top: count(RELATE_LIMITS.top).default(10),
+});
+
+/** Residual ranking: fit, then rank the remaining columns on what the fit leaves over (run/residual.ts). */
+const ResidualSchema = z.strictObject({
+  target: exprString,
+  terms: listOf(exprString, 1),
+  intercept: z.boolean().default(true),
+  from: listOf(z.string().min(1), 1).optional(),
+  absolute: z.boolean().default(true),
+  maxTerms: count(RESIDUAL_LIMITS.maxTerms).default(1),
+  powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
 });
 
 const BoundSchema = z.strictObject({
@@ -77,6 +93,7 @@ export const RunConfigSchema = z.strictObject({
   attribution: AttributionSchema.prefault({}),
   fits: z.array(FitSchema).default([]),
   search: SearchSchema.optional(),
+  residual: ResidualSchema.optional(),
   bounds: z.array(BoundSchema).default([]),
   output: z.string().min(1).default('surmise-run'),
 });
@@ -90,6 +107,7 @@ const KNOWN_KEYS: Record<string, readonly string[]> = {
   attribution: Object.keys(AttributionSchema.shape),
   fits: Object.keys(FitSchema.shape),
   search: Object.keys(SearchSchema.shape),
+  residual: Object.keys(ResidualSchema.shape),
   bounds: Object.keys(BoundSchema.shape),
 };
 

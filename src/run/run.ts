@@ -12,6 +12,8 @@ import { VERSION } from '../version.ts';
 import { deriveColumn, evaluateExpression, readTable, type Table } from '../table/index.ts';
 import { formatColumnName } from '../table/expr/format.ts';
 import { rankFeatures, type RankProgress, type RankResult } from '../attribute/rank.ts';
+import { describeProbes } from '../attribute/probes.ts';
+import { residualRanking, type ResidualResult } from './residual.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchResult } from '../relate/search.ts';
 import { findBound, type BoundResult } from '../bound/find.ts';
@@ -56,6 +58,8 @@ export interface RunResults {
   rank: RankResult | null;
   fits: FitResult[];
   search: SearchResult | null;
+  /** Residual ranking (config `residual`), or null. */
+  residual: ResidualResult | null;
   bounds: BoundResult[];
   evidence: string;
 }
@@ -206,6 +210,7 @@ function buildReportInput(
     if (rank.confusion) input.rank.confusion = { classes: rank.confusion.classes, counts: rank.confusion.counts };
     const lead = rank.dependence?.find((d) => d.feature === rank.ranking[0]?.feature);
     if (lead) input.rank.dependence = lead;
+    if (rank.noise) input.rank.noise = { probes: describeProbes(rank.noise.probes), reference: rank.noise.reference };
     // target against the top feature, coloured by the second
     const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
     if (top.length >= 1) {
@@ -269,6 +274,23 @@ function buildReportInput(
       selectionRows: search.selectionRows,
       heldOutRows: search.heldOutRows,
       notes: search.notes,
+    };
+  }
+  if (results.residual) {
+    const rr = results.residual;
+    const noiseOf = (r: RankResult) => (r.noise ? { noise: { probes: describeProbes(r.noise.probes), reference: r.noise.reference } } : {});
+    input.residual = {
+      target: rr.fit.target,
+      fit: `${rr.fit.target} ≈ ${rr.fit.terms.map((t) => `${Number(t.coef.toPrecision(6))}${t.term === '1' ? '' : `·${t.term}`}`).join(' + ')}`,
+      r2: rr.fit.r2,
+      rmse: rr.fit.rmse,
+      residualName: rr.residualName,
+      features: rr.features,
+      ranking: rr.ranking.ranking,
+      ...noiseOf(rr.ranking),
+      ...(rr.absolute ? { absolute: { ranking: rr.absolute.ranking, ...noiseOf(rr.absolute) } } : {}),
+      next: rr.next?.proposal ? { from: rr.next.from, formula: rr.next.proposal.formula, heldOutRmse: rr.next.proposal.heldOutRmse, nextTerms: rr.next.nextTerms! } : null,
+      notes: rr.notes,
     };
   }
   if (bounds.length) {
@@ -341,6 +363,11 @@ function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string
   config.fits.forEach((f, i) => {
     expr(['fits', i, 'target'], f.target);
     f.terms.forEach((t, j) => expr(['fits', i, 'terms', j], t));
+    f.noisy.forEach((t, j) => {
+      if (!f.terms.some((u) => u.replace(/\s+/g, '') === t.replace(/\s+/g, ''))) {
+        throw new SurmiseError('config.badValue', `${at(['fits', i, 'noisy', j])}: fits[${i}].noisy[${j}]: '${t}' is not one of this fit's terms (${f.terms.join('; ')})`);
+      }
+    });
   });
   if (config.search) {
     expr(['search', 'target'], config.search.target);
@@ -352,6 +379,13 @@ function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string
       }
     });
     inConfig(['search', 'powers'], at, () => parsePowers(config.search!.powers));
+  }
+  if (config.residual) {
+    const r = config.residual;
+    expr(['residual', 'target'], r.target);
+    r.terms.forEach((t, j) => expr(['residual', 'terms', j], t));
+    r.from?.forEach((c, j) => expr(['residual', 'from', j], c));
+    inConfig(['residual', 'powers'], at, () => parsePowers(r.powers));
   }
   config.bounds.forEach((b, i) => {
     expr(['bounds', i, 'lhs'], b.lhs);
@@ -404,13 +438,14 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     engine: opts.engine ?? config.network.engine,
     seed: config.seed,
     dropTop: config.attribution.dropTop,
+    probes: config.attribution.probes,
     ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
   });
   timings.rank = seconds(t0);
 
   stage('fitting relations');
   t0 = performance.now();
-  const fits = config.fits.map((f) => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed }));
+  const fits = config.fits.map((f) => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed, noisyTerms: f.noisy }));
   timings.fit = seconds(t0);
 
   let search: SearchResult | null = null;
@@ -427,6 +462,33 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
       ...(opts.onSearchProgress ? { progress: opts.onSearchProgress } : {}),
     });
     timings.search = seconds(t0);
+  }
+
+  let residual: ResidualResult | null = null;
+  if (config.residual) {
+    const rc = config.residual;
+    stage('ranking what the fit leaves over');
+    t0 = performance.now();
+    residual = await residualRanking(table, {
+      target: rc.target,
+      terms: rc.terms,
+      intercept: rc.intercept,
+      ...(rc.from ? { from: rc.from } : {}),
+      absolute: rc.absolute,
+      rank: {
+        methods: config.attribution.methods,
+        seeds: config.attribution.seeds,
+        folds: config.attribution.folds,
+        split: config.split,
+        hidden: config.network.hidden,
+        epochs: config.network.epochs,
+        probes: config.attribution.probes,
+      },
+      search: { maxTerms: rc.maxTerms, powers: parsePowers(rc.powers) },
+      seed: config.seed,
+      ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
+    });
+    timings.residual = seconds(t0);
   }
 
   stage('testing bounds');
@@ -453,6 +515,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     rank,
     fits,
     search,
+    residual,
     bounds,
     evidence: 'These findings are statistical evidence on this table, not a proof.',
   };

@@ -24,6 +24,8 @@ describe('aggregation over repeats', () => {
   it('normalises each repeat to sum 1 (definition) and keeps negative permutation scores negative', () => {
     expect(normaliseScores([3, 1, 0])).toEqual([0.75, 0.25, 0]);
     expect(normaliseScores([2, 2, -1])).toEqual([0.5, 0.5, -0.25]);
+    // over the first two only (noise probes appended after the real groups): the third is on their scale
+    expect(normaliseScores([3, 1, 2], 2)).toEqual([0.75, 0.25, 0.5]);
   });
   it('type-7 quantile matches the textbook interpolation (Hyndman & Fan 1996)', () => {
     expect(quantileSorted([1, 2, 3, 4], 0.5)).toBe(2.5);

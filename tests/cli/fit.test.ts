@@ -37,14 +37,19 @@ describe('surmise fit (CLI)', () => {
     expect(j.terms[1]).toHaveProperty('se');
     expect(j.terms[1].low).toBeLessThan(0.5);
     expect(j.terms[1].high).toBeGreaterThan(0.5);
-    expect(j.terms[1].rational.text).toBe('1/2');
+    // 11 points leave the slope's interval ≈ [0.233, 0.767]: 1/2, 1/3, 2/3, 3/5, … all lie inside, so none is singled out (fraction rule)
+    expect(j.terms[1].rational).toBeNull();
+    expect(j.terms[1].fraction.status).toBe('several');
+    expect(j.terms[1].fraction.text).toMatch(/^several simple fractions \(/);
+    // one term: the orthogonal slope is offered beside the ordinary one, and is steeper (|b_TLS| ≥ |b_OLS|, Van Huffel & Vandewalle 1991)
+    expect(Math.abs(j.orthogonal.slope)).toBeGreaterThan(Math.abs(j.terms[1].coef));
     // the largest residual is Anscombe's point (13, 7.58), residual −1.92 (from memory; recomputed here)
     expect(j.maxAbsResidualRow.labels.name).toBe('p3');
   });
   it('human output is an aligned table with the rational column', async () => {
     const io = memoryIO(dir);
     expect(await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'x'], io)).toBe(0);
-    expect(io.out).toMatch(/^term\s+estimate\s+std\. error\s+95% interval\s+simplest rational in interval$/m);
+    expect(io.out).toMatch(/^term\s+estimate\s+std\. error\s+95% interval\s+simple fraction \(denominator ≤ 12\)$/m);
     expect(io.out).toMatch(/^x\s+0\.50009091\s+0\.1179\s+\[/m);
     expect(io.out).toMatch(/max \|residual\|\s+1\.92127 at data row 3 \(line 4\) name=p3/);
   });

@@ -47,7 +47,11 @@ describe('surmise rank', () => {
       });
     }
     expect(r.ranking).toHaveLength(7);
-    for (const e of r.ranking) expect(Object.keys(e).sort()).toEqual(['feature', 'high', 'low', 'score']);
+    for (const e of r.ranking) expect(Object.keys(e).sort()).toEqual(['aboveNoise', 'feature', 'high', 'low', 'noiseReference', 'score']);
+    // the noise level: six probes (default), their reference on every entry, probes never ranked
+    expect(r.noise.probes).toHaveLength(6);
+    for (const e of r.ranking) expect(e.noiseReference).toBe(r.noise.reference);
+    expect(r.ranking.some((e: { feature: string }) => e.feature.startsWith('probe'))).toBe(false);
     // sorted best first
     for (let i = 1; i < r.ranking.length; i++) expect(r.ranking[i - 1].score).toBeGreaterThanOrEqual(r.ranking[i].score);
     expect(Object.keys(r.methods).sort()).toEqual(['permutation', 'saliency']);
@@ -73,7 +77,9 @@ describe('surmise rank', () => {
     expect(io.out).toMatch(/constant baseline +-?\d\.\d{3}/);
     expect(io.out).toMatch(/rows: kept 800 of 800 rows; nothing dropped/);
     expect(io.out).toMatch(/network 16×16 \((native|tfjs) engine\)/);
-    expect(io.out).toMatch(/ {4}1 {2}x\d +0\.\d{3} {2}\[0\.\d{3}, 0\.\d{3}\] +█+/);
+    expect(io.out).toMatch(/ {4}1 {2}x\d +0\.\d{3} {2}\[0\.\d{3}, 0\.\d{3}\] +(above|at noise) +█+/);
+    expect(io.out).toMatch(/ {2}--- {2}noise level 0\.\d{3} \(probes' upper reference\) -+\n/);
+    expect(io.out).toMatch(/noise level: 3 permuted copies \(of x\d, x\d, x\d\) and 3 Gaussian columns trained and attributed in every repeat/);
   }, 120_000);
 
   it('a bad target exits 2 with the table layer’s message', async () => {
@@ -94,6 +100,7 @@ describe('surmise rank', () => {
       [['--split', 'kfold:1'], /kfold needs a whole number of folds >= 2/],
       [['--permutation-loss', 'entropy'], /--permutation-loss entropy: expected error or cross-entropy/],
       [['--workers', '-1'], /expected --workers to be a non-negative integer, got -1/],
+      [['--probes', '51'], /expected --probes to be at most 50 \(its ceiling\), got 51/],
       [['--engine', 'gpu'], /--engine gpu: expected one of auto, native, tfjs \[option\.badEngine\]/],
     ];
     for (const [args, re] of cases) {

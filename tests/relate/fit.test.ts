@@ -157,3 +157,31 @@ describe('crossValidatedRmse', () => {
     expect(cv.rmse).toBeCloseTo(Math.sqrt(sse / n), 10);
   });
 });
+
+describe('fitRelation: integer targets, noisy regressors, one-term orthogonal slope', () => {
+  it('an integer target: the rounded fit is exactly right on every row when y = 2a − b holds exactly (least squares reproduces an exact linear law)', () => {
+    const rng = new Rng(4);
+    const a = Float64Array.from({ length: 60 }, () => rng.int(10));
+    const b = Float64Array.from({ length: 60 }, () => rng.int(7));
+    const y = Float64Array.from(a, (v, i) => 2 * v - b[i]!);
+    const r = fitRelation(makeTable({ a, b, y }), { target: 'y', terms: ['a', 'b'] });
+    expect(r.roundedExact).toEqual({ fitted: 1, heldOut: null });
+    // with noise of SD 1 a rounded prediction is right only when |noise| < ½ about: P ≈ 0.38 (normal table, 2Φ(½) − 1)
+    const yn = Float64Array.from(y, (v) => v + Math.round(rng.normal()));
+    const rn = fitRelation(makeTable({ a, b, y: yn }), { target: 'y', terms: ['a', 'b'] });
+    expect(rn.roundedExact!.fitted).toBeLessThan(0.8);
+    // a real-valued target gets no hit rate
+    expect(fitRelation(makeTable({ a, b, y: Float64Array.from(y, (v) => v + 0.25) }), { target: 'y', terms: ['a', 'b'] }).roundedExact).toBeUndefined();
+  });
+  it('a noisy term is named with the attenuation note; an unknown one is refused', () => {
+    const rng = new Rng(6);
+    const x = Float64Array.from({ length: 50 }, () => rng.normal());
+    const y = Float64Array.from(x, (v) => 3 * v + rng.normal());
+    const r = fitRelation(makeTable({ x, y }), { target: 'y', terms: ['x'], noisyTerms: ['x'] });
+    expect(r.errorsInVariables!.text).toMatch(/^'x' is measured with error: least squares biases its slope toward 0 .*attenuation, errors-in-variables; Fuller/);
+    expect(r.orthogonal!.term).toBe('x');
+    expect(() => fitRelation(makeTable({ x, y }), { target: 'y', terms: ['x'], noisyTerms: ['z'] })).toThrow(/noisy term 'z' is not one of the fitted terms \(x\)/);
+    // two terms: no orthogonal line (a single-term offer only)
+    expect(fitRelation(makeTable({ x, y, z: Float64Array.from(x, (v) => v * v) }), { target: 'y', terms: ['x', 'z'] }).orthogonal).toBeUndefined();
+  });
+});

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import Fraction from 'fraction.js';
 import fc from 'fast-check';
-import { simplestRational, convergents } from '../../src/relate/rational.ts';
+import { simplestRational, convergents, simpleFraction } from '../../src/relate/rational.ts';
 
 describe('convergents (Khinchin, "Continued Fractions", ch. I)', () => {
   it('π: 3, 22/7, 333/106, 355/113 (π = [3; 7, 15, 1, 292, …], from memory)', () => {
@@ -60,5 +60,34 @@ describe('simplestRational (Stern–Brocot; Graham, Knuth & Patashnik, Concrete 
   it('empty or infinite intervals give null', () => {
     expect(simplestRational(1, 0)).toBeNull();
     expect(simplestRational(NaN, 1)).toBeNull();
+  });
+});
+
+describe('simpleFraction: shown only when one fraction with denominator ≤ 12 lies in the interval (our rule, checked by brute force)', () => {
+  it('[0.4957, 0.5017] → 1/2; 25/51 and 110/221 are not shown: "no simple fraction" (the issue\'s examples)', () => {
+    expect(simpleFraction(0.4957, 0.5017)).toEqual({ status: 'one', rational: { num: 1, den: 2, text: '1/2' }, text: '1/2' });
+    expect(simpleFraction(25 / 51 - 1e-4, 25 / 51 + 1e-4).text).toBe('no simple fraction');
+    expect(simpleFraction(110 / 221 - 1e-5, 110 / 221 + 1e-5).text).toBe('no simple fraction');
+  });
+  it('a wide interval holds several and picks none; an interval wider than 1 always does', () => {
+    const s = simpleFraction(0.45, 0.7);
+    expect(s.status).toBe('several');
+    expect(s.rational).toBeNull();
+    expect(simpleFraction(2, 3.5).status).toBe('several');
+    expect(simpleFraction(-0.01, 0.02).text).toBe('0');
+    expect(simpleFraction(-2.02, -1.99).text).toBe('-2');
+  });
+  it('agrees with brute force over every p/q, q ≤ 12, reduced by fraction.js (fast-check, general-purpose library)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -5, max: 5, noNaN: true }), fc.double({ min: 0, max: 0.3, noNaN: true }), (lo, w) => {
+        const hi = lo + w;
+        const inside = new Set<string>();
+        for (let q = 1; q <= 12; q++) for (let p = Math.ceil(lo * q) - 1; p <= Math.floor(hi * q) + 1; p++) if (p / q >= lo && p / q <= hi) inside.add(new Fraction(p, q).toFraction());
+        const r = simpleFraction(lo, hi);
+        if (inside.size === 1) return r.status === 'one' && r.rational!.num / r.rational!.den === new Fraction([...inside][0]!).valueOf();
+        return r.status === (inside.size === 0 ? 'none' : 'several');
+      }),
+      { numRuns: 2000, seed: 13 },
+    );
   });
 });

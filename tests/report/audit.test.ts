@@ -139,3 +139,55 @@ describe('plot subtitles wrap instead of being cut', () => {
     for (const l of spec.title.subtitle) expect(l.length).toBeLessThanOrEqual(subtitleChars(420));
   });
 });
+
+describe('noise level in the report (probes: Stoppiglia et al., JMLR 3, 2003)', () => {
+  it('marks each quantity above or at noise and states the probes and their reference', async () => {
+    const mark = (f: ReturnType<typeof iv>, aboveNoise: boolean) => ({ ...f, aboveNoise });
+    const r = rank([mark(iv('a', 0.6, 0.55, 0.65), true), mark(iv('b', 0.3, 0.25, 0.35), true), mark(iv('c', 0.1, 0.02, 0.12), false)], {
+      noise: { probes: '3 permuted copies (of a, b, c) and 3 Gaussian columns', reference: 0.05 },
+    });
+    const md = (await renderReport({ ...header(), rank: r }, { png: false })).markdown;
+    expect(md).toContain('| rank | quantity | score | low | high | vs noise |');
+    expect(md).toMatch(/\| 3 \| `c` \| 0\.1 \| 0\.02 \| 0\.12 \| at noise \|/);
+    expect(md).toMatch(/\| 1 \| `a` \| 0\.6 \| 0\.55 \| 0\.65 \| above \|/);
+    expect(md).toContain('Noise level: 3 permuted copies (of a, b, c) and 3 Gaussian columns were trained');
+    expect(md).toContain('2 of 3 quantities have their whole interval above it');
+    // without probes the table keeps its five columns
+    const plain = (await renderReport({ ...header(), rank: rank([iv('a', 1, 0.9, 1)]) }, { png: false })).markdown;
+    expect(plain).toContain('| rank | quantity | score | low | high |\n');
+    expect(plain).not.toContain('Noise level');
+  });
+});
+
+describe('residual section (what the first fit leaves over)', () => {
+  it('shows the fit, the residual ranking with its noise line, |residual|, and the next term', async () => {
+    const above = (f: ReturnType<typeof iv>, aboveNoise: boolean) => ({ ...f, aboveNoise });
+    const md = (
+      await renderReport(
+        {
+          ...header(),
+          residual: {
+            target: 'y',
+            fit: 'y ≈ 0.1 + 3·a^2',
+            r2: 0.999,
+            rmse: 0.02,
+            residualName: 'residual',
+            features: ['b', 'c'],
+            ranking: [above(iv('b', 0.9, 0.85, 0.95), true), above(iv('c', 0.1, 0.05, 0.15), false)],
+            noise: { probes: '1 permuted copy (of b) and 1 Gaussian column', reference: 0.16 },
+            absolute: { ranking: [above(iv('b', 0.8, 0.7, 0.9), true), above(iv('c', 0.2, 0.1, 0.3), false)] },
+            next: { from: ['b'], formula: '-0.1 + 0.05*b^2', heldOutRmse: 0.005, nextTerms: ['a^2', 'b^2'] },
+            notes: [],
+          },
+        },
+        { png: false },
+      )
+    ).markdown;
+    expect(md).toContain('## What the fit leaves over');
+    expect(md).toContain('After the fit `y ≈ 0.1 + 3·a^2` (R² 0.999, RMSE 0.02)');
+    expect(md).toMatch(/\| 1 \| `b` \| 0\.9 \| 0\.85 \| 0\.95 \| above \|/);
+    expect(md).toContain('1 of 2 quantities have their whole interval above it');
+    expect(md).toContain('The size of the error, `|residual|`');
+    expect(md).toContain('Fit next with the terms `a^2; b^2`.');
+  });
+});

@@ -64,6 +64,20 @@ describe('run configuration', () => {
     });
   });
 
+  it('residual: defaults filled; probes and maxTerms have ceilings, refused at their key', () => {
+    const { config } = parseConfig('table: a.csv\ntarget: y\nresidual:\n  target: y\n  terms: a^2\n', 'cfg.yaml');
+    expect(config.residual).toEqual({ target: 'y', terms: ['a^2'], intercept: true, absolute: true, maxTerms: 1, powers: '-3..3' });
+    expect(config.attribution.probes).toBe(6);
+    expect(refusal('table: a.csv\ntarget: y\nattribution:\n  probes: 51\n')).toEqual({
+      code: 'option.tooLarge',
+      message: 'cfg.yaml:4:11: attribution.probes: expected at most 50 (its ceiling), got 51',
+    });
+    expect(refusal('table: a.csv\ntarget: y\nresidual:\n  target: y\n  terms: [a]\n  maxTerm: 2\n')).toEqual({
+      code: 'config.unknownKey',
+      message: "cfg.yaml:6:3: unknown key 'residual.maxTerm' (did you mean 'maxTerms'?)",
+    });
+  });
+
   it('refuses a wrong type', () => {
     expect(refusal('table: a.csv\ntarget: sig\nnetwork:\n  hidden: 12\n')).toEqual({
       code: 'config.badValue',

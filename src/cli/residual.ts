@@ -1,0 +1,147 @@
+/**
+ * `surmise residual TABLE --target EXPR --terms "EXPR; …" [--from a,b]`: fit the formula, rank the
+ * remaining columns as predictors of what it leaves over (and of its absolute value) with the
+ * network, baselines, methods and noise level of `rank`, and propose the next term. A thin shell
+ * over residualRanking (src/run/residual.ts).
+ */
+import { resolve } from 'node:path';
+import type { Command } from 'commander';
+import type { CliIO } from './io.ts';
+import { collect, parseIntOption, parseNonNegativeInt, parsePositiveInt, rangeHelp } from './options.ts';
+import { makeProgress } from './progress.ts';
+import { SurmiseError, didYouMean } from '../errors.ts';
+import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
+import { parseDerive } from '../table/expr/derive.ts';
+import { withDerived } from '../relate/rows.ts';
+import { toJson } from '../relate/text.ts';
+import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
+import { describeProbes } from '../attribute/probes.ts';
+import { residualRanking, RESIDUAL_LIMITS, type ResidualResult } from '../run/residual.ts';
+import { RANK_LIMITS } from '../attribute/limits.ts';
+import { parseHidden, parseMethods, parseNameList, parseProbes, rankingTable } from './rank.ts';
+import { splitTerms } from './fit.ts';
+import { parsePowers } from './search.ts';
+
+interface ResidualCliOptions {
+  target: string;
+  terms: string;
+  intercept: boolean;
+  from?: string;
+  derive: string[];
+  method: string;
+  seeds: string;
+  split?: string;
+  hidden: string;
+  epochs: string;
+  seed: string;
+  probes: string;
+  workers: string;
+  absolute: boolean;
+  maxTerms: string;
+  powers: string;
+  format?: string;
+  json?: boolean;
+  progress: boolean;
+}
+
+
+const f3 = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? 'n/a' : x.toFixed(3));
+
+function rankingBlock(title: string, r: RankResult): string[] {
+  const L = [`${title}: network R² ${f3(r.model.score)} on held-out rows (ridge ${f3(r.model.baselines.ridge.score)}, constant ${f3(r.model.baselines.constant.score)})`];
+  if (r.model.score <= Math.max(r.model.baselines.ridge.score, r.model.baselines.constant.score)) L.push('  the network does not beat the baselines: little of it is predictable from these columns');
+  L.push(...rankingTable(r.ranking, Math.round(r.interval.level * 100), r.noise?.reference));
+  if (r.noise) L.push(`  noise level from ${describeProbes(r.noise.probes)}; ${r.ranking.filter((e) => e.aboveNoise).length} of ${r.ranking.length} columns above it`);
+  return L;
+}
+
+/** The human-readable report of a residual ranking. */
+export function formatResidual(r: ResidualResult, source: string): string {
+  const L: string[] = [];
+  const fitted = r.fit.terms.map((t) => `${t.coef.toPrecision(6)}${t.term === '1' ? '' : `·${t.term}`}`).join(' + ');
+  L.push(`surmise residual: ${r.fit.target} ≈ ${fitted} on ${r.fit.n} rows of ${source} (R² ${r.fit.r2.toFixed(6)}, RMSE ${r.fit.rmse.toPrecision(4)})`);
+  L.push(`what is left over, ${r.residualName} = ${r.fit.target} − fit, ranked against ${r.features.length} remaining column${r.features.length === 1 ? '' : 's'}: ${r.features.join(', ')}`);
+  for (const n of r.notes) L.push(`note: ${n}`);
+  L.push('', ...rankingBlock(`${r.residualName}`, r.ranking));
+  if (r.absolute) L.push('', ...rankingBlock(`|${r.residualName}| (the size of the error, for bounds)`, r.absolute));
+  L.push('');
+  if (r.next?.proposal) {
+    const p = r.next.proposal;
+    L.push(`next term (search over ${r.next.from.join(', ')}; best by selection BIC): ${r.residualName} ≈ ${p.formula}`);
+    p.terms.forEach((t, j) => L.push(`  ${t}: ${p.coefs[j]!.toPrecision(6)} [${p.low[j]!.toPrecision(4)}, ${p.high[j]!.toPrecision(4)}]`));
+    L.push(`  held-out RMSE of the residual with it ${p.heldOutRmse.toPrecision(4)}, without it ≈ ${r.fit.rmse.toPrecision(4)} (the first fit's RMSE)`);
+    L.push(`  try: surmise fit ${source} --target "${r.fit.target}" --terms "${r.next.nextTerms!.join('; ')}"`);
+  } else L.push('next term: the search found no candidate');
+  L.push('', 'These are statistical evidence about this table, not a proof.');
+  return L.join('\n') + '\n';
+}
+
+export function registerResidual(program: Command, io: CliIO): void {
+  program
+    .command('residual')
+    .description('fit a formula, then rank the remaining columns by how well they predict what it leaves over (and its size), and propose the next term')
+    .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
+    .requiredOption('--target <expr>', 'expression the formula predicts, e.g. sig')
+    .requiredOption('--terms <list>', 'the formula\'s terms separated by ";", e.g. "vol; inj^2"')
+    .option('--no-intercept', 'fit without the constant term')
+    .option('--from <a,b>', 'rank only these columns (default: every numeric column the target and terms do not read)')
+    .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
+    .option('--method <m>', 'attribution method(s), as for rank', 'all')
+    .option('--seeds <n>', 'networks per split', String(RANK_DEFAULTS.seeds))
+    .option('--split <spec>', 'random | random:TRAIN,VALIDATION,TEST | kfold:K | where:CONDITION')
+    .option('--hidden <widths>', 'hidden layer widths', RANK_DEFAULTS.hidden.join(','))
+    .option('--epochs <n>', 'most training epochs', String(RANK_DEFAULTS.epochs))
+    .option('--seed <s>', 'the seed every other seed is derived from', String(RANK_DEFAULTS.seed))
+    .option('--probes <n>', 'noise probes per repeat (0 = none, at most 50)', String(RANK_DEFAULTS.probes))
+    .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
+    .option('--no-absolute', 'do not rank the absolute residual')
+    .option('--max-terms <k>', `most terms the next-term search adds${rangeHelp(RESIDUAL_LIMITS.maxTerms)}`, '1')
+    .option('--powers <lo..hi>', 'integer powers for the next-term search', '-3..3')
+    .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
+    .option('--json', 'print one JSON object')
+    .option('--no-progress', 'do not report progress on stderr')
+    .action(async (file: string, o: ResidualCliOptions) => {
+      if (o.format !== undefined && !TABLE_FORMATS.includes(o.format as TableFormat)) {
+        throw new SurmiseError('cli.badFormat', `--format ${o.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(o.format, TABLE_FORMATS)}`);
+      }
+      const seed = parseIntOption('--seed', o.seed);
+      if (seed < 0 || seed > 0xffffffff) throw new SurmiseError('option.badInteger', `expected --seed to be an integer in [0, 4294967295], got ${o.seed}`);
+      const maxTerms = parsePositiveInt('--max-terms', o.maxTerms, RESIDUAL_LIMITS.maxTerms.max);
+      const rank = {
+        methods: parseMethods(o.method),
+        seeds: parsePositiveInt('--seeds', o.seeds, RANK_LIMITS.seeds.max),
+        ...(o.split !== undefined ? { split: o.split } : {}),
+        hidden: parseHidden(o.hidden),
+        epochs: parsePositiveInt('--epochs', o.epochs, RANK_LIMITS.epochs.max),
+        probes: parseProbes(o.probes),
+        workers: parseNonNegativeInt('--workers', o.workers, RANK_LIMITS.workers.max),
+      };
+      const terms = splitTerms(o.terms);
+      const powers = parsePowers(o.powers);
+      const from = o.from !== undefined ? parseNameList('--from', o.from) : undefined;
+      const derive = o.derive.map((d) => {
+        const p = parseDerive(d);
+        return { name: p.name, expression: p.source };
+      });
+      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}) });
+      const table = withDerived(table0, derive);
+      const progress = makeProgress(io, 'residual', o.progress);
+      let result: ResidualResult;
+      try {
+        result = await residualRanking(table, {
+          target: o.target,
+          terms,
+          intercept: o.intercept,
+          ...(from ? { from } : {}),
+          absolute: o.absolute,
+          rank,
+          search: { maxTerms, powers },
+          seed,
+          onProgress: (e) => progress.update(e.done, e.total, `${e.ranking}: ${e.message}`),
+        });
+      } finally {
+        progress.stop();
+      }
+      io.stdout(o.json ? toJson({ source: file, ...result }) + '\n' : formatResidual(result, file));
+    });
+}
