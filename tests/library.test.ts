@@ -1,5 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { execFileSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
 const entry = fileURLToPath(new URL('../src/library.js', import.meta.url));
@@ -20,4 +21,17 @@ describe('the package entry a Node user imports', () => {
     expect(a).toBeCloseTo(3.000091, 5); // intercept, reference-checks (computed and cross-checked)
     expect(b).toBeCloseTo(0.500091, 5); // slope
   });
+
+  it("runs the README's library example from the project folder and prints what the README says", () => {
+    // the only ```js block under "## Library use"
+    const readme = readFileSync(new URL('../README.md', import.meta.url), 'utf8');
+    const section = readme.slice(readme.indexOf('## Library use'));
+    const code = /```js\n([\s\S]*?)```/.exec(section)![1]!;
+    expect(code).toContain("from 'surmise'");
+    const root = fileURLToPath(new URL('..', import.meta.url));
+    const out = execFileSync(process.execPath, ['--input-type=module', '-e', code], { encoding: 'utf8', cwd: root }).trim().split('\n');
+    // the README's "→" lines are the expected output (Seifert's algorithm: g = (c − n + 1)/2; |σ| ≤ 2g with equality for T(2,3))
+    const expected = [...code.matchAll(/\/\/ → (.*)/g)].map((m) => m[1]!.trim());
+    expect(out).toEqual(expected);
+  }, 120_000);
 });

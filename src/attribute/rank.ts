@@ -8,6 +8,7 @@
  * over methods; see consensusRanking). Free of CLI concerns: the CLI and the run stage call it.
  */
 import type { StandardizerState } from '../table/standardize.ts';
+import { dependenceGrid, partialDependence } from './dependence.ts';
 import type { Table } from '../table/types.ts';
 import { buildDataset, type Dataset, type DropReport } from '../table/dataset.ts';
 import { parseDerive } from '../table/expr/index.ts';
@@ -171,6 +172,10 @@ export interface RankResult {
   noise?: NoiseLevel;
   /** Held-out actual and predicted values of the first repeat (at most 5,000 rows, seeded sample); classification: the expected value Σ p_k·c_k. */
   predictions?: { actual: number[]; predicted: number[]; repeat: string; sampledFrom: number };
+  /** Classification: counts of held-out rows of the first repeat by actual class (rows) and most probable class (columns). */
+  confusion?: { classes: number[]; counts: number[][]; repeat: string };
+  /** Partial dependence of the first repeat's network on each feature it saw, over at most 500 held-out rows, in the feature's own units. */
+  dependence?: Array<{ feature: string; x: number[]; mean: number[] }>;
 }
 
 export interface Ablation {
@@ -181,6 +186,30 @@ export interface Ablation {
   constant: Skill;
   /** The full model's skill on the same repeats, for comparison. */
   full: Skill;
+}
+
+/** Held-out rows by actual class (rows) and predicted class (columns), classes in increasing order. */
+function confusionCounts(actual: Float64Array, predicted: Float64Array, repeat: string): NonNullable<RankResult['confusion']> {
+  const classes = [...new Set([...actual, ...predicted])].sort((a, b) => a - b);
+  const at = new Map(classes.map((c, k) => [c, k]));
+  const counts = classes.map(() => classes.map(() => 0));
+  for (let i = 0; i < actual.length; i++) counts[at.get(actual[i]!)!]![at.get(predicted[i]!)!]!++;
+  return { classes, counts, repeat };
+}
+
+/** Partial dependence on every feature of a repeat, at most 500 held-out rows and 25 grid values, mapped back to the feature's units. */
+function dependenceCurves(predict: (x: Float64Array, n: number) => Float64Array, d: RepeatData, names: readonly string[], seed: number): NonNullable<RankResult['dependence']> {
+  const p = d.kept.length;
+  const rows = subsample(d.test.n, 500, seed);
+  const x = new Float64Array(rows.length * p);
+  rows.forEach((i, k) => x.set(d.test.x.subarray(i * p, (i + 1) * p), k * p));
+  return d.kept.map((j, c) => {
+    const name = names[j]!;
+    const curve = partialDependence(predict, x, rows.length, p, c, dependenceGrid(x, rows.length, p, c, 25));
+    const s = d.standardizer.names.indexOf(name);
+    const unit = (z: number) => (s < 0 ? z : d.standardizer.mean[s]! + d.standardizer.std[s]! * z);
+    return { feature: name, x: curve.grid.map(unit), mean: curve.mean };
+  });
 }
 
 function checkOptions(o: RankOptions): void {
@@ -459,6 +488,8 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const dsProbed = probes.length ? withProbes(ds, probes, probeColumns(ds, probes, deriveSeed(seed, 'probes'))) : ds;
   const datas = plans.map((plan) => repeatData(dsProbed, plan, probes.length ? allWithProbes : all));
   let predictions: RankResult['predictions'];
+  let confusion: RankResult['confusion'];
+  let dependence: RankResult['dependence'];
   const fits = trainAll(datas, plans.map((q) => q.seed), task, { ...training, workers, integerTarget, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
@@ -497,6 +528,8 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
           repeat: label,
           sampledFrom: d.test.n,
         };
+        if (task === 'classification') confusion = confusionCounts(d.test.y, fit.net.predictClass(d.test.x, d.test.n), label);
+        dependence = dependenceCurves((x, m) => fit.net.predict(x, m), d, ds.featureNames, deriveSeed(plan.seed, 'dependence-rows'));
       }
       if (att.completeness) completeness.push(att.completeness);
       repeatsInfo.push({ seed: plan.seed, fold: plan.fold, split: plan.description, train: d.train.n, validation: d.validation.n, test: d.test.n, attributed: rows.length, constantFeatures: d.constant.filter((c) => ds.featureNames.includes(c)), standardizer: d.standardizer });
@@ -557,6 +590,8 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     };
   }
   if (predictions) result.predictions = predictions;
+  if (confusion) result.confusion = confusion;
+  if (dependence) result.dependence = dependence;
 
   if (dropTop > 0) {
     const dropped = consensus.order.slice(0, dropTop).map((k) => groups[k]!);

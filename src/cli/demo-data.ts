@@ -15,18 +15,7 @@ export function registerDemoData(program: Command, io: CliIO): void {
     .option('--out <file>', 'write to this file instead of standard output')
     .option('--force', 'replace an existing --out file')
     .option('--no-progress', 'no progress on stderr')
-    .addHelpText(
-      'after',
-      [
-        '',
-        'The bundled demo-data/knots.csv is exactly what the first example writes (a test checks it byte for byte).',
-        '',
-        'Examples:',
-        '  surmise demo-data --out demo-data/knots.csv --force',
-        '  surmise demo-data --seed 2 --out knots-seed2.csv',
-        '',
-      ].join('\n'),
-    )
+    .addHelpText('after', '\nThe bundled demo-data/knots.csv is exactly what the first example writes (a test checks it byte for byte).\n')
     .action((opts: { seed: string; out?: string; force?: boolean; progress: boolean }) => {
       const seed = parseIntOption('--seed', opts.seed);
       const progress = makeProgress(io, 'demo-data', opts.progress);

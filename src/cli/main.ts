@@ -8,6 +8,7 @@ import { SurmiseError } from '../errors.ts';
 import { type CliIO, processIO } from './io.ts';
 import { commandRegistrations } from './commands.ts';
 import { VERSION } from '../version.ts';
+import { examplesHelp } from './examples.ts';
 
 export function buildProgram(io: CliIO): Command {
   const program = new Command();
@@ -24,6 +25,8 @@ export function buildProgram(io: CliIO): Command {
     .showHelpAfterError('(run with --help for usage)');
   for (const register of commandRegistrations) register(program, io);
   for (const c of program.commands) {
+    c.addHelpText('after', examplesHelp(c.name()));
+    showDefaultsAsValues(c);
     c.exitOverride();
     c.configureOutput({ writeOut: (s) => io.stdout(s), writeErr: (s) => io.stderr(s) });
     for (const sub of c.commands) {
@@ -32,6 +35,15 @@ export function buildProgram(io: CliIO): Command {
     }
   }
   return program;
+}
+
+/** `(default: 3)` rather than `(default: "3")`: a default given as text is shown as the value it stands for. */
+function showDefaultsAsValues(c: Command): void {
+  for (const o of c.options) {
+    if (typeof o.defaultValue === 'string' && o.defaultValueDescription === undefined) o.defaultValueDescription = o.defaultValue === '' ? 'none' : o.defaultValue;
+    if (Array.isArray(o.defaultValue) && o.defaultValue.length === 0 && o.defaultValueDescription === undefined) o.defaultValueDescription = 'none';
+  }
+  for (const sub of c.commands) showDefaultsAsValues(sub);
 }
 
 /** Run the CLI on `args` (without node and script), returning the exit code. Never throws. */

@@ -13,7 +13,13 @@ export type Block =
   | { kind: 'list'; items: Inline[][] }
   | { kind: 'table'; header: string[]; rows: Inline[][]; numeric?: boolean[] }
   | { kind: 'plot'; name: string; title: string }
-  | { kind: 'code'; text: string };
+  | { kind: 'code'; text: string }
+  /** Links to the level-2 sections (ids as given to their headings). */
+  | { kind: 'toc'; items: Array<{ id: string; text: string }> }
+  /** The few figures that matter, each a label, a value and a line of detail. */
+  | { kind: 'headline'; items: Array<{ label: string; value: Inline[]; detail: Inline[] }> }
+  /** Blocks folded away under a one-line summary. */
+  | { kind: 'details'; summary: string; blocks: Block[] };
 
 export function inlineText(p: Inline): string {
   return typeof p === 'string' ? p : p.text;

@@ -1,5 +1,5 @@
 import type { Block, Inline } from './doc.ts';
-import { escapeMarkdown, markdownFence } from './escape.ts';
+import { escapeMarkdown, markdownFence, slug } from './escape.ts';
 
 function inline(p: Inline, inTable = false): string {
   if (typeof p === 'string') return escapeMarkdown(p);
@@ -30,6 +30,16 @@ function inlines(ps: Inline[]): string {
 /** The report as GitHub-flavoured Markdown; plots are referenced as `plots/<name>.svg`. */
 export function renderMarkdown(blocks: Block[]): string {
   const out: string[] = [];
+  renderBlocks(blocks, out);
+  return out.join('\n\n') + '\n';
+}
+
+/** GitHub's heading anchor: lower case, punctuation dropped, spaces to hyphens. */
+function headingAnchor(text: string): string {
+  return slug(text, 'section');
+}
+
+function renderBlocks(blocks: Block[], out: string[]): void {
   for (const b of blocks) {
     switch (b.kind) {
       case 'heading':
@@ -55,7 +65,17 @@ export function renderMarkdown(blocks: Block[]): string {
       case 'code':
         out.push(markdownFence(b.text));
         break;
+      case 'toc':
+        out.push(b.items.map((it) => `- [${escapeMarkdown(it.text)}](#${headingAnchor(it.text)})`).join('\n'));
+        break;
+      case 'headline':
+        out.push(b.items.map((it) => `- **${escapeMarkdown(it.label)}:** ${inlines(it.value)} — ${inlines(it.detail)}`).join('\n'));
+        break;
+      case 'details':
+        // Markdown has no folding without raw HTML: the summary becomes a bold line above the content
+        out.push(`**${escapeMarkdown(b.summary)}**`);
+        renderBlocks(b.blocks, out);
+        break;
     }
   }
-  return out.join('\n\n') + '\n';
 }

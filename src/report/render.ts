@@ -34,6 +34,9 @@ export function planReport(input: ReportInput, opts?: ReportOptions): { blocks: 
     ...boundsSection(input, plan, set),
     ...reproducibilitySection(input),
   ];
+  // a short table of contents after the title line: the level-2 sections
+  const toc = blocks.filter((b): b is Extract<Block, { kind: 'heading' }> => b.kind === 'heading' && b.level === 2 && b.id !== undefined);
+  if (toc.length > 2) blocks.splice(2, 0, { kind: 'toc', items: toc.map((h) => ({ id: h.id!, text: h.text })) });
   return { blocks, plan };
 }
 

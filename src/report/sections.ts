@@ -8,6 +8,7 @@ import { scatterSpec } from './plots/scatter.ts';
 import { predictionSpec } from './plots/predictions.ts';
 import { residualSpec } from './plots/residuals.ts';
 import { boundSpec } from './plots/bound.ts';
+import { dependenceSpec } from './plots/dependence.ts';
 import { plotLibraryVersions } from './render-plot.ts';
 import { deriveSeed } from '../util/rng.ts';
 
@@ -118,12 +119,50 @@ export function predictabilitySection(input: ReportInput, plan: PlotPlan, set: S
   if (r.predictions && r.predictions.actual.length > 0) {
     const title =
       r.task === 'classification'
-        ? `Network expected value of ${r.target} (Σ p_k·c_k over the classes) against the actual class`
+        ? `Network expected value of ${r.target} (Σ p_k c_k over the classes) against the actual class`
         : `Network prediction of ${r.target} against the actual value`;
     const name = plan.add('predicted-vs-actual', title, predictionSpec(r.target, r.predictions, set.maxPoints, deriveSeed(set.seed, 'report', 'predictions'), r.task));
     out.push({ kind: 'plot', name, title });
   }
+  if (r.confusion) out.push(...confusionBlocks(r.target, r.confusion));
+  if (r.dependence && r.dependence.x.length > 1) {
+    const d = r.dependence;
+    const title = `How the prediction of ${r.target} moves with ${d.feature} (partial dependence)`;
+    const name = plan.add('dependence', title, dependenceSpec(r.target, d, r.task));
+    out.push({ kind: 'plot', name, title });
+  }
   return out;
+}
+
+/**
+ * The confusion matrix in compact form: per actual class, the held-out rows, how many the network
+ * put in that class, and the class it chose most often instead.
+ */
+function confusionBlocks(target: string, c: NonNullable<NonNullable<ReportInput['rank']>['confusion']>): Block[] {
+  const rows: Inline[][] = [];
+  let right = 0;
+  let total = 0;
+  c.classes.forEach((cls, i) => {
+    const counts = c.counts[i]!;
+    const n = counts.reduce((a, b) => a + b, 0);
+    if (n === 0) return;
+    const ok = counts[i]!;
+    right += ok;
+    total += n;
+    let other = -1;
+    counts.forEach((v, j) => {
+      if (j !== i && v > 0 && (other < 0 || v > counts[other]!)) other = j;
+    });
+    rows.push([n4(cls), formatCount(n), formatCount(ok), `${Math.round((100 * ok) / n)}%`, other < 0 ? '—' : `${n4(c.classes[other]!) as string} (${formatCount(counts[other]!)})`]);
+  });
+  return [
+    { kind: 'heading', level: 3, text: 'Which classes the network gets right' },
+    {
+      kind: 'paragraph',
+      parts: [`Held-out rows of the first repeat by actual value of `, { text: target, code: true }, `: ${formatCount(right)} of ${formatCount(total)} predicted exactly (the most probable class).`],
+    },
+    { kind: 'table', header: ['actual', 'rows', 'predicted right', 'share', 'most common other prediction (rows)'], rows, numeric: [true, true, true, true, false] },
+  ];
 }
 
 function rankingTable(ranking: readonly Interval[]): Block {
@@ -158,12 +197,19 @@ export function attributionSection(input: ReportInput, plan: PlotPlan, set: Sect
   if (!r && !s) return [];
   const out: Block[] = [{ kind: 'heading', level: 2, text: 'Which quantities matter', id: 'attribution' }];
   if (r) {
-    out.push({ kind: 'paragraph', parts: ['Combined ranking over all methods, with each score’s interval:'] });
-    out.push(rankingTable(r.ranking));
+    out.push({
+      kind: 'paragraph',
+      parts: [
+        'Combined ranking over all methods: each quantity’s share of the attribution (shares add up to 1), with a bootstrap interval over rows and repeats. A quantity whose interval overlaps another’s cannot be ranked above it.',
+      ],
+    });
+    const combinedTitle = 'Combined ranking (all methods)';
+    out.push({ kind: 'plot', name: plan.add('attribution-combined', combinedTitle, attributionSpec('all methods combined', r.ranking)), title: combinedTitle });
     out.push(...noiseParagraph(r.ranking, r.noise));
+    out.push({ kind: 'details', summary: 'The combined ranking as a table', blocks: [rankingTable(r.ranking)] });
     for (const [method, m] of Object.entries(r.methods)) {
-      out.push({ kind: 'heading', level: 3, text: `Method: ${method}` });
-      out.push({
+      const inner: Block[] = [];
+      inner.push({
         kind: 'paragraph',
         parts: [
           `Agreement between this method’s repeats (Kendall τ): `,
@@ -173,8 +219,9 @@ export function attributionSection(input: ReportInput, plan: PlotPlan, set: Sect
       });
       const title = `Attribution by ${method}`;
       const name = plan.add(`attribution-${method}`, title, attributionSpec(method, m.ranking));
-      out.push({ kind: 'plot', name, title });
-      out.push(rankingTable(m.ranking));
+      inner.push({ kind: 'plot', name, title });
+      inner.push(rankingTable(m.ranking));
+      out.push({ kind: 'details', summary: `Method: ${method}`, blocks: inner });
     }
   }
   if (s && s.x.length > 0) {
@@ -286,7 +333,7 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
     out.push({
       kind: 'paragraph',
       parts: [
-        'Complexity counts 1 per column occurrence, plus (|k| − 1) for a power k, plus 1 for a division and 1 per function (x = 1, x² = 2, 1/x = 2, x·y = 2); the intercept counts 0 and a formula’s complexity is the sum over its terms.',
+        'Complexity counts 1 per column occurrence, plus (|k| − 1) for a power k, plus 1 for a division and 1 per function (x = 1, x² = 2, 1/x = 2, x*y = 2); the intercept counts 0 and a formula’s complexity is the sum over its terms.',
       ],
     });
     const front = [...search.front].sort((a, b) => a.complexity - b.complexity || a.heldOutRmse - b.heldOutRmse);
@@ -345,7 +392,7 @@ export function boundsSection(input: ReportInput, plan: PlotPlan, set: SectionSe
   const out: Block[] = [{ kind: 'heading', level: 2, text: 'Inequalities and their constants', id: 'bounds' }];
   bounds.forEach((b, i) => {
     b.results.forEach((r, j) => {
-      const stmt = `${b.lhs} ≤ c · (${r.rhs})`;
+      const stmt = `${b.lhs} ≤ c * (${r.rhs})`;
       out.push({ kind: 'heading', level: 3, text: stmt });
       out.push({
         kind: 'paragraph',

@@ -35,34 +35,12 @@ export function summaryBlocks(input: ReportInput): Block[] {
       items.push(parts);
     }
   }
-  const fits = (input.fits ?? []).filter((f) => Number.isFinite(f.cvRmse));
-  const byTarget = new Map<string, (typeof fits)[number]>();
-  for (const f of fits) {
-    const b = byTarget.get(f.target);
-    if (!b || f.cvRmse < b.cvRmse) byTarget.set(f.target, f);
-  }
-  for (const [k, f] of [...byTarget.values()].slice(0, 3).entries()) {
-    const exact = equation(f.target, f.terms, false)!;
-    const frac = equation(f.target, f.terms, true);
+  const best = bestSearchFormula(input.search);
+  if (best) {
+    const s = input.search!;
     const parts: Inline[] = [
-      'Best formula found: ',
-      { text: exact, code: true },
-      ` (R² ${formatNumber(f.r2)}, cross-validated RMSE ${formatNumber(f.cvRmse)}, n = ${f.n})`,
-    ];
-    if (frac !== null) parts.push('; with its coefficients as fractions: ', { text: frac, code: true, key: `best-formula-${k}` });
-    parts.push('.');
-    items.push(parts);
-    const real = f.warnings.filter((w) => !isRowDropNote(w));
-    if (real.length > 0) {
-      flags.push([`The fit of `, { text: f.target, code: true }, ` carries warnings: ${real.join('; ')}.`]);
-    }
-  }
-  if (byTarget.size === 0 && input.search && input.search.front.length > 0) {
-    const s = input.search;
-    const best = [...s.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse)[0]!;
-    const parts: Inline[] = [
-      'Best formula on the search front: ',
-      { text: searchFormula(s.target, best), code: true },
+      'Best formula found by the search: ',
+      { text: searchFormula(s.target, best), code: true, key: 'best-formula' },
       ` (held-out RMSE ${formatNumber(best.heldOutRmse)}${best.selectionRmse !== undefined ? `, selection RMSE ${formatNumber(best.selectionRmse)}` : ''}, complexity ${best.complexity})`,
     ];
     if (best.rationalFormula) parts.push('; with fractions: ', { text: `${s.target ?? 'target'} ≈ ${best.rationalFormula}`, code: true });
@@ -72,6 +50,21 @@ export function summaryBlocks(input: ReportInput): Block[] {
         : '.',
     );
     items.push(parts);
+  }
+  for (const f of input.fits ?? []) {
+    const parts: Inline[] = [
+      'Fit you asked for: ',
+      { text: equation(f.target, f.terms, false)!, code: true },
+      ` (R² ${formatNumber(f.r2)}, cross-validated RMSE ${formatNumber(f.cvRmse)}, n = ${formatCount(f.n)})`,
+    ];
+    const frac = equation(f.target, f.terms, true);
+    if (frac !== null) parts.push('; with its coefficients as fractions: ', { text: frac, code: true });
+    parts.push('.');
+    items.push(parts);
+    const real = f.warnings.filter((w) => !isRowDropNote(w));
+    if (real.length > 0) {
+      flags.push([`The fit of `, { text: f.target, code: true }, ` carries warnings: ${real.join('; ')}.`]);
+    }
   }
   if (r && completenessTroubled(r.completeness)) {
     flags.push([
@@ -83,7 +76,7 @@ export function summaryBlocks(input: ReportInput): Block[] {
       const w = res.witnesses[0];
       const parts: Inline[] = [
         'Tightest constant: ',
-        { text: `${b.lhs} ≤ c · (${res.rhs})`, code: true },
+        { text: `${b.lhs} ≤ c * (${res.rhs})`, code: true },
         ' holds on every row with c = ',
         { text: formatNumber(res.constant), key: `bound-${i}-${j}-constant`, strong: true },
       ];
@@ -104,13 +97,15 @@ export function summaryBlocks(input: ReportInput): Block[] {
             : '';
         flags.push([
           'The constant of ',
-          { text: `${b.lhs} ≤ c · (${res.rhs})`, code: true },
+          { text: `${b.lhs} ≤ c * (${res.rhs})`, code: true },
           ` is not stable along ${by}:${span} trend slope ${formatMaybe(res.trend.slope)} (interval ${formatInterval(res.trend.low, res.trend.high)}), verdict: ${res.trend.verdict}. A trend towards a finite limit is still a trend: this alone does not show that no constant holds.`,
         ]);
       }
     });
   });
   const out: Block[] = [{ kind: 'heading', level: 2, text: 'In brief', id: 'summary' }];
+  const head = headlineBlock(input);
+  if (head) out.push(head);
   if (items.length > 0) out.push({ kind: 'list', items });
   else out.push({ kind: 'paragraph', parts: ['This report holds no results from the ranking, fitting or bounding stages.'] });
   for (const f of flags) out.push({ kind: 'paragraph', parts: [{ text: 'Flag:', strong: true }, ' ', ...f], tone: 'flag' });
@@ -168,4 +163,75 @@ export function leadingGroup<T extends { low: number; high: number }>(sorted: re
     if (minLow > restHigh) return sorted.slice(0, k + 1);
   }
   return null;
+}
+
+/** The search front's formula with the smallest held-out error (the simpler one on a tie); null without a search. */
+export function bestSearchFormula(search: ReportInput['search']): NonNullable<ReportInput['search']>['front'][number] | null {
+  if (!search || search.front.length === 0) return null;
+  return [...search.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse || a.complexity - b.complexity)[0]!;
+}
+
+/**
+ * The three or four figures that matter, as cards: skill against the baselines, the leading
+ * quantities, the search's best formula with its held-out error, and the tightest bound that shows
+ * no trend (else the first one, with its trend).
+ */
+export function headlineBlock(input: ReportInput): Block | null {
+  const items: Array<{ label: string; value: Inline[]; detail: Inline[] }> = [];
+  const r = input.rank;
+  if (r) {
+    const m = r.model;
+    items.push({
+      label: 'Skill on held-out rows',
+      value: [`${metricLabel(m.metric)} `, { text: formatNumber(m.score), key: 'headline-skill' }],
+      detail: [`constant prediction ${formatNumber(m.baselines.constant)}, ridge regression ${formatNumber(m.baselines.ridge)}`],
+    });
+    const top = [...r.ranking].sort((a, b) => b.score - a.score);
+    if (top.length > 0) {
+      const lead = leadingGroup(top);
+      const named = lead ?? top.slice(0, Math.min(3, top.length));
+      const value: Inline[] = [];
+      named.forEach((f, k) => {
+        if (k > 0) value.push(', ');
+        value.push({ text: f.feature, code: true });
+      });
+      items.push({
+        label: 'Leading quantities',
+        value,
+        detail: [
+          `share ${formatNumber(top[0]!.score)} (${formatInterval(top[0]!.low, top[0]!.high)}) for the first; `,
+          lead ? 'clearly ahead of the rest' : 'not separated from those that follow',
+        ],
+      });
+    }
+  }
+  const best = bestSearchFormula(input.search);
+  if (best) {
+    const s = input.search!;
+    items.push({
+      label: 'Best formula found',
+      value: [{ text: best.rationalFormula ? `${s.target ?? 'target'} ≈ ${best.rationalFormula}` : searchFormula(s.target, best), code: true }],
+      detail: [
+        `held-out RMSE ${formatNumber(best.rationalFormula && best.rationalHeldOutRmse !== undefined ? best.rationalHeldOutRmse : best.heldOutRmse)}`,
+        s.heldOutRows !== undefined ? ` on ${formatCount(s.heldOutRows)} rows` : '',
+        s.nCandidatesTried !== undefined ? `; ${formatCount(s.nCandidatesTried)} subsets screened` : '',
+      ],
+    });
+  }
+  const all = (input.bounds ?? []).flatMap((b) => b.results.map((res) => ({ b, res })));
+  const steady = all.find((x) => !trendGrows(x.res.trend)) ?? all[0];
+  if (steady) {
+    const { b, res } = steady;
+    const w = res.witnesses[0];
+    const lab = w ? witnessLabels(w) : '';
+    items.push({
+      label: 'Tightest bound',
+      value: [{ text: `${b.lhs} ≤ ${formatNumber(res.constant)} * (${res.rhs})`, code: true }],
+      detail: [
+        w ? `attained at row ${w.row}${lab ? ` (${lab})` : ''}` : 'on every row',
+        res.trend ? `; ${trendGrows(res.trend) ? 'grows' : 'no trend'} along ${b.by ?? 'the strata'}` : '',
+      ],
+    });
+  }
+  return items.length > 0 ? { kind: 'headline', items } : null;
 }

@@ -38,6 +38,10 @@ export interface ReportRank {
   predictions?: { actual: number[]; predicted: number[] };
   /** Integrated gradients only: per repeat, mean and largest |Σ attributions − (f(x) − f(baseline))| and mean |f(x) − f(baseline)|. */
   completeness?: Array<{ meanAbsGap: number; maxAbsGap: number; meanAbsDelta: number }>;
+  /** Classification: held-out rows by actual class (rows) and most probable class (columns). */
+  confusion?: { classes: number[]; counts: number[][] };
+  /** Partial dependence of the network on the leading quantity: mean prediction at each value x. */
+  dependence?: { feature: string; x: number[]; mean: number[] };
   /** Noise probes: what they were (words, e.g. "3 permuted copies (of a, b, c) and 3 Gaussian columns") and the headline reference. */
   noise?: { probes: string; reference: number };
 }
@@ -49,6 +53,8 @@ export interface ReportScatter {
   xName: string;
   yName: string;
   colorName?: string;
+  /** A label column (e.g. a family) that colours the points instead of `color`, one value per point. */
+  labels?: { name: string; values: string[] };
   /** When the points handed in are already a sample, the number of rows they came from. */
   sampledFrom?: number;
 }
@@ -136,7 +142,7 @@ export interface ReportBoundResult {
   strata: Array<{ low: number; high: number; n: number; constant: number }>;
   /** Trend of the per-stratum constant along `by`; slope and interval may be null when undetermined. */
   trend: { slope: number | null; low: number | null; high: number | null; kind?: 'none' | 'up' | 'down'; verdict: string } | null;
-  points?: { by: number[]; ratio: number[] };
+  points?: { by: number[]; ratio: number[]; labels?: { name: string; values: string[] } };
 }
 
 export interface ReportBound {

@@ -50,7 +50,7 @@ export function isIntercept(term: string): boolean {
 }
 
 /**
- * "target ≈ c₁·t₁ + c₂·t₂ + c₀" from fitted terms; with `rational`, coefficients are the
+ * "target ≈ c₁*t₁ + c₂*t₂ + c₀" (one multiplication sign, the expression language's `*`) from fitted terms; with `rational`, coefficients are the
  * fractions found by the fit (terms whose fraction is 0 are left out), else 4 significant figures.
  * Returns null in rational mode when some term has no fraction.
  */
@@ -70,7 +70,7 @@ export function equation(target: string, terms: readonly ReportFitTerm[], ration
       mag = formatNumber(Math.abs(t.coef));
     }
     const factor = /[/\s]/.test(mag) ? `(${mag})` : mag;
-    const body = isIntercept(t.term) ? mag : mag === '1' ? t.term : `${factor}·${wrap(t.term)}`;
+    const body = isIntercept(t.term) ? mag : mag === '1' ? t.term : `${factor}*${wrap(t.term)}`;
     parts.push({ sign, body });
   }
   if (parts.length === 0) return `${target} ≈ 0`;
@@ -80,7 +80,7 @@ export function equation(target: string, terms: readonly ReportFitTerm[], ration
   return `${target} ≈ ${rhs}`;
 }
 
-/** A search candidate's fitted right-hand side with 4-figure coefficients, e.g. `2·sig + 4e-4·vol`. */
+/** A search candidate's fitted right-hand side with 4-figure coefficients, e.g. `2*k + 4e-4*b`. */
 export function candidateExpression(terms: readonly string[], coefs: readonly number[]): string {
   const eq = equation(
     '',
@@ -94,11 +94,12 @@ function wrap(term: string): string {
   return /^[A-Za-z_][A-Za-z0-9_.]*$/.test(term) || /^\(.*\)$/.test(term) ? term : `(${term})`;
 }
 
-/** "rec=K12, family=twisted" from a witness's labels, or "". */
+/** "name=T(2,3), family=torus" from a witness's first two labels (long values shortened), or "". */
 export function witnessLabels(w: ReportWitness): string {
   if (!w.labels) return '';
   return Object.entries(w.labels)
-    .map(([k, v]) => `${k}=${v}`)
+    .slice(0, 2)
+    .map(([k, v]) => `${k}=${v.length > 40 ? `${v.slice(0, 38)}…` : v}`)
     .join(', ');
 }
 

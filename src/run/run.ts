@@ -135,6 +135,20 @@ function shownPath(p: string): string {
   return r && !r.startsWith('..') && !isAbsolute(r) ? r : p;
 }
 
+/**
+ * A label column that names groups of rows (e.g. a family): the first label column with 2 to 12
+ * distinct values. Its values colour the report's point plots.
+ */
+function groupingLabel(table: Table): { name: string; values: string[] } | null {
+  for (const c of table.columns) {
+    if (c.kind !== 'label') continue;
+    const seen = new Set<string>();
+    for (let i = 0; i < table.nRows && seen.size <= 12; i++) seen.add(c.missing[i] ? '' : c.values[i]!);
+    if (seen.size >= 2 && seen.size <= 12) return { name: c.name, values: Array.from({ length: table.nRows }, (_, i) => (c.missing[i] ? '' : c.values[i]!)) };
+  }
+  return null;
+}
+
 function pick(values: Float64Array, idx: Int32Array): number[] {
   return Array.from(idx, (i) => values[i]!);
 }
@@ -161,6 +175,8 @@ function buildReportInput(
   const { config, rank, fits, search } = results;
   // each search's proposals are shown as bounds along its first quantity
   const bounds = [...results.bounds, ...results.discoveries.map(discoveryAsBounds)];
+  const group = groupingLabel(table);
+  const pickLabels = (idx: Int32Array) => (group ? { labels: { name: group.name, values: Array.from(idx, (i) => group.values[i]!) } } : {});
   const input: ReportInput = {
     title: `surmise: what predicts ${config.target}`,
     createdAt: results.createdAt,
@@ -196,6 +212,9 @@ function buildReportInput(
     };
     if (rank.predictions) input.rank.predictions = { actual: rank.predictions.actual, predicted: rank.predictions.predicted };
     if (rank.completeness) input.rank.completeness = rank.completeness;
+    if (rank.confusion) input.rank.confusion = { classes: rank.confusion.classes, counts: rank.confusion.counts };
+    const lead = rank.dependence?.find((d) => d.feature === rank.ranking[0]?.feature);
+    if (lead) input.rank.dependence = lead;
     if (rank.noise) input.rank.noise = { probes: describeProbes(rank.noise.probes), reference: rank.noise.reference };
     // target against the top feature, coloured by the second
     const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
@@ -210,6 +229,7 @@ function buildReportInput(
         xName: top[0]!,
         yName: config.target,
         ...(c ? { color: pick(c, idx), colorName: top[1]! } : {}),
+        ...pickLabels(idx),
         ...(from > idx.length ? { sampledFrom: from } : {}),
       };
     }
@@ -308,7 +328,7 @@ function buildReportInput(
             trend: r.trend && r.trend.slope !== null && r.trend.low !== null && r.trend.high !== null
               ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, kind: r.trend.kind, verdict: r.trend.verdict }
               : null,
-            points: { by: pick(by, idx), ratio: pick(ratio, idx) },
+            points: { by: pick(by, idx), ratio: pick(ratio, idx), ...pickLabels(idx) },
           };
         }),
       };

@@ -13,7 +13,7 @@ const header = (): ReportInput => ({
 });
 const iv = (feature: string, score: number, low: number, high: number) => ({ feature, score, low, high });
 const rank = (ranking: ReportRank['ranking'], extra: Partial<ReportRank> = {}): ReportRank => ({
-  target: 'sig',
+  target: 'k',
   task: 'regression',
   model: { metric: 'r2', score: 0.9, baselines: { constant: 0, ridge: 0.4 } },
   methods: {},
@@ -79,23 +79,23 @@ describe('second figure, integrated-gradients gaps and classification prediction
     expect(good).not.toContain('integration error on some rows');
   });
 
-  it('says a classification plot shows the expected value Σ p_k·c_k', () => {
-    const spec = predictionSpec('sig', { actual: [0, 1, 2], predicted: [0.2, 1.1, 1.7] }, 100, 0, 'classification') as unknown as {
+  it('says a classification plot shows the expected value Σ p_k c_k', () => {
+    const spec = predictionSpec('k', { actual: [0, 1, 2], predicted: [0.2, 1.1, 1.7] }, 100, 0, 'classification') as unknown as {
       title: { subtitle: string[] };
       layer: Array<{ encoding: { y: { title?: string } } }>;
     };
-    expect(spec.title.subtitle.join(' ')).toContain('expected value Σ p_k·c_k');
-    expect(spec.layer[0]!.encoding.y.title).toBe('expected sig (Σ p_k·c_k)');
-    const reg = predictionSpec('sig', { actual: [0, 1, 2], predicted: [0.2, 1.1, 1.7] }, 100, 0) as unknown as { layer: Array<{ encoding: { y: { title?: string } } }> };
-    expect(reg.layer[0]!.encoding.y.title).toBe('predicted sig');
+    expect(spec.title.subtitle.join(' ')).toContain('expected value Σ p_k c_k');
+    expect(spec.layer[0]!.encoding.y.title).toBe('expected k (Σ p_k c_k)');
+    const reg = predictionSpec('k', { actual: [0, 1, 2], predicted: [0.2, 1.1, 1.7] }, 100, 0) as unknown as { layer: Array<{ encoding: { y: { title?: string } } }> };
+    expect(reg.layer[0]!.encoding.y.title).toBe('predicted k');
   });
 });
 
 describe('fit notes and the formula search', () => {
   it('shows dropped duplicate rows in the fit but raises no flag for them; real warnings still flag', async () => {
     const fit = (warnings: string[]) => ({
-      target: 'slope', n: 19990, r2: 0.99, rmse: 0.5, cvRmse: 0.5,
-      terms: [{ term: 'sig', coef: 2, se: 0.001, low: 1.99, high: 2.01, rational: { text: '2' } }],
+      target: 'z', n: 19990, r2: 0.99, rmse: 0.5, cvRmse: 0.5,
+      terms: [{ term: 'k', coef: 2, se: 0.001, low: 1.99, high: 2.01, rational: { text: '2' } }],
       warnings,
     });
     const drop = '10 of 20000 rows dropped (10 repeats of an earlier row in every column used)';
@@ -111,13 +111,13 @@ describe('fit notes and the formula search', () => {
   });
 
   it('writes target ≈ intercept + Σ coef·term, fractions, both errors, complexity, counts and the warning', async () => {
-    const c = { terms: ['slope'], coefs: [0.491], intercept: 0.12, heldOutRmse: 0.31, selectionRmse: 0.3, complexity: 1, rationalFormula: '1/8 + 1/2*slope', rationalHeldOutRmse: 0.33 };
+    const c = { terms: ['z'], coefs: [0.491], intercept: 0.12, heldOutRmse: 0.31, selectionRmse: 0.3, complexity: 1, rationalFormula: '1/8 + 1/2*z', rationalHeldOutRmse: 0.33 };
     const md = (await renderReport({
       ...header(),
-      search: { mode: 'exhaustive', target: 'sig', candidates: [c], front: [c], nCandidateTerms: 65, nCandidatesTried: 2145, selectionRows: 600, heldOutRows: 400, notes: ['2145 subsets screened (exhaustive) …', 'greedy: none'] },
+      search: { mode: 'exhaustive', target: 'k', candidates: [c], front: [c], nCandidateTerms: 65, nCandidatesTried: 2145, selectionRows: 600, heldOutRows: 400, notes: ['2145 subsets screened (exhaustive) …', 'greedy: none'] },
     }, { png: false })).markdown;
-    expect(md).toContain('`sig ≈ 0.12 + 0.491·slope`');
-    expect(md).toContain('`sig ≈ 1/8 + 1/2*slope`');
+    expect(md).toContain('`k ≈ 0.12 + 0.491*z`');
+    expect(md).toContain('`k ≈ 1/8 + 1/2*z`');
     expect(md).toContain('2,145 subsets of 65 candidate terms screened on 600 selection rows');
     expect(md).toContain('| complexity | held-out RMSE | selection RMSE |');
     expect(md).toMatch(/\| 1 \| 0\.31 \| 0\.3 \|/);

@@ -11,7 +11,7 @@ import { pathToFileURL } from 'node:url';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { renderReport } from '../../src/report/index.ts';
 import { EVIL, makeInput } from './fixture-input.ts';
-import { decodePng, inkStats } from './helpers.ts';
+import { checkWidth, decodePng, inkStats } from './helpers.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
 const haveChromium = existsSync(CHROMIUM);
@@ -73,7 +73,8 @@ describe.skipIf(!haveChromium)('report.html in a real browser', () => {
     expect(dialogs).toEqual([]);
   });
 
-  it('draws every plot as a visible SVG with content', async () => {
+  it('draws every plot as a visible SVG with content (folded sections opened)', async () => {
+    await page.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
     const figs = await page.evaluate(() =>
       Array.from(document.querySelectorAll('figure.plot > svg')).map((svg) => {
         const r = svg.getBoundingClientRect();
@@ -113,7 +114,7 @@ describe.skipIf(!haveChromium)('report.html in a real browser', () => {
 
   it('shows the same key figures the Markdown has (read back from the rendered page)', async () => {
     const top = await page.locator('[data-key="top-feature"]').textContent();
-    expect(top).toBe('lon');
+    expect(top).toBe('p');
     const c = await page.locator('[data-key="bound-0-0-constant"]').textContent();
     const cSection = await page.locator('[data-key="bound-0-0-constant-section"]').textContent();
     expect(c).toBe(cSection);
@@ -137,6 +138,15 @@ describe.skipIf(!haveChromium)('report.html in a real browser', () => {
     expect(seen).toEqual(['1']);
     expect(asked.length).toBeGreaterThan(1);
     await p2.close();
+  });
+
+  it('fits the page at 390 px and 1280 px (no horizontal overflow), with tick labels of at least 11 px at 1280 px', async () => {
+    for (const width of [390, 1280]) await checkWidth(page, width, expect);
+    // the table of contents points at sections that exist
+    const targets = await page.evaluate(() => Array.from(document.querySelectorAll('nav.toc a')).map((a) => document.getElementById(a.getAttribute('href')!.slice(1)) !== null));
+    expect(targets.length).toBeGreaterThan(3);
+    expect(targets.every(Boolean)).toBe(true);
+    await page.setViewportSize({ width: 1280, height: 720 });
   });
 
   it('renders a screenshot that is not blank', async () => {

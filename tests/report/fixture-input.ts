@@ -1,7 +1,6 @@
 /**
- * A realistic, invented report input for the tests: a census-like table of n rows where
- * slope = 2·sig + 0.1·(vol/inj)·u³ (u uniform on (−1, 1)) and a "twisted" sub-family has small
- * inj. Every number is computed from the generated rows, so the bound's constant, its witness and
+ * A realistic, invented report input for the tests (neutral names): a table of n rows where
+ * z = 2k + 0.1·(b/w)·u³ (u uniform on (−1, 1)) and a "thin" sub-family has small w. Every number is computed from the generated rows, so the bound's constant, its witness and
  * its strata are consistent with each other.
  */
 import { Rng } from '../../src/util/rng.ts';
@@ -32,8 +31,8 @@ export function makeRows(n: number, seed: number): FixtureRows {
     r.inj.push(inj);
     r.vol.push(vol);
     r.slope.push(2 * sig + 0.1 * (vol / inj) * u ** 3);
-    r.family.push(twisted ? 'twisted' : 'generic');
-    r.rec.push(`K${i + 1}`);
+    r.family.push(twisted ? 'thin' : 'main');
+    r.rec.push(`R${i + 1}`);
   }
   return r;
 }
@@ -48,7 +47,7 @@ export function boundResult(rows: FixtureRows, rhsName: string, rhs: number[], w
     lhs: Math.abs(2 * rows.sig[i]! - rows.slope[i]!),
     rhs: rhs[i]!,
     ratio: ratio[i]!,
-    labels: { rec: rows.rec[i]!, family: rows.family[i]!, ...(withEvilLabel ? { note: EVIL } : {}) },
+    labels: { name: rows.rec[i]!, family: rows.family[i]!, ...(withEvilLabel ? { note: EVIL } : {}) },
   }));
   const byOrder = rows.inj.map((_, i) => i).sort((a, b) => rows.inj[a]! - rows.inj[b]!);
   const strata = [];
@@ -89,7 +88,7 @@ export function boundResult(rows: FixtureRows, rhsName: string, rhs: number[], w
 export function makeInput(n: number, seed = 7, evil = true): ReportInput {
   const rows = makeRows(n, seed);
   const rng = new Rng(seed + 1);
-  const feats = ['lon', 'mer.re', 'mer.im', 'vol', evil ? EVIL : 'xings', 'inj', 'd_noise', 'd_unif'];
+  const feats = ['p', 'q.re', 'q.im', 'b', evil ? EVIL : 'c', 'w', 'd_noise', 'd_unif'];
   const base = [0.41, 0.33, 0.12, 0.05, 0.03, 0.02, 0.004, 0.003];
   const method = (jitter: number) =>
     feats
@@ -100,19 +99,19 @@ export function makeInput(n: number, seed = 7, evil = true): ReportInput {
       .sort((a, b) => b.score - a.score);
   const residual = rows.slope.map((s, i) => s - 2 * rows.sig[i]!);
   return {
-    title: 'Signature against cusp quantities (invented census)',
+    title: 'k against an invented table',
     createdAt: '2026-01-02T03:04:05Z',
     tool: { name: 'surmise', version: '0.1.0' },
-    input: { path: 'demo-data/census.csv', sha256: 'ab'.repeat(32), rows: n + 12 },
+    input: { path: 'tables/invented.csv', sha256: 'ab'.repeat(32), rows: n + 12 },
     drops: {
       inputRows: n + 12,
       keptRows: n,
-      dropped: [{ column: evil ? EVIL : 'geo', reason: 'missing value', rows: 9 }],
+      dropped: [{ column: evil ? EVIL : 'g', reason: 'missing value', rows: 9 }],
       duplicates: 3,
       duplicateRule: 'identical in every column; first copy kept',
     },
     rank: {
-      target: 'sig',
+      target: 'k',
       task: 'regression',
       model: { metric: 'r2', score: 0.93, baselines: { constant: -0.0004, ridge: 0.41 } },
       methods: {
@@ -123,44 +122,44 @@ export function makeInput(n: number, seed = 7, evil = true): ReportInput {
       ranking: feats.map((feature, k) => ({ feature, score: base[k]!, low: base[k]! * 0.92, high: base[k]! * 1.08 })),
       predictions: { actual: rows.sig.slice(), predicted: rows.sig.map((s) => s + 0.8 * rng.normal()) },
     },
-    scatter: { x: rows.slope.slice(), y: rows.sig.slice(), color: rows.vol.slice(), xName: 'slope', yName: 'sig', colorName: 'vol' },
+    scatter: { x: rows.slope.slice(), y: rows.sig.slice(), color: rows.vol.slice(), xName: 'z', yName: 'k', colorName: 'b' },
     fits: [
       {
-        target: 'slope',
+        target: 'z',
         n,
         r2: 0.9871,
         rmse: 0.5012,
         cvRmse: 0.5034,
         terms: [
-          { term: 'sig', coef: 2.0003, se: 0.0011, low: 1.9981, high: 2.0025, rational: { text: '2' } },
+          { term: 'k', coef: 2.0003, se: 0.0011, low: 1.9981, high: 2.0025, rational: { text: '2' } },
           { term: '1', coef: -0.0012, se: 0.0041, low: -0.0092, high: 0.0068, rational: { text: '0' } },
         ],
         warnings: evil ? [`column ${EVIL} is nearly constant`] : [],
-        residuals: { byTerm: [{ term: 'sig', x: rows.sig.slice() }], residual },
+        residuals: { byTerm: [{ term: 'k', x: rows.sig.slice() }], residual },
       },
     ],
     search: {
       mode: 'exhaustive',
       candidates: [
-        { terms: ['sig'], coefs: [2.0003], heldOutRmse: 0.503, complexity: 1 },
-        { terms: ['sig', 'vol'], coefs: [2.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
-        { terms: ['vol'], coefs: [0.1], heldOutRmse: 6.1, complexity: 1 },
+        { terms: ['k'], coefs: [2.0003], heldOutRmse: 0.503, complexity: 1 },
+        { terms: ['k', 'b'], coefs: [2.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
+        { terms: ['b'], coefs: [0.1], heldOutRmse: 6.1, complexity: 1 },
       ],
       front: [
-        { terms: ['sig'], coefs: [2.0003], heldOutRmse: 0.503, complexity: 1 },
-        { terms: ['sig', 'vol'], coefs: [2.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
+        { terms: ['k'], coefs: [2.0003], heldOutRmse: 0.503, complexity: 1 },
+        { terms: ['k', 'b'], coefs: [2.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
       ],
     },
     bounds: [
       {
-        lhs: '|2*sig - slope|',
-        by: 'inj',
+        lhs: '|2*k - z|',
+        by: 'w',
         results: [
-          boundResult(rows, 'vol/inj', rows.vol.map((v, i) => v / rows.inj[i]!), evil),
-          boundResult(rows, 'vol', rows.vol.slice(), evil),
+          boundResult(rows, 'b/w', rows.vol.map((v, i) => v / rows.inj[i]!), evil),
+          boundResult(rows, 'b', rows.vol.slice(), evil),
         ],
       },
     ],
-    configText: `# resolved configuration\ninput: demo-data/census.csv\ntarget: sig\nseed: 7\nexclude: ["${evil ? EVIL : 'geo'}"]\n`,
+    configText: `# resolved configuration\ninput: tables/invented.csv\ntarget: k\nseed: 7\nexclude: ["${evil ? EVIL : 'g'}"]\n`,
   };
 }

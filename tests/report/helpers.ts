@@ -87,3 +87,44 @@ export function inkStats(p: DecodedPng): { inked: number; distinct: number } {
   }
   return { inked: ink / n, distinct: seen.size };
 }
+
+/**
+ * Layout figures of an open page (read in the browser): the document's scrollWidth against the
+ * viewport's innerWidth, and the smallest on-screen size of any plot text (its font size times the
+ * SVG's drawn width over its own width).
+ */
+export async function pageMetrics(page: { evaluate<T>(f: () => T): Promise<T> }): Promise<{ scrollWidth: number; innerWidth: number; smallestPlotText: number }> {
+  return page.evaluate(() => {
+    let smallest = Infinity;
+    for (const svg of Array.from(document.querySelectorAll('figure.plot > svg'))) {
+      const w = Number(svg.getAttribute('width'));
+      const drawn = svg.getBoundingClientRect().width;
+      if (!(w > 0) || !(drawn > 0)) continue;
+      for (const t of Array.from(svg.querySelectorAll('text'))) {
+        const size = parseFloat(t.getAttribute('font-size') ?? getComputedStyle(t).fontSize);
+        if (size > 0 && (t.textContent ?? '').trim() !== '') smallest = Math.min(smallest, (size * drawn) / w);
+      }
+    }
+    return { scrollWidth: document.documentElement.scrollWidth, innerWidth: window.innerWidth, smallestPlotText: smallest };
+  });
+}
+
+/**
+ * The layout checks at one viewport width, folded sections opened: no horizontal page overflow
+ * (scrollWidth ≤ innerWidth), plot text of at least 11 px on screen at 1280 px and wider, and a
+ * screenshot that is not blank.
+ */
+export async function checkWidth(
+  page: { setViewportSize(s: { width: number; height: number }): Promise<void>; evaluate<T>(f: () => T): Promise<T>; screenshot(o: { fullPage: boolean }): Promise<Uint8Array> },
+  width: number,
+  expectFn: (v: unknown, message?: string) => { toBeLessThanOrEqual(n: number): void; toBeGreaterThanOrEqual(n: number): void; toBeGreaterThan(n: number): void },
+): Promise<void> {
+  await page.setViewportSize({ width, height: 900 });
+  await page.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
+  const m = await pageMetrics(page);
+  expectFn(m.scrollWidth, `scrollWidth at ${width} px`).toBeLessThanOrEqual(m.innerWidth);
+  if (width >= 1280) expectFn(m.smallestPlotText, `smallest plot text at ${width} px`).toBeGreaterThanOrEqual(11);
+  const ink = inkStats(decodePng(new Uint8Array(await page.screenshot({ fullPage: false }))));
+  expectFn(ink.inked, `screenshot at ${width} px`).toBeGreaterThan(0.01);
+  expectFn(ink.distinct, `colours at ${width} px`).toBeGreaterThan(20);
+}

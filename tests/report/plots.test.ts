@@ -45,7 +45,7 @@ describe('plot specs render to SVG with the expected marks', () => {
     // independent count of the non-empty cells
     const ref = bin2d(s.x, s.y, 40, 30, s.color);
     expect(countMarks(binned, 'cells')).toBe(ref.cells.length);
-    expect(binned).toContain('all 5,000 rows binned on a 40 × 30 grid');
+    expect(binned).toContain('all 5,000 rows binned on a 40 by 30 grid');
   });
 
   it('scatter binning and sampling are deterministic', async () => {

@@ -36,8 +36,8 @@ describe('the summary', () => {
     // top feature: the largest combined score in the input
     const top = [...input.rank!.ranking].sort((a, b) => b.score - a.score)[0]!.feature;
     expect(keyed(out.html, 'top-feature')).toBe(top);
-    expect(out.markdown).toContain(`matter most for \`sig\`: \`${top}\``);
-    // the constant: the planted law |2·sig − slope| = 0.1·(vol/inj)·|u|³ ≤ 0.1·vol/inj (by construction
+    expect(out.markdown).toContain(`matter most for \`k\`: \`${top}\``);
+    // the constant: the planted law |2k − z| = 0.1·(b/w)·|u|³ ≤ 0.1·b/w (by construction
     // of the invented table), so c* is the largest ratio over the rows, and below 0.1
     const rows = makeRows(2000, 7);
     const cStar = max(rows.sig.map((s, i) => Math.abs(2 * s - rows.slope[i]!) / (rows.vol[i]! / rows.inj[i]!)));
@@ -55,15 +55,20 @@ describe('the summary', () => {
 
   it('gives the network skill in words and the best formula with its fractions', () => {
     expect(keyed(out.html, 'network-score')).toBe('0.93');
-    expect(out.markdown).toContain('sig is predictable from these columns, and not only linearly');
-    expect(keyed(out.html, 'best-formula-0')).toBe('slope ≈ 2·sig');
-    expect(out.markdown).toContain('`slope ≈ 2·sig`');
+    expect(out.markdown).toContain('k is predictable from these columns, and not only linearly');
+    // the summary's best formula is the search's (smallest held-out error), not the fit the user typed
+    expect(keyed(out.html, 'best-formula')).toBe('2*k + 4e-4*b');
+    expect(out.markdown).toContain('Best formula found by the search: `2*k + 4e-4*b` (held-out RMSE 0.5029');
+    expect(out.markdown).toContain('Fit you asked for: `z ≈ 2*k - 0.0012`');
+    // the headline block carries the same figures
+    expect(keyed(out.html, 'headline-skill')).toBe('0.93');
+    expect(out.html).toContain('<section class="headline">');
   });
 
   it('flags the bound whose constant grows along the sub-family and not the one that holds', () => {
     const flags = out.markdown.split('\n').filter((l) => l.startsWith('> **Flag:**'));
-    expect(flags.some((l) => l.includes('c · (vol)`') && l.includes('is not stable along inj'))).toBe(true);
-    expect(flags.some((l) => l.includes('(vol/inj)'))).toBe(false);
+    expect(flags.some((l) => l.includes('c * (b)`') && l.includes('is not stable along w'))).toBe(true);
+    expect(flags.some((l) => l.includes('(b/w)'))).toBe(false);
   });
 
   it('says once, in both files, that this is evidence and not proof', () => {
@@ -95,7 +100,8 @@ describe('the sections', () => {
     for (const n of names) expect(out.markdown).toContain(`](plots/${n}.svg)`);
     expect(names).toContain('target-vs-top-feature');
     expect(names).toContain('predicted-vs-actual');
-    expect(names.filter((n) => n.startsWith('attribution-')).length).toBe(3);
+    expect(names.filter((n) => n.startsWith('attribution-')).length).toBe(4); // combined + 3 methods
+    expect(names[names.indexOf('attribution-combined') + 1]).toMatch(/^attribution-/);
     const ids = [...out.html.matchAll(/\sid="([^"]+)"/g)].map((m) => m[1]!);
     expect(new Set(ids).size).toBe(ids.length);
   });
@@ -125,7 +131,7 @@ describe('safety of report.html', () => {
 
   it('uses only known elements (anything from the data would show up here)', () => {
     const allowed = new Set(
-      'html head meta title style body h1 h2 h3 p ul li strong code span table thead tbody tr th td figure figcaption pre svg g path rect line text tspan defs lineargradient stop clippath'.split(' '),
+      'html head meta title style body h1 h2 h3 p ul li strong code span table thead tbody tr th td figure figcaption pre svg g path rect line text tspan defs lineargradient stop clippath nav a section div details summary'.split(' '),
     );
     const tags = new Set([...out.html.matchAll(/<([a-zA-Z][a-zA-Z0-9]*)/g)].map((m) => m[1]!.toLowerCase()));
     for (const t of tags) expect(allowed.has(t), `unexpected element <${t}>`).toBe(true);

@@ -25,16 +25,16 @@ describe('equations', () => {
   it('writes the least-squares line of Anscombe set 1 (Anscombe 1973: y ≈ 3.00 + 0.500 x)', () => {
     // intercept 3.000091, slope 0.500091 (../shared reference list, cross-checked there)
     const t = [term('x', 0.500091, '1/2'), term('1', 3.000091, '3')];
-    expect(equation('y', t, false)).toBe('y ≈ 0.5001·x + 3');
-    expect(equation('y', t, true)).toBe('y ≈ (1/2)·x + 3');
+    expect(equation('y', t, false)).toBe('y ≈ 0.5001*x + 3');
+    expect(equation('y', t, true)).toBe('y ≈ (1/2)*x + 3');
   });
   it('handles signs, unit coefficients, zero fractions and compound terms', () => {
     const t = [term('sig', 2.0003, '2'), term('vol/inj', -0.25, '-1/4'), term('intercept', -0.0012, '0')];
-    expect(equation('slope', t, false)).toBe('slope ≈ 2·sig - 0.25·(vol/inj) - 0.0012');
-    expect(equation('slope', t, true)).toBe('slope ≈ 2·sig - (1/4)·(vol/inj)');
+    expect(equation('slope', t, false)).toBe('slope ≈ 2*sig - 0.25*(vol/inj) - 0.0012');
+    expect(equation('slope', t, true)).toBe('slope ≈ 2*sig - (1/4)*(vol/inj)');
     expect(equation('y', [term('x', 1, '1')], true)).toBe('y ≈ x');
     expect(equation('y', [term('x', 1, null)], true)).toBeNull();
-    expect(candidateExpression(['sig', 'vol'], [2.0001, 0.0004])).toBe('2·sig + 4e-4·vol');
+    expect(candidateExpression(['sig', 'vol'], [2.0001, 0.0004])).toBe('2*sig + 4e-4*vol');
     expect(isIntercept('(Intercept)')).toBe(true);
   });
 });

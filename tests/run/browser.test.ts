@@ -85,7 +85,8 @@ describe.skipIf(!existsSync(CHROMIUM))('report.html of a real run, in a real bro
     expect(await page.locator('body').innerText()).toContain(EVIL);
   });
 
-  it('every plot is a visible, non-empty SVG; the page is not blank', async () => {
+  it('every plot is a visible, non-empty SVG (folded sections opened); the page is not blank', async () => {
+    await page.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
     const svgs = page.locator('svg');
     const n = await svgs.count();
     expect(n).toBeGreaterThanOrEqual(4); // attribution ×2, predictions, residuals, bound, scatter

@@ -130,6 +130,43 @@ describe('surmise demo on the demo table of knots', () => {
     expect(String(naive.witnesses[0]!.labels.name)).toMatch(/^T\(2,-?41\)$/);
   });
 
+  it('the report leads with the figures that matter: skill, leading quantities, the search\'s formula, the tightest bound', () => {
+    const html = readFileSync(join(demoDir, 'report.html'), 'utf8');
+    const md = readFileSync(join(demoDir, 'report.md'), 'utf8');
+    const head = html.slice(html.indexOf('<section class="headline">'), html.indexOf('</section>'));
+    expect(head).toContain('levine_tristram_1_3');
+    expect(head).toContain('genus_bound ≈'); // the search's formula, not the fit typed in the configuration
+    expect(head).not.toContain('alexander_at_minus1 ≈');
+    expect(head).toContain('abs(signature) ≤ 1 * (crossings - seifert_circles + 1)');
+    expect(md).toContain('Best formula found by the search: `genus_bound ≈ 0.5 + 0.5*crossings - 0.5*strands`');
+    // integer target as classes: the compact confusion table and the partial dependence on the leading quantity
+    expect(md).toContain('## Can the target be predicted?');
+    expect(md).toContain('| actual | rows | predicted right | share | most common other prediction (rows) |');
+    expect(existsSync(join(demoDir, 'plots/dependence.svg'))).toBe(true);
+    expect(results.rank!.dependence!.map((d) => d.feature)).toContain(results.rank!.ranking[0]!.feature);
+    const right = results.rank!.confusion!.counts.reduce((s, row, i) => s + row[i]!, 0);
+    const total = results.rank!.confusion!.counts.flat().reduce((a, b) => a + b, 0);
+    expect(total).toBe(results.rank!.repeats[0]!.test);
+    expect(md).toContain(`${right.toLocaleString('en')} of ${total.toLocaleString('en')} predicted exactly`);
+    // the bound plots: coloured by family, witnesses as diamonds, log axis for crossings
+    const bound = readFileSync(join(demoDir, 'plots/bound-1-2.svg'), 'utf8');
+    expect(bound).toContain('family');
+    expect(bound).toContain('diamonds: witness rows');
+    expect(bound).toContain('log axis for crossings');
+  });
+
+  it('report.md and results.json agree on every count', () => {
+    const md = readFileSync(join(demoDir, 'report.md'), 'utf8');
+    const c = (x: number) => x.toLocaleString('en');
+    expect(md).toContain(`with ${c(results.input.rows)} rows`);
+    expect(md).toContain(`Of ${c(results.rows!.inputRows)} rows read, ${c(results.rows!.keptRows)} were kept`);
+    const s = results.search!;
+    expect(md).toContain(`${c(s.nCandidatesTried)} subsets of ${c(s.nCandidateTerms)} candidate terms screened on ${c(s.selectionRows)} selection rows`);
+    expect(md).toContain(`scored on ${c(s.heldOutRows)} held-out rows`);
+    expect(md).toContain(`n = ${c(results.fits[0]!.n)},`);
+    for (const r of results.bounds[0]!.results) for (const st of r.strata) expect(md).toContain(`| ${c(st.n)} |`);
+  });
+
   it('report.md and report.html agree with results.json', () => {
     const md = readFileSync(join(demoDir, 'report.md'), 'utf8');
     const html = readFileSync(join(demoDir, 'report.html'), 'utf8');
@@ -141,6 +178,44 @@ describe('surmise demo on the demo table of knots', () => {
     expect(md).toContain(`\`${top}\``);
     expect(html).toContain(results.input.sha256);
   });
+});
+
+const CHROMIUM = '/usr/bin/chromium';
+describe.skipIf(!existsSync(CHROMIUM))('the demo report in Chromium at 390 px and 1280 px', () => {
+  it('has no horizontal overflow, readable plot text at 1280 px, and is not blank at either width', async () => {
+    const { chromium } = await import('playwright-core');
+    const { pathToFileURL } = await import('node:url');
+    const { checkWidth } = await import('../report/helpers.ts');
+    const context = await chromium.launchPersistentContext(join(work, 'profile'), {
+      executablePath: CHROMIUM,
+      headless: true,
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+    try {
+      const page = context.pages()[0] ?? (await context.newPage());
+      const requests: string[] = [];
+      page.on('request', (r) => void requests.push(r.url()));
+      const url = pathToFileURL(join(demoDir, 'report.html')).href;
+      for (const width of [390, 1280]) {
+        await page.setViewportSize({ width, height: 900 });
+        await page.goto(url, { waitUntil: 'load' });
+        await checkWidth(page, width, expect);
+        // every number cell keeps its number on one line: its text is no taller than one line
+        const wrapped = await page.evaluate(() =>
+          Array.from(document.querySelectorAll('td.num')).filter((td) => {
+            if (td.getClientRects().length === 0) return false;
+            const range = document.createRange();
+            range.selectNodeContents(td);
+            return range.getBoundingClientRect().height > 1.8 * parseFloat(getComputedStyle(td).fontSize);
+          }).length,
+        );
+        expect(wrapped).toBe(0);
+      }
+      expect(new Set(requests)).toEqual(new Set([url]));
+    } finally {
+      await context.close();
+    }
+  }, 120_000);
 });
 
 describe('rerun and compare', () => {

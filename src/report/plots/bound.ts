@@ -6,10 +6,11 @@ import { formatNumber } from '../format.ts';
 
 /**
  * The ratio lhs/rhs of a bound against the `by` quantity (layer `points`, a seeded sample above
- * `maxPoints` that always keeps the largest ratios), the witness rows ringed (layer `witnesses`),
- * the per-stratum maximum as a horizontal segment across each stratum (layer `strata`), and the
- * overall constant (layer `overall`). Both axes are logarithmic when every value drawn on them is
- * positive, as the trend is fitted log–log there.
+ * `maxPoints` that always keeps the largest ratios; coloured by a label column such as the family
+ * when one is given), the per-stratum maximum as a horizontal segment across each stratum (layer
+ * `strata`), the overall constant (layer `overall`) and the witness rows as black diamonds (layer
+ * `witnesses`). Axes are logarithmic where every value drawn on them is positive: the trend is a
+ * log–log slope.
  */
 export function boundSpec(
   lhs: string,
@@ -22,40 +23,33 @@ export function boundSpec(
   const layers: unknown[] = [];
   let subtitle = '';
   const pts = r.points;
-  const strata = r.strata.filter((s) => Number.isFinite(s.low) && Number.isFinite(s.high) && Number.isFinite(s.constant));
-  const wits = r.witnesses.filter((w) => w.by !== undefined && Number.isFinite(w.by) && Number.isFinite(w.ratio));
-  const positive = (xs: ArrayLike<number>) => Array.from(xs).every((v) => !Number.isFinite(v) || v > 0);
-  const logX = (!pts || positive(pts.by)) && strata.every((s) => s.low > 0) && wits.every((w) => w.by! > 0);
-  const logY = (!pts || positive(pts.ratio)) && strata.every((s) => s.constant > 0) && wits.every((w) => w.ratio > 0) && r.constant > 0;
+  const witnesses = r.witnesses.filter((w) => w.by !== undefined && Number.isFinite(w.by) && Number.isFinite(w.ratio));
+  const positive = (v: number[]) => v.length > 0 && v.every((x) => x > 0);
+  const byValues = [...(pts ? pts.by.filter(Number.isFinite) : []), ...r.strata.flatMap((s) => [s.low, s.high])];
+  const ratioValues = [...(pts ? pts.ratio.filter(Number.isFinite) : []), ...r.strata.map((s) => s.constant)];
+  const logX = positive(byValues);
+  const logY = positive(ratioValues);
   const xScale = logX ? { type: 'log' } : { zero: false };
-  const yScale = logY ? { type: 'log' } : { zero: false };
+  const yScale = logY ? { type: 'log' } : {};
   if (pts) {
     const n = Math.min(pts.by.length, pts.ratio.length);
     const keep = largestIndices(pts.ratio.slice(0, n), keepLargest);
     const idx = sampleIndices(n, maxPoints, seed, keep);
     const { rows, nonFinite } = finitePairs(pts.by, pts.ratio, idx);
     subtitle = sampleNote(idx.length, n, idx.length < n ? `, keeping the ${keep.length} largest ratios` : '') + nonFiniteNote(nonFinite);
+    const lab = pts.labels;
     layers.push({
       name: 'points',
-      data: { values: rows.map((p) => ({ b: p.x, q: p.y })) },
-      mark: { type: 'circle', size: 10, opacity: 0.5, color: '#4c78a8' },
+      data: { values: rows.map((p) => ({ b: p.x, q: p.y, ...(lab ? { g: lab.values[p.i] ?? '' } : {}) })) },
+      mark: { type: 'circle', size: 14, opacity: 0.55, ...(lab ? {} : { color: '#4c78a8' }) },
       encoding: {
         x: { field: 'b', type: 'quantitative', title: by, scale: xScale },
         y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})`, scale: yScale },
+        ...(lab ? { color: { field: 'g', type: 'nominal', title: lab.name, scale: { scheme: 'tableau10' } } } : {}),
       },
     });
   }
-  if (wits.length > 0) {
-    layers.push({
-      name: 'witnesses',
-      data: { values: wits.map((w) => ({ b: w.by!, q: w.ratio, row: w.row })) },
-      mark: { type: 'point', size: 90, filled: false, strokeWidth: 2, color: '#d62728' },
-      encoding: {
-        x: { field: 'b', type: 'quantitative', title: by, scale: xScale },
-        y: { field: 'q', type: 'quantitative', title: `${lhs} / (${r.rhs})`, scale: yScale },
-      },
-    });
-  }
+  const strata = r.strata.filter((s) => Number.isFinite(s.low) && Number.isFinite(s.high) && Number.isFinite(s.constant));
   if (strata.length > 0) {
     layers.push({
       name: 'strata',
@@ -76,10 +70,21 @@ export function boundSpec(
       encoding: { y: { field: 'q', type: 'quantitative' } },
     });
   }
-  const axes = logX && logY ? '; log–log axes' : logX ? `; log axis for ${by}` : logY ? '; log axis for the ratio' : '';
-  const note = `red: largest ratio within each stratum of ${by}${wits.length ? ', rings: witness rows' : ''}; dashed: overall constant ${formatNumber(r.constant)}${axes}`;
+  if (witnesses.length > 0) {
+    layers.push({
+      name: 'witnesses',
+      data: { values: witnesses.map((w) => ({ b: w.by, q: w.ratio, row: w.row })) },
+      mark: { type: 'point', shape: 'diamond', size: 110, filled: false, color: '#111', strokeWidth: 1.6 },
+      encoding: {
+        x: { field: 'b', type: 'quantitative', scale: xScale },
+        y: { field: 'q', type: 'quantitative', scale: yScale },
+      },
+    });
+  }
+  const axes = logX && logY ? 'log–log axes' : logX ? `log axis for ${by} (ratios of 0 occur, so the ratio axis is linear)` : logY ? 'log axis for the ratio' : '';
+  const note = `red: largest ratio within each stratum of ${by}; dashed: overall constant ${formatNumber(r.constant)}${witnesses.length ? '; diamonds: witness rows' : ''}${axes ? `; ${axes}` : ''}`;
   return {
-    ...baseSpec(`${lhs} ≤ c · (${r.rhs}): ratio against ${by}`, subtitle ? [subtitle, note] : note, 560, 340),
+    ...baseSpec(`${lhs} ≤ c * (${r.rhs}): ratio against ${by}`, subtitle ? [subtitle, note] : note, 560, 340),
     layer: layers,
   };
 }

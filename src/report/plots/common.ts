@@ -22,16 +22,20 @@ export function wrapSubtitle(lines: string | string[], chars: number): string[] 
 
 /**
  * Characters per subtitle line. Measured on the rendered demo plots: vega cuts a subtitle line at
- * about 0.72 × the plot width (not at the title limit), at ~6.3 px per character; we wrap at
- * 0.7 × width / 6.5 px to stay inside both.
+ * about 0.72 × the plot width (not at the title limit), at ~6.3 px per character at 10 px type;
+ * subtitles are 12 px (~7.6 px per character), so we wrap at 0.7 × width / 7.8 px.
  */
 export function subtitleChars(width: number): number {
-  return Math.max(20, Math.floor((0.7 * width) / 6.5));
+  return Math.max(20, Math.floor((0.7 * width) / 7.8));
 }
 
-/** Settings every plot shares: fixed size, no ARIA text (large charts), the DejaVu font family. */
+/**
+ * Settings every plot shares: fixed size (at most 560 px wide, so a 1280 px page shows it at full
+ * size), text of at least 12 px (tick labels, legends, subtitles), no ARIA text (large charts), the
+ * DejaVu font family.
+ */
 export function baseSpec(title: string, subtitle: string | string[] | undefined, width = 560, height = 360): PlotSpec {
-  const limit = width + 60;
+  const limit = width + 140;
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     title: subtitle
@@ -43,9 +47,9 @@ export function baseSpec(title: string, subtitle: string | string[] | undefined,
     config: {
       aria: false,
       font: 'DejaVu Sans, sans-serif',
-      axis: { labelLimit: 180, titleLimit: 520 },
-      legend: { titleLimit: 240 },
-      title: { subtitleColor: '#555' },
+      axis: { labelLimit: 180, titleLimit: 520, labelFontSize: 12, titleFontSize: 13 },
+      legend: { titleLimit: 240, labelFontSize: 12, titleFontSize: 12 },
+      title: { subtitleColor: '#555', fontSize: 15, subtitleFontSize: 12 },
     },
   };
 }

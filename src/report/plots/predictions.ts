@@ -24,7 +24,7 @@ export function predictionSpec(
   if (!(lo <= hi)) { lo = 0; hi = 1; }
   const cls = task === 'classification';
   const subtitle = [`held-out rows: ${sampleNote(idx.length, p.actual.length)}${nonFiniteNote(nonFinite)}`, 'dashed line: predicted = actual'];
-  if (cls) subtitle.push('classification: the prediction drawn is the expected value Σ p_k·c_k over the classes c_k with the network’s probabilities p_k, not the predicted class');
+  if (cls) subtitle.push('classification: the prediction drawn is the expected value Σ p_k c_k over the classes c_k with the network’s probabilities p_k, not the predicted class');
   return {
     ...baseSpec(`Predicted against actual ${target}`, subtitle, 420, 420),
     layer: [
@@ -34,7 +34,7 @@ export function predictionSpec(
         mark: { type: 'circle', size: 10, opacity: 0.6 },
         encoding: {
           x: { field: 'a', type: 'quantitative', title: `actual ${target}`, scale: { zero: false } },
-          y: { field: 'p', type: 'quantitative', title: cls ? `expected ${target} (Σ p_k·c_k)` : `predicted ${target}`, scale: { zero: false } },
+          y: { field: 'p', type: 'quantitative', title: cls ? `expected ${target} (Σ p_k c_k)` : `predicted ${target}`, scale: { zero: false } },
         },
       },
       {

@@ -13,7 +13,8 @@ export interface ScatterSettings {
 }
 
 /**
- * The target (y) against the top feature (x), coloured by the second feature. Up to `maxPoints`
+ * The target (y) against the top feature (x), coloured by a label column (e.g. the family) when
+ * one is given, else by the second feature. Up to `maxPoints`
  * rows are drawn as points (layer `points`); above that either a 2-D histogram of every row whose
  * cells are coloured by the mean of the colour variable (layer `cells`), or a seeded sample.
  * The subtitle says which.
@@ -28,7 +29,7 @@ export function scatterSpec(s: ReportScatter, set: ScatterSettings): PlotSpec {
     const [nx, ny] = set.grid ?? [80, 60];
     const b = bin2d(s.x, s.y, nx, ny, s.color);
     const what = s.color ? `colour: mean ${colorTitle} per cell` : 'colour: rows per cell';
-    const subtitle = [`all ${formatCount(b.binned)} rows binned on a ${nx} × ${ny} grid${pre}${nonFiniteNote(b.nonFinite)}`, what];
+    const subtitle = [`all ${formatCount(b.binned)} rows binned on a ${nx} by ${ny} grid${pre}${nonFiniteNote(b.nonFinite)}`, what];
     const values = b.cells.map((c) => ({ x0: c.x0, x1: c.x1, y0: c.y0, y1: c.y1, n: c.count, c: c.mean ?? c.count }));
     return {
       ...baseSpec(title, subtitle),
@@ -55,14 +56,17 @@ export function scatterSpec(s: ReportScatter, set: ScatterSettings): PlotSpec {
   }
   const idx = sampleIndices(n, set.maxPoints, set.seed);
   const { rows, nonFinite } = finitePairs(s.x, s.y, idx);
-  const values = rows.map((r) => ({ x: r.x, y: r.y, c: s.color ? s.color[r.i] : null }));
+  const lab = s.labels;
+  const values = rows.map((r) => ({ x: r.x, y: r.y, c: lab ? (lab.values[r.i] ?? '') : s.color ? s.color[r.i] : null }));
   const subtitle = [`${sampleNote(idx.length, n)}${pre}${nonFiniteNote(nonFinite)}`];
-  if (s.color) subtitle.push(`colour: ${colorTitle}`);
+  if (lab) subtitle.push(`colour: ${lab.name}`);
+  else if (s.color) subtitle.push(`colour: ${colorTitle}`);
   const encoding: Record<string, unknown> = {
     x: { field: 'x', type: 'quantitative', title: s.xName, scale: { zero: false } },
     y: { field: 'y', type: 'quantitative', title: s.yName, scale: { zero: false } },
   };
-  if (s.color) encoding.color = { field: 'c', type: 'quantitative', title: colorTitle, scale: { scheme: 'viridis' } };
+  if (lab) encoding.color = { field: 'c', type: 'nominal', title: lab.name, scale: { scheme: 'tableau10' } };
+  else if (s.color) encoding.color = { field: 'c', type: 'quantitative', title: colorTitle, scale: { scheme: 'viridis' } };
   return {
     ...baseSpec(title, subtitle),
     data: { values },
