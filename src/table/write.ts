@@ -7,9 +7,9 @@
  * The file is written under a partial name in the same folder and renamed into place
  * (src/util/partial.ts: removed on SIGINT/SIGTERM, and by the next write after a SIGKILL).
  */
-import { closeSync, existsSync, openSync, renameSync, unlinkSync, writeSync } from 'node:fs';
+import { closeSync, existsSync, openSync, renameSync, writeSync } from 'node:fs';
 import { SurmiseError } from '../errors.ts';
-import { beginPartial, endPartial, removeStalePartials } from '../util/partial.ts';
+import { beginPartial, discardPartial, endPartial, removeStalePartials } from '../util/partial.ts';
 import { formatComplex, formatNumber, isMissingText } from './cell.ts';
 import { formatFromPath, type TableFormat } from './read.ts';
 import type { Column, Table } from './types.ts';
@@ -119,12 +119,7 @@ export async function writeTable(
     } catch {
       /* already closed */
     }
-    try {
-      unlinkSync(tmp);
-    } catch {
-      /* nothing to remove */
-    }
-    endPartial(tmp);
+    discardPartial(tmp);
     throw e;
   }
 }

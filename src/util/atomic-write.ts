@@ -1,6 +1,6 @@
-import { existsSync, renameSync, writeFileSync, unlinkSync } from 'node:fs';
+import { existsSync, renameSync, writeFileSync } from 'node:fs';
 import { SurmiseError } from '../errors.ts';
-import { beginPartial, endPartial, removeStalePartials } from './partial.ts';
+import { beginPartial, discardPartial, endPartial, removeStalePartials } from './partial.ts';
 
 /**
  * Write `data` to `path` via a temporary file in the same folder and a rename, so a reader never
@@ -24,12 +24,7 @@ export function writeFileAtomic(
     renameSync(tmp, path);
     endPartial(tmp);
   } catch (e) {
-    try {
-      unlinkSync(tmp);
-    } catch {
-      /* nothing to clean */
-    }
-    endPartial(tmp);
+    discardPartial(tmp);
     const err = e as NodeJS.ErrnoException;
     throw new SurmiseError(`${prefix}.unwritable`, `cannot write ${shown}: ${err.code ?? err.message}`);
   }

@@ -45,6 +45,12 @@ export function endPartial(p: string): void {
   pending.delete(p);
 }
 
+/** A write failed: remove the partial at `p` (if it was created) and stop tracking it. */
+export function discardPartial(p: string): void {
+  rmSync(p, { recursive: true, force: true });
+  pending.delete(p);
+}
+
 function alive(pid: number): boolean {
   if (pid === process.pid) return true;
   try {
