@@ -258,7 +258,7 @@ describe('rerun and compare', () => {
     for (const p of d.proposals) {
       if (p.exponents['crossings - seifert_circles + 1'] === 1 && p.exponents.strands === 0) expect(p.constant).toBeLessThanOrEqual(1);
     }
-    expect(readFileSync(join(runA, 'report.md'), 'utf8')).toContain(`abs(signature) ≤ c · (${d.proposals[0]!.rhs})`);
+    expect(readFileSync(join(runA, 'report.md'), 'utf8')).toContain(`abs(signature) ≤ c * (${d.proposals[0]!.rhs})`);
 
     // Plant a change: one random knot's signature now breaks Seifert's bound three times over.
     const changed = lines.slice(0, 801);
