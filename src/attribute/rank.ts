@@ -14,7 +14,10 @@ import { buildDataset, type Dataset, type DropReport } from '../table/dataset.ts
 import { parseDerive } from '../table/expr/index.ts';
 import { SurmiseError } from '../errors.ts';
 import { checkInteger, tooLarge } from '../util/integer.ts';
-import { RANK_LIMITS } from './limits.ts';
+import { RANK_DEFAULTS, RANK_LIMITS } from './options.ts';
+import type { Activation, LossName } from '../learn/options.ts';
+
+export { RANK_DEFAULTS } from './options.ts';
 import { deriveSeed, Rng } from '../util/rng.ts';
 import { trainNetwork } from '../learn/train.ts';
 import { trainMany } from '../learn/many.ts';
@@ -54,6 +57,16 @@ export interface RankOptions {
   hidden?: number[];
   /** Most training epochs (early stopping may end sooner). Default RANK_DEFAULTS.epochs. */
   epochs?: number;
+  /** Hidden-layer activation. Default 'relu'. */
+  activation?: Activation;
+  /** Regression loss ('huber' is less swayed by outlying rows). Default 'mse'. */
+  loss?: LossName;
+  /** Epochs without improvement on the validation rows before training stops. Default RANK_DEFAULTS.patience. */
+  patience?: number;
+  /** Mini-batch size. Default: batchSizeFor(training rows). */
+  batchSize?: number;
+  /** Adam learning rate. Default RANK_DEFAULTS.learningRate. */
+  learningRate?: number;
   /** The one seed every other is derived from. Default 1. */
   seed?: number;
   /** Network engine: 'auto' (native when it loads, else tfjs), 'native' or 'tfjs'. Default: learn's default. */
@@ -86,25 +99,17 @@ export interface RankProgress {
   message: string;
 }
 
-/** Defaults: measured on the 20,000-row demo census to finish in < 60 s on 2 cores (bench/attribute.ts). */
-export const RANK_DEFAULTS = Object.freeze({
-  seeds: 3,
-  folds: 0,
-  hidden: [64, 64, 64] as readonly number[],
-  epochs: 60,
-  patience: 8,
-  batchSize: 256,
-  learningRate: 2e-3,
-  seed: 1,
-  attributionRows: 2000,
-  smoothGradSamples: 16,
-  smoothGradNoise: 0.15,
-  integratedSteps: 32,
-  permutationRepeats: 5,
-  resamples: 1000,
-  workers: 0,
-  probes: 6,
-});
+
+/** The training settings every network of a ranking was trained with (batch size per repeat). */
+export interface TrainingUsed {
+  hidden: number[];
+  activation: Activation;
+  loss: LossName;
+  epochs: number;
+  patience: number;
+  learningRate: number;
+  batchSize: number[];
+}
 
 export interface RankEntry {
   feature: string;
@@ -146,7 +151,7 @@ export interface RankResult {
   task: Task;
   features: string[];
   groups: Array<{ name: string; members: string[] }>;
-  model: Skill & { baselines: { constant: Skill; ridge: Skill }; hidden: number[]; epochsRun: number[]; engine: EngineName };
+  model: Skill & { baselines: { constant: Skill; ridge: Skill }; hidden: number[]; epochsRun: number[]; engine: EngineName; training: TrainingUsed };
   /** The consensus of the methods run (or the one method), best first. */
   ranking: RankEntry[];
   rankingMethod: 'consensus' | AttributionMethod;
@@ -215,6 +220,17 @@ function checkOptions(o: RankOptions): void {
   count('folds', o.folds);
   if (o.folds === 1) throw new SurmiseError('rank.badOption', 'expected folds to be 0 (one random split) or at least 2, got 1', { option: 'folds' });
   count('epochs', o.epochs);
+  count('patience', o.patience);
+  count('batchSize', o.batchSize);
+  if (o.learningRate !== undefined && !(typeof o.learningRate === 'number' && Number.isFinite(o.learningRate) && o.learningRate > 0 && o.learningRate <= 10)) {
+    throw new SurmiseError('rank.badOption', `expected learningRate to be a number in (0, 10], got ${String(o.learningRate)}`, { option: 'learningRate' });
+  }
+  if (o.activation !== undefined && o.activation !== 'relu' && o.activation !== 'gelu') {
+    throw new SurmiseError('rank.badOption', `expected activation to be 'relu' or 'gelu', got ${String(o.activation)}`, { option: 'activation' });
+  }
+  if (o.loss !== undefined && o.loss !== 'mse' && o.loss !== 'huber') {
+    throw new SurmiseError('rank.badOption', `expected loss to be 'mse' or 'huber', got ${String(o.loss)}`, { option: 'loss' });
+  }
   count('seed', o.seed);
   count('dropTop', o.dropTop);
   count('workers', o.workers);
@@ -327,16 +343,18 @@ async function* trainAll(
   datas: readonly RepeatData[],
   seeds: readonly number[],
   task: Task,
-  o: { hidden: number[]; epochs: number; workers: number; integerTarget: boolean; engine?: EngineChoice },
+  o: Omit<TrainingUsed, 'batchSize'> & { batchSize: number | null; workers: number; integerTarget: boolean; engine?: EngineChoice },
   onUnits: (done: number, message: string) => void,
   labels: readonly string[],
 ): AsyncGenerator<Fit> {
   const netOptions = (d: RepeatData, seed: number) => ({
     hidden: o.hidden,
+    activation: o.activation,
+    loss: o.loss,
     maxEpochs: o.epochs,
-    patience: RANK_DEFAULTS.patience,
-    batchSize: batchSizeFor(d.train.n),
-    learningRate: RANK_DEFAULTS.learningRate,
+    patience: o.patience,
+    batchSize: o.batchSize ?? batchSizeFor(d.train.n),
+    learningRate: o.learningRate,
     seed,
     task,
     ...(o.engine ? { engine: o.engine } : {}),
@@ -414,6 +432,15 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const folds = options.folds ?? RANK_DEFAULTS.folds;
   const hidden = [...(options.hidden ?? RANK_DEFAULTS.hidden)];
   const epochs = options.epochs ?? RANK_DEFAULTS.epochs;
+  const training = {
+    hidden,
+    epochs,
+    activation: options.activation ?? RANK_DEFAULTS.activation,
+    loss: options.loss ?? RANK_DEFAULTS.loss,
+    patience: options.patience ?? RANK_DEFAULTS.patience,
+    learningRate: options.learningRate ?? RANK_DEFAULTS.learningRate,
+    batchSize: options.batchSize ?? null,
+  };
   const methods = options.methods && options.methods.length ? [...new Set(options.methods)] : [...ATTRIBUTION_METHODS];
   const attributionRows = options.attributionRows ?? RANK_DEFAULTS.attributionRows;
   const resamples = options.resamples ?? RANK_DEFAULTS.resamples;
@@ -434,7 +461,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const groups: FeatureGroup[] = ds.groups.map((g) => ({ name: g.name, members: [...g.members] }));
   const task: Task = options.task ?? chooseTask(ds.y, ds.targetKind);
   if (dropTop >= groups.length) {
-    throw new SurmiseError('rank.badOption', `--drop-top ${dropTop} would drop every one of the ${groups.length} feature groups; use at most ${groups.length - 1}`, { option: 'dropTop' });
+    throw new SurmiseError('rank.badOption', `dropTop ${dropTop} would drop every one of the ${groups.length} feature groups; use at most ${groups.length - 1}`, { option: 'dropTop' });
   }
 
   const { plans, spec } = planRepeats(table, ds, { seed, seeds: nSeeds, folds, split: options.split });
@@ -463,7 +490,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   let predictions: RankResult['predictions'];
   let confusion: RankResult['confusion'];
   let dependence: RankResult['dependence'];
-  const fits = trainAll(datas, plans.map((q) => q.seed), task, { hidden, epochs, workers, integerTarget, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
+  const fits = trainAll(datas, plans.map((q) => q.seed), task, { ...training, workers, integerTarget, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
     const d = datas[r]!;
@@ -536,6 +563,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       hidden,
       epochsRun,
       engine: engine!,
+      training: { ...training, hidden: [...hidden], batchSize: datas.map((d) => training.batchSize ?? batchSizeFor(d.train.n)) },
     },
     ranking: marked(consensusAll),
     rankingMethod: methods.length > 1 ? 'consensus' : methods[0]!,
@@ -572,7 +600,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const abScores = new Scores();
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
-    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { hidden, epochs, workers, integerTarget, engine: options.engine }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
+    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { ...training, workers, integerTarget, engine: options.engine }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
       fit.net.dispose();
       abScores.add(fit);
     }

@@ -15,7 +15,7 @@ import { rankFeatures, RANK_DEFAULTS, type RankResult, type RankEntry } from '..
 import { ATTRIBUTION_METHODS, type AttributionMethod } from '../attribute/types.ts';
 import { describeProbes } from '../attribute/probes.ts';
 import { collect, parseEngine, parseNonNegativeInt, parsePositiveInt, parseIntOption, rangeHelp } from './options.ts';
-import { RANK_LIMITS } from '../attribute/limits.ts';
+import { RANK_LIMITS } from '../attribute/options.ts';
 import { tooLarge } from '../util/integer.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
@@ -34,6 +34,11 @@ interface RankCliOptions {
   task?: string;
   hidden: string;
   epochs: string;
+  activation: string;
+  loss: string;
+  patience: string;
+  batchSize?: string;
+  learningRate: string;
   seed: string;
   dropTop: string;
   workers: string;
@@ -79,6 +84,21 @@ export function parseGroups(specs: string[]): Record<string, string[]> {
     out[name] = parseNameList(`--group ${name}=`, s.slice(eq + 1));
   }
   return out;
+}
+
+function parseChoice<T extends string>(flag: string, raw: string, choices: readonly T[]): T {
+  if (!(choices as readonly string[]).includes(raw)) {
+    throw new SurmiseError('option.badChoice', `${flag} ${raw}: expected ${choices.join(' or ')}${didYouMean(raw, choices)}`);
+  }
+  return raw as T;
+}
+
+function parseLearningRate(raw: string): number {
+  const v = Number(raw);
+  if (raw.trim() === '' || !Number.isFinite(v) || v <= 0 || v > 10) {
+    throw new SurmiseError('option.badNumber', `expected --learning-rate to be a number in (0, 10], got '${raw}'`);
+  }
+  return v;
 }
 
 export function parseHidden(raw: string): number[] {
@@ -209,6 +229,11 @@ export function registerRank(program: Command, io: CliIO): void {
     .option('--task <task>', 'regression | classification (default: chosen from the target)')
     .option('--hidden <widths>', `hidden layer widths (at most ${RANK_LIMITS.hiddenLayers.max} layers of width ${RANK_LIMITS.hiddenWidth.max})`, RANK_DEFAULTS.hidden.join(','))
     .option('--epochs <n>', `most training epochs (early stopping on the validation rows)${rangeHelp(RANK_LIMITS.epochs)}`, String(RANK_DEFAULTS.epochs))
+    .option('--activation <f>', 'hidden-layer activation: relu | gelu', RANK_DEFAULTS.activation)
+    .option('--loss <loss>', 'regression loss: mse | huber', RANK_DEFAULTS.loss)
+    .option('--patience <n>', `epochs without improvement on the validation rows before stopping${rangeHelp(RANK_LIMITS.patience)}`, String(RANK_DEFAULTS.patience))
+    .option('--batch-size <n>', `mini-batch size${rangeHelp(RANK_LIMITS.batchSize)} (default: chosen from the training rows)`)
+    .option('--learning-rate <x>', 'Adam learning rate', String(RANK_DEFAULTS.learningRate))
     .option('--seed <s>', 'the seed every other seed is derived from', String(RANK_DEFAULTS.seed))
     .option('--drop-top <k>', `also retrain without the k best groups and report the skill left${rangeHelp(RANK_LIMITS.dropTop)}`, '0')
     .option('--permutation-loss <loss>', 'classification loss for permutation importance: error (drop in accuracy) | cross-entropy', 'error')
@@ -248,6 +273,11 @@ export function registerRank(program: Command, io: CliIO): void {
         ...(o.task !== undefined ? { task: o.task as 'regression' | 'classification' } : {}),
         hidden: parseHidden(o.hidden),
         epochs: parsePositiveInt('--epochs', o.epochs, RANK_LIMITS.epochs.max),
+        activation: parseChoice('--activation', o.activation, ['relu', 'gelu'] as const),
+        loss: parseChoice('--loss', o.loss, ['mse', 'huber'] as const),
+        patience: parseNonNegativeInt('--patience', o.patience, RANK_LIMITS.patience.max),
+        ...(o.batchSize !== undefined ? { batchSize: parsePositiveInt('--batch-size', o.batchSize, RANK_LIMITS.batchSize.max) } : {}),
+        learningRate: parseLearningRate(o.learningRate),
         seed,
         dropTop: parseNonNegativeInt('--drop-top', o.dropTop, RANK_LIMITS.dropTop.max),
         workers: parseNonNegativeInt('--workers', o.workers, RANK_LIMITS.workers.max),

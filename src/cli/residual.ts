@@ -17,7 +17,7 @@ import { toJson } from '../relate/text.ts';
 import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
 import { residualRanking, RESIDUAL_LIMITS, type ResidualResult } from '../run/residual.ts';
-import { RANK_LIMITS } from '../attribute/limits.ts';
+import { RANK_LIMITS } from '../attribute/options.ts';
 import { parseHidden, parseMethods, parseNameList, parseProbes, rankingTable } from './rank.ts';
 import { splitTerms } from './fit.ts';
 import { parsePowers } from './search.ts';

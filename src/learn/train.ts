@@ -60,7 +60,7 @@ function prepareTargets(train: TrainData, val: TrainData, task: Task): Prepared 
   }
   const classes = [...new Set(train.y)].sort((a, b) => a - b);
   if (classes.length < 2) {
-    throw new SurmiseError('learn.oneClass', `classification needs at least two distinct target values in the training rows; found only ${classes[0]}`);
+    throw new SurmiseError('learn.oneClass', `classification needs at least two distinct target values in the training rows, but every training row has the target value ${classes[0]}; a constant target leaves nothing to predict`);
   }
   if (classes.length > MAX_CLASSIFIER_OUTPUTS) {
     throw new SurmiseError(

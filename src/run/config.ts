@@ -9,7 +9,7 @@ import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNo
 import { z } from 'zod';
 import { SurmiseError, didYouMean, fileErrorReason } from '../errors.ts';
 import type { IntegerRange } from '../util/integer.ts';
-import { RANK_LIMITS } from '../attribute/limits.ts';
+import { RANK_DEFAULTS, RANK_LIMITS } from '../attribute/options.ts';
 import { RELATE_LIMITS } from '../relate/limits.ts';
 import { BOUND_LIMITS } from '../bound/find.ts';
 import { RESIDUAL_LIMITS } from './residual.ts';
@@ -21,21 +21,22 @@ const exprString = z.string().min(1);
 const listOf = <T extends z.ZodType>(item: T, min = 0) => z.preprocess((v) => (typeof v === 'string' ? [v] : v), z.array(item).min(min));
 
 const NetworkSchema = z.strictObject({
-  hidden: z.array(count(RANK_LIMITS.hiddenWidth)).min(1).max(RANK_LIMITS.hiddenLayers.max).default([64, 64, 64]),
-  activation: z.enum(['relu', 'gelu']).default('relu'),
-  loss: z.enum(['mse', 'huber']).default('mse'),
+  hidden: z.array(count(RANK_LIMITS.hiddenWidth)).min(1).max(RANK_LIMITS.hiddenLayers.max).default([...RANK_DEFAULTS.hidden]),
+  activation: z.enum(['relu', 'gelu']).default(RANK_DEFAULTS.activation),
+  loss: z.enum(['mse', 'huber']).default(RANK_DEFAULTS.loss),
   task: z.enum(['auto', 'regression', 'classification']).default('auto'),
-  epochs: count(RANK_LIMITS.epochs).default(60),
-  patience: count({ min: 1, max: RANK_LIMITS.epochs.max }).default(8),
-  batchSize: count({ min: 1, max: 1 << 20 }).default(256),
-  learningRate: z.number().positive().default(0.001),
+  epochs: count(RANK_LIMITS.epochs).default(RANK_DEFAULTS.epochs),
+  patience: count(RANK_LIMITS.patience).default(RANK_DEFAULTS.patience),
+  /** absent: chosen from the training rows (batchSizeFor) */
+  batchSize: count(RANK_LIMITS.batchSize).optional(),
+  learningRate: z.number().positive().max(10).default(RANK_DEFAULTS.learningRate),
   engine: z.enum(['auto', 'native', 'tfjs']).default('auto'),
 });
 
 const AttributionSchema = z.strictObject({
   methods: listOf(z.enum(['saliency', 'smoothgrad', 'integrated', 'permutation']), 1)
     .default(['saliency', 'smoothgrad', 'integrated', 'permutation']),
-  seeds: count(RANK_LIMITS.seeds).default(3),
+  seeds: count(RANK_LIMITS.seeds).default(RANK_DEFAULTS.seeds),
   folds: count(RANK_LIMITS.folds).default(0),
   dropTop: count(RANK_LIMITS.dropTop).default(0),
   /** Noise probes per repeat (attribute/probes.ts). */

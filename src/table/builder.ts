@@ -4,7 +4,7 @@
  * turns out to hold labels after numeric cells asks the reader for the raw text of those cells
  * (`needsText`), so the reader never keeps every cell's text of a numeric table.
  */
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, printable } from '../errors.ts';
 import { formatComplex, formatNumber, isMissingText, parseComplexText, parseNumberText, scanDecimal, scanDecimalBytes, scannedValue } from './cell.ts';
 import type { Column, ColumnKind } from './types.ts';
 
@@ -289,5 +289,5 @@ function firstNonzero(a: Float64Array): number {
 }
 
 function clip(s: string): string {
-  return s.length > 40 ? `${s.slice(0, 37)}...` : s;
+  return printable(s, 40);
 }

@@ -3,7 +3,7 @@
  * real/imaginary column pairs into complex columns, looking a column up by name, and building
  * tables from in-memory records or columns.
  */
-import { SurmiseError, didYouMean } from '../errors.ts';
+import { SurmiseError, didYouMean, printable } from '../errors.ts';
 import { formatComplex, formatNumber } from './cell.ts';
 import { ColumnBuilder, type Place } from './builder.ts';
 import type { Column, ColumnKind, Table } from './types.ts';
@@ -340,7 +340,7 @@ export function finishBuilders(
   const columns = builders.map((b, j) => {
     if (kinds[j] === 'label' && b.declared === undefined && b.nNumeric > 0)
       notes.push(
-        `column '${b.name}' read as labels: ${b.nText} of ${b.nNumeric + b.nText} cells are not numbers (first: line ${place.lineOf(b.firstTextRow) ?? `record ${b.firstTextRow + 1}`}, '${b.firstText}')`,
+        `column '${printable(b.name, 80)}' read as labels: ${b.nText} of ${b.nNumeric + b.nText} cells are not numbers (first: line ${place.lineOf(b.firstTextRow) ?? `record ${b.firstTextRow + 1}`}, '${printable(b.firstText)}')`,
       );
     return b.finish(kinds[j]!);
   });

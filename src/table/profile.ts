@@ -52,11 +52,27 @@ export interface TableProfile {
   /** rows used for the correlations (all rows, or a seeded sample) */
   correlationRows: number;
   correlationSampled: boolean;
+  /** numeric series (a complex column gives two) compared pairwise, of those in the table, and the pairs computed */
+  correlationSeries: { compared: number; numeric: number; pairs: number };
   notes: string[];
 }
 
 export const CORRELATION_SAMPLE = 200_000;
 export const TOP_CORRELATIONS = 10;
+/** Most pairs of numeric series correlated (10,000 columns would make 50 million). */
+export const MAX_CORRELATION_PAIRS = 500_000;
+/** Most pairs × rows of correlation work, about a second or two of arithmetic. */
+export const MAX_CORRELATION_WORK = 1e9;
+
+/**
+ * How many numeric series (in table order) are compared pairwise on `rows` rows: all of them
+ * unless the pairs or the work (pairs × rows) would pass their ceilings.
+ */
+export function correlationSeriesLimit(rows: number): number {
+  const pairs = Math.min(MAX_CORRELATION_PAIRS, MAX_CORRELATION_WORK / Math.max(1, rows));
+  // largest s with s(s − 1)/2 ≤ pairs
+  return Math.max(2, Math.floor((1 + Math.sqrt(1 + 8 * pairs)) / 2));
+}
 
 /**
  * Mean and sample standard deviation by two passes with compensated sums
@@ -169,10 +185,10 @@ function numericSeries(columns: Column[]): Series[] {
  * `rows`, pairwise-complete (rows where both values are finite; a complex cell counts as finite
  * only when both its parts are), strongest first.
  */
-export function spearmanPairs(columns: Column[], rows: Int32Array, top = TOP_CORRELATIONS): Correlation[] {
-  const series = numericSeries(columns);
+export function spearmanPairs(columns: Column[], rows: Int32Array, top = TOP_CORRELATIONS, maxSeries = Infinity): Correlation[] {
+  const series = numericSeries(columns).slice(0, maxSeries);
   const m = rows.length;
-  // per series: finite flags over the sampled rows, and ranks when complete
+  // per series: finite flags over the sampled rows, and centred ranks with their norm when complete
   const finite = series.map((s) => {
     const f = new Uint8Array(m);
     for (let k = 0; k < m; k++) {
@@ -182,31 +198,50 @@ export function spearmanPairs(columns: Column[], rows: Int32Array, top = TOP_COR
     }
     return f;
   });
-  const complete = finite.map((f) => f.every((v) => v === 1));
-  const fullRanks = series.map((s, j) => (complete[j] ? averageRanks(s.values, rows) : null));
-  const out: Correlation[] = [];
+  const centred = series.map((s, j) => (finite[j]!.every((v) => v === 1) ? centredRanks(averageRanks(s.values, rows)) : null));
+  // only the strongest pairs are kept: the list is cut back to `top` whenever it grows past 4·top
+  let out: Correlation[] = [];
+  const strongestFirst = (p: Correlation, q: Correlation) => Math.abs(q.rho) - Math.abs(p.rho) || (p.a + p.b < q.a + q.b ? -1 : 1);
   for (let a = 0; a < series.length; a++)
     for (let b = a + 1; b < series.length; b++) {
-      let ra: Float64Array;
-      let rb: Float64Array;
+      let rho: number;
       let n = m;
-      if (fullRanks[a] && fullRanks[b]) {
-        ra = fullRanks[a]!;
-        rb = fullRanks[b]!;
+      const ca = centred[a];
+      const cb = centred[b];
+      if (ca && cb) {
+        rho = ca.norm === 0 || cb.norm === 0 ? NaN : dot(ca.values, cb.values) / (ca.norm * cb.norm);
       } else {
         const sub: number[] = [];
         for (let k = 0; k < m; k++) if (finite[a]![k] && finite[b]![k]) sub.push(rows[k]!);
         n = sub.length;
         if (n < 3) continue;
         const r = Int32Array.from(sub);
-        ra = averageRanks(series[a]!.values, r);
-        rb = averageRanks(series[b]!.values, r);
+        rho = pearson(averageRanks(series[a]!.values, r), averageRanks(series[b]!.values, r));
       }
-      const rho = pearson(ra, rb);
       if (Number.isFinite(rho)) out.push({ a: series[a]!.name, b: series[b]!.name, rho, n });
+      if (out.length > 4 * top) out = out.sort(strongestFirst).slice(0, top);
     }
-  out.sort((p, q) => Math.abs(q.rho) - Math.abs(p.rho) || (p.a + p.b < q.a + q.b ? -1 : 1));
-  return out.slice(0, top);
+  return out.sort(strongestFirst).slice(0, top);
+}
+
+/** Ranks minus their mean, and the Euclidean norm of that (compensated sums). */
+function centredRanks(r: Float64Array): { values: Float64Array; norm: number } {
+  const mean = kahanSum(r) / r.length;
+  const values = r.map((x) => x - mean);
+  return { values, norm: Math.sqrt(kahanSum(values.map((x) => x * x))) };
+}
+
+/** Σ x_i y_i with Neumaier's compensated summation (Neumaier 1974). */
+function dot(x: Float64Array, y: Float64Array): number {
+  let s = 0;
+  let c = 0;
+  for (let i = 0; i < x.length; i++) {
+    const t = x[i]! * y[i]!;
+    const u = s + t;
+    c += Math.abs(s) >= Math.abs(t) ? s - u + t : t - u + s;
+    s = u;
+  }
+  return s + c;
 }
 
 const F64 = new Float64Array(1);
@@ -339,7 +374,16 @@ export function profileTable(table: Table, opts: { sampleRows?: number; seed?: n
     rows = new Int32Array(table.nRows);
     for (let i = 0; i < table.nRows; i++) rows[i] = i;
   }
-  const correlations = spearmanPairs(table.columns, rows);
+  const numeric = numericSeries(table.columns).length;
+  const limit2 = correlationSeriesLimit(rows.length);
+  const compared = Math.min(numeric, limit2);
+  if (compared < numeric) {
+    notes.push(
+      `rank correlations compared the first ${compared.toLocaleString('en-US')} of ${numeric.toLocaleString('en-US')} numeric series ` +
+        `(at most ${MAX_CORRELATION_PAIRS.toLocaleString('en-US')} pairs, and pairs × rows at most ${MAX_CORRELATION_WORK.toExponential(0)}); the rest were not compared`,
+    );
+  }
+  const correlations = spearmanPairs(table.columns, rows, TOP_CORRELATIONS, compared);
   return {
     source: table.source,
     rows: table.nRows,
@@ -348,6 +392,7 @@ export function profileTable(table: Table, opts: { sampleRows?: number; seed?: n
     correlations,
     correlationRows: rows.length,
     correlationSampled: sampled,
+    correlationSeries: { compared, numeric, pairs: (compared * (compared - 1)) / 2 },
     notes: [...(table.notes ?? []), ...notes],
   };
 }

@@ -93,7 +93,31 @@ class GrowInt32 {
   }
 }
 
+const SEPARATOR_NAMES: Record<string, string> = { ',': 'commas', '\t': 'tabs', ';': 'semicolons', '|': 'vertical bars' };
+
+/**
+ * A header read as one field that another separator would split (tab-separated text in a .csv
+ * file, say) is refused with a hint, rather than read as a table of one column.
+ */
+function refuseWrongDelimiter(head: string[], quoted: boolean[], sep: string, display: string, line: number): void {
+  if (head.length !== 1 || quoted[0]) return;
+  for (const other of ['\t', ',', ';', '|']) {
+    if (other === sep) continue;
+    const k = head[0]!.split(other).length - 1;
+    if (k >= 1) {
+      const fmt = other === '\t' ? 'tsv' : other === ',' ? 'csv' : null;
+      throw new SurmiseError(
+        'table.wrongDelimiter',
+        `${display}:${line}: the header has no ${SEPARATOR_NAMES[sep]} but ${k} ${SEPARATOR_NAMES[other]}, so it would be read as one column; ` +
+          (fmt ? `read it as ${fmt.toUpperCase()} (format ${fmt}, or name the file .${fmt})` : `write it with ${SEPARATOR_NAMES[sep]} between fields`),
+        { line, separator: other },
+      );
+    }
+  }
+}
+
 function readDelimited(path: string, display: string, sep: string, opts: ReadOptions): Table {
+  const unnamed: string[] = [];
   let header: string[] | null = null;
   let headerLine = 0;
   const head: string[] = [];
@@ -112,7 +136,11 @@ function readDelimited(path: string, display: string, sep: string, opts: ReadOpt
     },
     endRow(nFields, line) {
       if (header === null) {
-        header = head.map((n, j) => (n.trim() === '' && !headQuoted[j] ? `column_${j + 1}` : n));
+        refuseWrongDelimiter(head, headQuoted, sep, display, line);
+        header = head.map((n, j) => (n.trim() === '' ? `column_${j + 1}` : n));
+        head.forEach((n, j) => {
+          if (n.trim() === '') unnamed.push(`column ${j + 1} has no name in the header (line ${line}); it is called '${header![j]}'`);
+        });
         headerLine = line;
         checkUniqueNames(header, display, `line ${line}`);
         checkKinds(opts.kinds, header, display, opts.complexPairs ?? 'auto');
@@ -176,6 +204,7 @@ function readDelimited(path: string, display: string, sep: string, opts: ReadOpt
     scanDelimited(path, display, sep, h2);
   });
   if (info.blankLines > 0) (t.notes ??= []).push(`${info.blankLines} blank line${info.blankLines === 1 ? '' : 's'} skipped`);
+  if (unnamed.length) (t.notes ??= []).push(...unnamed);
   return t;
 }
 

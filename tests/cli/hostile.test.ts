@@ -26,6 +26,12 @@ export interface HostileRow {
 }
 
 const XY = 'x,y\n1,2\n2,4\n3,6.5\n4,8\n5,10.1\n6,12\n';
+/** An invented table of `cols` columns and `rows` rows. */
+const wide = (cols: number, rows: number): string => {
+  const lines = [Array.from({ length: cols }, (_, j) => `c${j}`).join(',')];
+  for (let i = 0; i < rows; i++) lines.push(Array.from({ length: cols }, (_, j) => ((i * 7919 + j * 104729) % 1000) / 10).join(','));
+  return lines.join('\n') + '\n';
+};
 const sum = (n: number, op: string) => Array.from({ length: n }, () => 'x').join(op);
 const aliasBomb =
   'a: &a ["x","x","x","x","x","x","x","x","x"]\n' +
@@ -79,6 +85,13 @@ export const ROWS: HostileRow[] = [
   { name: 'run without --force into an existing folder', args: ['run', 'c.yaml'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/notes.txt': 'mine' }, exit: 2, code: 'output.exists' },
   { name: 'knots generate --out over an existing file', args: ['knots', 'generate', 'torus', '--p', '2..3', '--q', '3..5', '--out', 'xy.csv'], files: { 'xy.csv': XY }, exit: 2, code: 'knots.exists' },
 
+  // ---- unclear input
+  { name: 'TSV content in a .csv file', args: ['inspect', 'tabs.csv'], files: { 'tabs.csv': 'a\tb\n1\t2\n' }, exit: 2, code: 'table.wrongDelimiter', says: 'read it as TSV' },
+  { name: 'a cell of 5 MB with control bytes (note cut and escaped)', args: ['inspect', 'huge.csv'], files: { 'huge.csv': 'a,b\n1,2\n2,' + '\u0007x'.repeat(2_500_000) + '\n3,4\n' }, exit: 0 },
+  { name: 'empty column name (named with a note)', args: ['inspect', 'blank.csv'], files: { 'blank.csv': 'a,,c\n1,2,3\n4,5,6\n' }, exit: 0 },
+  { name: 'constant target says what the value is', args: ['rank', 'const.csv', '--target', 'y', '--seeds', '1', '--epochs', '1', '--no-progress'], files: { 'const.csv': 'x,y\n' + Array.from({ length: 30 }, (_, i) => `${i},5`).join('\n') + '\n' }, exit: 2, code: 'learn.oneClass', says: 'target value 5' },
+  { name: '10,000-column table (correlations capped with a note)', args: ['inspect', 'wide.csv', '--json'], files: { 'wide.csv': wide(10_000, 8) }, exit: 0 },
+
   // ---- names that are also constants
   { name: 'bare e that is also a column (fit)', args: ['fit', 'econ.csv', '--target', 'y', '--terms', 'e'], files: { 'econ.csv': 'x,e,y\n1,2,3\n2,3,5\n3,4,7\n4,5,9.5\n5,6,11\n' }, exit: 2, code: 'expr.ambiguousName', says: 'write `e`' },
   { name: 'bare pi that is also a column (bound)', args: ['bound', 'pi.csv', '--lhs', 'y', '--rhs', 'pi'], files: { 'pi.csv': 'pi,y\n1,2\n2,3\n' }, exit: 2, code: 'expr.ambiguousName', says: 'write `pi`' },
@@ -106,8 +119,10 @@ describe('hostile inputs: one clear line, the right exit code and error code', (
       expect(io.err).not.toContain('internal error');
       if (row.code) expect(io.err).toContain(`[${row.code}]`);
       if (row.says) expect(io.err).toContain(row.says);
-      // a message never runs past a few lines, whatever the input's size
+      // a message never runs past a few lines, whatever the input's size, and output never echoes a huge cell
       expect(io.err.length).toBeLessThan(2000);
+      expect(io.out.length).toBeLessThan(3_000_000);
+      expect(io.out + io.err).not.toMatch(/[\u0000-\u0008\u000b-\u001f]/);
     });
   }
 });

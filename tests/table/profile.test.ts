@@ -11,7 +11,7 @@ import { mean, sampleStandardDeviation, sampleRankCorrelation } from 'simple-sta
 import { readTable } from '../../src/table/read.ts';
 import { writeTable } from '../../src/table/write.ts';
 import { tableFromRecords, tableFromColumns } from '../../src/table/columns.ts';
-import { profileTable, numericStats, averageRanks, countDuplicateRows } from '../../src/table/profile.ts';
+import { profileTable, numericStats, averageRanks, countDuplicateRows, correlationSeriesLimit, MAX_CORRELATION_PAIRS, MAX_CORRELATION_WORK, TOP_CORRELATIONS } from '../../src/table/profile.ts';
 import { Rng } from '../../src/util/rng.ts';
 import { put, tempDir } from './helpers.ts';
 import { join } from 'node:path';
@@ -191,5 +191,34 @@ describe('profile details', () => {
     // same population, two sample sizes: rho of a strong linear relation agrees to a few hundredths (common practice)
     expect(Math.abs(p.correlations[0]!.rho - full.correlations[0]!.rho)).toBeLessThan(0.02);
     expect(profileTable(t, { sampleRows: 1000 }).correlations).toEqual(p.correlations);
+  });
+
+  it('a 10,000-column table: only the first series within the pair ceiling are compared, said in a note; only the top pairs are kept', () => {
+    // sizes, not time: the pairs computed are bounded by MAX_CORRELATION_PAIRS whatever the width
+    const n = 20;
+    const cols = Array.from({ length: 10_000 }, (_, j) => ({
+      name: `c${j}`,
+      kind: 'real' as const,
+      values: Float64Array.from({ length: n }, (_, i) => ((i * 7919 + j * 104729) % 1000) / 10),
+      missing: new Uint8Array(n),
+    }));
+    const p = profileTable(tableFromColumns(cols));
+    const s = correlationSeriesLimit(n);
+    expect(s * (s - 1) / 2).toBeLessThanOrEqual(MAX_CORRELATION_PAIRS);
+    expect((s + 1) * s / 2).toBeGreaterThan(MAX_CORRELATION_PAIRS);
+    expect(p.correlationSeries).toEqual({ compared: s, numeric: 10_000, pairs: s * (s - 1) / 2 });
+    expect(p.correlationSeries.pairs).toBeLessThanOrEqual(MAX_CORRELATION_PAIRS);
+    expect(p.correlations).toHaveLength(TOP_CORRELATIONS);
+    expect(p.notes.some((t) => t.includes(`compared the first ${s.toLocaleString('en-US')} of 10,000 numeric series`))).toBe(true);
+    // the kept pairs are the strongest among those compared: spot-check against simple-statistics
+    const byName = new Map(cols.map((c) => [c.name, Array.from(c.values)]));
+    for (const c of p.correlations.slice(0, 3)) {
+      expect(c.rho).toBeCloseTo(sampleRankCorrelation(byName.get(c.a)!, byName.get(c.b)!), 10);
+    }
+  });
+
+  it('keeps pairs × rows within the work ceiling on long tables', () => {
+    expect(correlationSeriesLimit(200_000) ** 2 / 2 * 200_000).toBeLessThanOrEqual(MAX_CORRELATION_WORK * 1.01);
+    expect(correlationSeriesLimit(3)).toBeGreaterThan(900);
   });
 });

@@ -26,6 +26,20 @@ const rows95 = Array.from({ length: 40 }, (_, i) => `${i},${i * 0.5}`);
 rows95[30] = '30,12abc';
 
 const cases: Case[] = [
+  {
+    name: 'tab-separated text in a .csv file',
+    file: 'tabs.csv',
+    text: 'a\tb\tc\n1\t2\t3\n',
+    code: 'table.wrongDelimiter',
+    message: 'tabs.csv:1: the header has no commas but 2 tabs, so it would be read as one column; read it as TSV (format tsv, or name the file .tsv)',
+  },
+  {
+    name: 'comma-separated text in a .tsv file',
+    file: 'commas.tsv',
+    text: 'a,b\n1,2\n',
+    code: 'table.wrongDelimiter',
+    message: 'commas.tsv:1: the header has no tabs but 1 commas, so it would be read as one column; read it as CSV (format csv, or name the file .csv)',
+  },
   { name: 'empty file', file: 'empty.csv', text: '', code: 'table.empty', message: 'empty.csv is empty: expected a header line and rows' },
   { name: 'header only', file: 'head.csv', text: 'a,b,c\n', code: 'table.noRows', message: 'head.csv has a header (line 1) but no rows' },
   {
@@ -159,6 +173,28 @@ describe('bad input through readTable', () => {
     const err = (await readTable(p, { displayName: 'locked.csv' }).catch((e) => e)) as SurmiseError;
     expect(err.code).toBe('table.unreadable');
     expect(err.message).toBe('cannot read locked.csv: permission denied');
+  });
+});
+
+describe('notes about odd cells and names', () => {
+  it('a 5 MB cell of control bytes is cut and escaped in the note, never echoed', async () => {
+    const p = put(dir, 'huge.csv', 'a,b\n1,2\n2,' + '\u0007x'.repeat(2_500_000) + '\n3,4\n');
+    const t = await readTable(p, { displayName: 'huge.csv' });
+    const note = t.notes!.find((n) => n.startsWith("column 'b' read as labels"))!;
+    expect(note.length).toBeLessThan(500);
+    expect(note).toContain('\\u0007x');
+    expect(note).toContain('(5,000,000 characters)');
+    expect(note).not.toMatch(/[\u0000-\u001f]/);
+  });
+
+  it('an empty column name is named column_N with a note', async () => {
+    const p = put(dir, 'blank.csv', 'a,,"",d\n1,2,3,4\n');
+    const t = await readTable(p, { displayName: 'blank.csv' });
+    expect(t.columns.map((c) => c.name)).toEqual(['a', 'column_2', 'column_3', 'd']);
+    expect(t.notes).toEqual([
+      "column 2 has no name in the header (line 1); it is called 'column_2'",
+      "column 3 has no name in the header (line 1); it is called 'column_3'",
+    ]);
   });
 });
 
