@@ -12,7 +12,8 @@
  * Targets (ratios to the peer): train-h300 ≥ 1.3, train-h64 ≥ 1.5, gradients ≥ 1.0; startup
  * --version and --help < 0.3 s, inspect < 0.6 s. PyTorch is looked for as SURMISE_PYTHON, then
  * python3, then the system's /usr/bin/python3; its fast BLAS needs
- * LD_LIBRARY_PATH=/usr/lib/x86_64-linux-gnu/openblas-openmp (set here when that folder exists).
+ * LD_LIBRARY_PATH=/usr/lib/x86_64-linux-gnu/openblas-openmp (set here when that folder exists);
+ * its OpenMP threads are told not to spin (below).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -48,7 +49,14 @@ const load = () => os.loadavg().map((v) => v.toFixed(1)).join(' ');
 
 // ---- the peer: PyTorch in a child process -------------------------------------------------
 const BLAS = '/usr/lib/x86_64-linux-gnu/openblas-openmp';
-const pyEnv = { ...process.env, ...(existsSync(BLAS) ? { LD_LIBRARY_PATH: [BLAS, process.env.LD_LIBRARY_PATH].filter(Boolean).join(':') } : {}) };
+// OpenMP threads sleep when idle (OMP_WAIT_POLICY=PASSIVE), as the native engine's do: on a shared
+// machine the default spinning made the peer 20× slower (one epoch at H = 300: 50.7 s against
+// 2.5 s, load average 20), which would flatter every ratio
+const pyEnv = {
+  ...process.env,
+  OMP_WAIT_POLICY: process.env.OMP_WAIT_POLICY ?? 'PASSIVE',
+  ...(existsSync(BLAS) ? { LD_LIBRARY_PATH: [BLAS, process.env.LD_LIBRARY_PATH].filter(Boolean).join(':') } : {}),
+};
 const PY_SCRIPT = fileURLToPath(new URL('./learn_torch.py', import.meta.url));
 const python = [process.env.SURMISE_PYTHON, 'python3', '/usr/bin/python3'].find(
   (py) => py && spawnSync(py, ['-c', 'import torch'], { env: pyEnv, stdio: 'ignore' }).status === 0,

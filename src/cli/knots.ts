@@ -32,6 +32,8 @@ import {
   braidClosurePD,
   canonicalLabels,
   pdConnectedSum,
+  MAX_CROSSINGS,
+  MAX_STRANDS,
   type Braid,
   type Crossing,
   type DiagramKind,
@@ -118,7 +120,8 @@ function jsonRow(name: string, r: KnotInvariants, inv: readonly InvariantName[])
       o.alexander_text = r.alexanderText ?? null;
       o.alexander_sign_fixed = r.alexanderSignFixed ?? null;
     } else if (k === 'linking') o.linking = r.linking ?? [];
-    else if (k === 'jumps') o.jumps = r.jumps ?? [];
+    else if (k === 'jumps') o.jumps = r.jumps ?? null;
+    else if (k === 'unit_roots') o.unit_roots = r.unitRoots ?? null;
     else if (k === 'hyperbolic') {
       const h = r.hyperbolic;
       o.geometry = h?.geometry ?? null;
@@ -145,11 +148,13 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   const path = resolve(io.cwd, file);
   const sources = await readDiagramFile(path, { column: o.column, nameColumn: o.nameColumn, displayName: file });
   if (sources.length === 0) throw new SurmiseError('knots.empty', `${file} holds no diagrams`);
-  const progress = makeProgress(io, 'knots', o.progress !== false && sources.length >= 200);
+  // long batches: many diagrams, or long ones (a few hundred crossings and up); lines at most every 5 s on a pipe
+  const long = sources.length >= 200 || sources.some((s) => s.code.length > 2000);
+  const progress = makeProgress(io, 'knots', o.progress !== false && long);
   const results: KnotInvariants[] = [];
   sources.forEach((s, k) => {
     results.push(invariantsOf(s, file, kind, { invariants: inv, omega }));
-    if (k % 100 === 99) progress.update(k + 1, sources.length);
+    progress.update(k + 1, sources.length, s.name);
   });
   progress.update(sources.length, sources.length);
   progress.stop();
@@ -157,7 +162,7 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   const prefix = o.prefix ?? '';
   const records = sources.map((s, k) => tableRecord(s.name, results[k]!, inv));
   const kinds: Record<string, 'label' | 'integer' | 'real' | 'complex'> = { name: 'label' };
-  for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
+  for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' || k === 'unit_roots' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
   if (inv.includes('hyperbolic')) {
     delete kinds.hyperbolic;
     Object.assign(kinds, { geometry: 'label', geometry_reason: 'label', volume: 'real', cusp_shape: 'complex', natural_slope: 'real' });
@@ -230,11 +235,40 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   else io.stderr(`surmise knots: wrote ${table.nRows} rows to ${o.out}\n`);
 }
 
+/**
+ * Ceilings of the generators' count options (a larger value is refused, `knots.tooLarge`): they keep
+ * a file within memory and every diagram within what `surmise knots` reads (MAX_STRANDS strands,
+ * MAX_CROSSINGS crossings). --twists and --q bound |value|.
+ */
+export const GENERATE_CEILINGS: Readonly<Record<string, { max: number; unit: string }>> = {
+  '--count': { max: 1_000_000, unit: 'diagrams' },
+  '--strands': { max: MAX_STRANDS, unit: 'strands' },
+  '--length': { max: MAX_CROSSINGS, unit: 'letters' },
+  '--summands': { max: 100, unit: 'summands' },
+  '--kinks': { max: MAX_CROSSINGS, unit: 'kinks' },
+  '--twists': { max: MAX_CROSSINGS, unit: 'full twists in absolute value' },
+  '--p': { max: MAX_STRANDS, unit: 'strands' },
+  '--q': { max: MAX_CROSSINGS, unit: 'in absolute value' },
+};
+
+function ceiling(name: string, v: number): number {
+  const c = GENERATE_CEILINGS[name]!;
+  if (Math.abs(v) > c.max) throw new SurmiseError('knots.tooLarge', `${name} ${v}: at most ${c.max} ${c.unit} (the ceiling of ${name})`);
+  return v;
+}
+
+/** A generated diagram must be one that `surmise knots` reads. */
+function generatedSize(crossings: number, what: string): void {
+  if (crossings > MAX_CROSSINGS)
+    throw new SurmiseError('knots.tooLarge', `${what} would have up to ${crossings} crossings; at most ${MAX_CROSSINGS} crossings are accepted`);
+}
+
 function parseRange(name: string, raw: string): [number, number] {
   const m = /^\s*(-?\d+)\s*(?:\.\.\s*(-?\d+)\s*)?$/.exec(raw);
   if (!m) throw new SurmiseError('knots.option', `${name} ${raw}: expected an integer or a range a..b`);
   const a = Number(m[1]);
   const b = m[2] === undefined ? a : Number(m[2]);
+  if (GENERATE_CEILINGS[name]) for (const v of [a, b]) ceiling(name, v);
   if (b < a) throw new SurmiseError('knots.option', `${name} ${raw}: the range is empty (${a} > ${b})`);
   return [a, b];
 }
@@ -281,14 +315,14 @@ export function registerKnots(program: Command, io: CliIO): void {
     .description('random braid words, each letter uniform on ±1..±(strands−1)')
     .requiredOption('--strands <n>', 'number of strands (≥ 2)')
     .requiredOption('--length <n>', 'letters per word')
-    .option('--count <n>', 'number of words', '100')
+    .option('--count <n>', 'number of words (at most 1000000)', '100')
     .option('--seed <n>', 'seed', '1')
     .action((_o: unknown, cmd: Command) => {
       // options shared by name with `knots` (--out, --force, --json) may be parsed by it: merge
       const o = cmd.optsWithGlobals() as { strands: string; length: string; count: string; seed: string; out?: string; force?: boolean; json?: boolean };
-      const strands = parsePositiveInt('--strands', o.strands);
-      const length = parsePositiveInt('--length', o.length);
-      const count = parsePositiveInt('--count', o.count);
+      const strands = ceiling('--strands', parsePositiveInt('--strands', o.strands));
+      const length = ceiling('--length', parsePositiveInt('--length', o.length));
+      const count = ceiling('--count', parsePositiveInt('--count', o.count));
       const seed = parseIntOption('--seed', o.seed);
       const rng = new Rng(deriveSeed(seed, 'knots', 'generate', 'braid'));
       const width = String(count).length;
@@ -304,17 +338,18 @@ export function registerKnots(program: Command, io: CliIO): void {
     .description('random PD codes of knots: connected sums of closed random braids, with Reidemeister I kinks')
     .requiredOption('--strands <n>', 'strands of each random braid (≥ 2)')
     .requiredOption('--length <n>', 'letters of each random braid (its parity may be changed by one so the closure is a knot)')
-    .option('--count <n>', 'number of codes', '100')
+    .option('--count <n>', 'number of codes (at most 1000000)', '100')
     .option('--summands <a..b>', 'number of connected summands', '1')
     .option('--kinks <a..b>', 'number of R1 kinks added', '0')
     .option('--seed <n>', 'seed', '1')
     .action((_o: unknown, cmd: Command) => {
       const o = cmd.optsWithGlobals() as { strands: string; length: string; count: string; summands: string; kinks: string; seed: string; out?: string; force?: boolean; json?: boolean };
-      const strands = parsePositiveInt('--strands', o.strands);
-      const length = parsePositiveInt('--length', o.length);
-      const count = parsePositiveInt('--count', o.count);
+      const strands = ceiling('--strands', parsePositiveInt('--strands', o.strands));
+      const length = ceiling('--length', parsePositiveInt('--length', o.length));
+      const count = ceiling('--count', parsePositiveInt('--count', o.count));
       const [s0, s1] = parseRange('--summands', o.summands);
       const [k0, k1] = parseRange('--kinks', o.kinks);
+      generatedSize(s1 * (length + 1) + k1, `with --summands ${o.summands}, --length ${length} and --kinks ${o.kinks} a PD code`);
       if (s0 < 1) throw new SurmiseError('knots.option', `--summands ${o.summands}: at least 1`);
       if (k0 < 0) throw new SurmiseError('knots.option', `--kinks ${o.kinks}: at least 0`);
       if (strands < 2) throw new SurmiseError('knots.option', `--strands must be an integer ≥ 2, got ${strands}`);
@@ -350,6 +385,8 @@ export function registerKnots(program: Command, io: CliIO): void {
       if (parsed.kind !== 'braid') throw new SurmiseError('knots.option', '--braid must be a braid word');
       const [i, j] = parseRange('--on', o.on);
       const [q0, q1] = parseRange('--twists', o.twists);
+      const perTwist = (j - i + 1) * (j - i);
+      generatedSize(parsed.braid.word.length + Math.max(Math.abs(q0), Math.abs(q1)) * perTwist, `with --twists ${o.twists} on ${i}..${j} the braid`);
       const lines: string[] = [];
       for (let q = q0; q <= q1; q++) {
         const b = twistedBraid(parsed.braid, i, j, q);
@@ -367,6 +404,7 @@ export function registerKnots(program: Command, io: CliIO): void {
       const o = cmd.optsWithGlobals() as { p: string; q: string; coprime?: boolean; out?: string; force?: boolean; json?: boolean };
       const [p0, p1] = parseRange('--p', o.p);
       const [q0, q1] = parseRange('--q', o.q);
+      generatedSize((p1 - 1) * Math.max(Math.abs(q0), Math.abs(q1)), `with --p ${o.p} and --q ${o.q} the braid of T(p, q)`);
       const gcd = (a: number, b: number): number => (b ? gcd(b, a % b) : Math.abs(a));
       const lines: string[] = [];
       for (let p = p0; p <= p1; p++)

@@ -32,6 +32,25 @@ interface SearchOptions {
   json?: boolean;
   progress: boolean;
   keepDuplicates?: boolean;
+  time: string;
+  lattice: string;
+  maxComplexity: string;
+}
+
+/** `--time 60s` (also `90`, `2m`, `1.5m`): seconds, within (0, 86400]. */
+export function parseDuration(text: string): number {
+  const m = /^\s*(\d+(?:\.\d+)?)\s*(s|m|min)?\s*$/.exec(text);
+  const v = m ? Number(m[1]) * (m[2] && m[2] !== 's' ? 60 : 1) : NaN;
+  if (!(v > 0 && v <= 86_400)) throw new SurmiseError('relate.badOption', `--time ${text}: expected a duration such as 60s or 2m, at most 24 hours`);
+  return v;
+}
+
+/** `--lattice auto|off|STEP`. */
+export function parseLattice(text: string): 'auto' | 'off' | number {
+  if (text === 'auto' || text === 'off') return text;
+  const v = Number(text);
+  if (text.trim() === '' || !(Number.isFinite(v) && v > 0)) throw new SurmiseError('relate.badOption', `--lattice ${text}: expected auto, off or a positive step such as 2`);
+  return v;
 }
 
 /** `lo..hi` with integers, e.g. `-3..3`. */
@@ -44,8 +63,9 @@ export function parsePowers(text: string): [number, number] {
   return [lo, hi];
 }
 
-function row(c: SearchCandidate, rank: number): string[] {
-  return [String(rank), String(c.complexity), num(c.selectionRmse, 4), num(c.heldOutRmse, 4), num(c.roundedHeldOutRmse, 4), c.roundedFormula, c.formula];
+function row(c: SearchCandidate, rank: number, lattice: boolean): string[] {
+  const exact = lattice ? [c.roundedHeldOutExact === null ? '—' : `${(100 * c.roundedHeldOutExact).toFixed(1)}%`] : [];
+  return [String(rank), String(c.complexity), num(c.selectionRmse, 4), num(c.heldOutRmse, 4), num(c.roundedHeldOutRmse, 4), ...exact, c.roundedFormula, c.formula];
 }
 
 export function renderSearch(r: SearchResult): string {
@@ -55,15 +75,16 @@ export function renderSearch(r: SearchResult): string {
     .filter(Boolean)
     .join(', ');
   const drop = d.total > 0 ? ` (${d.total} rows dropped: ${why})` : '';
-  out.push(`formula search for ${r.target}: ${r.nCandidateTerms} candidate terms, ${r.nCandidatesTried} subsets tried (${r.mode})`);
+  out.push(`formula search for ${r.target}: ${r.nCandidateTerms} distinct terms built, ${r.nCandidatesTried} subsets tried (${r.mode}); method: ${r.method}`);
   out.push(`selection rows ${r.selectionRows}, held-out rows ${r.heldOutRows}${drop}: ${r.split}`);
   out.push('');
-  const head = ['#', 'complexity', 'selection RMSE', 'held-out RMSE', 'rounded held-out', 'rounded formula', 'fitted formula'];
-  out.push('best by selection BIC:');
-  out.push(alignTable([head, ...r.candidates.map((c, i) => row(c, i + 1))]).trimEnd());
+  const lat = r.lattice !== null;
+  const head = ['#', 'complexity', 'selection RMSE', 'held-out RMSE', 'rounded held-out', ...(lat ? [`exact on ${r.lattice!.step}ℤ${r.lattice!.offset ? ` + ${r.lattice!.offset}` : ''}`] : []), 'rounded formula', 'fitted formula'];
+  out.push('best first (the simplest formulas whose held-out RMSE is within two standard errors of the lowest, then by held-out RMSE):');
+  out.push(alignTable([head, ...r.candidates.map((c, i) => row(c, i + 1, lat))]).trimEnd());
   out.push('');
   out.push('Pareto front (complexity against held-out RMSE):');
-  out.push(alignTable([head, ...r.front.map((c, i) => row(c, i + 1))]).trimEnd());
+  out.push(alignTable([head, ...r.front.map((c, i) => row(c, i + 1, lat))]).trimEnd());
   const best = r.candidates[0];
   if (best) {
     out.push('');
@@ -82,7 +103,7 @@ export function renderSearch(r: SearchResult): string {
   }
   out.push('');
   for (const n of r.notes) out.push(n);
-  out.push('Complexity: 1 per column occurrence, + |power| − 1, + 1 per division, + 1 per function; the intercept is free.');
+  out.push('Complexity: 1 per column, 2 per part of a complex column, 4 per part of a quotient; + |power| − 1, + 1 per root, + 1 per division, sum or difference, + 1 per function, + 1 per numeric constant; products and the intercept are free.');
   return out.join('\n') + '\n';
 }
 
@@ -94,7 +115,10 @@ export function registerSearch(program: Command, io: CliIO): void {
     .requiredOption('--target <expr>', 'expression to predict')
     .requiredOption('--from <columns>', 'columns to build terms from, comma-separated')
     .option('--max-terms <k>', `largest number of terms besides the intercept${rangeHelp(RELATE_LIMITS.maxTerms)}`, '2')
-    .option('--powers <lo..hi>', 'integer powers of each column', '-3..3')
+    .option('--powers <lo..hi>', 'integer powers in the grammar', '-3..3')
+    .option('--max-complexity <c>', `largest complexity of one term${rangeHelp(RELATE_LIMITS.maxComplexity)}`, '7')
+    .option('--time <duration>', 'time budget for growing terms, e.g. 60s or 2m', '60s')
+    .option('--lattice <step>', 'integer target: auto (detect the lattice), off, or a step; reports how often rounding the formula to it is exact', 'auto')
     .option('--split <spec>', 'selection and held-out parts: random:TRAIN,VALIDATION,TEST (select on train, measure on test) or where:CONDITION; default a random 60/40 split')
     .option('--top <n>', `candidates to list${rangeHelp(RELATE_LIMITS.top)}`, '10')
     .option('--seed <n>', 'seed for the split', '0')
@@ -108,6 +132,9 @@ export function registerSearch(program: Command, io: CliIO): void {
       const maxTerms = intOption('--max-terms', o.maxTerms, 1);
       const top = intOption('--top', o.top, 1, RELATE_LIMITS.top.max);
       const powers = parsePowers(o.powers);
+      const timeLimit = parseDuration(o.time);
+      const lattice = parseLattice(o.lattice);
+      const maxComplexity = intOption('--max-complexity', o.maxComplexity, 1, RELATE_LIMITS.maxComplexity.max);
       const from = o.from.split(',').map((s) => s.trim());
       from.forEach((c, i) => {
         if (c === '') throw new SurmiseError('relate.badOption', `--from: column ${i + 1} of the list is empty (columns are separated by ',')`);
@@ -123,11 +150,11 @@ export function registerSearch(program: Command, io: CliIO): void {
         const s = splitRows(table, o.split, seed);
         split = { selection: s.first, heldOut: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
-      const bar = makeProgress(io, 'screening subsets', o.progress);
+      const bar = makeProgress(io, 'searching formulas', o.progress);
       const progress = (done: number, total: number): void => bar.update(done, total);
       let r: SearchResult;
       try {
-        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, progress, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}) });
+        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, progress, maxComplexity, timeLimit, lattice, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}) });
       } finally {
         bar.stop();
       }

@@ -167,7 +167,9 @@ export function tableRecord(name: string, r: KnotInvariants, inv: readonly Invar
       case 'genus_bound': rec[k] = r.genusBound ?? null; break;
       case 'linking': rec[k] = linkingText(r.linking); break;
       case 'levine_tristram': rec[k] = r.levineTristram ?? null; break;
-      case 'jumps': rec[k] = (r.jumps ?? []).join(' '); break;
+      // x:multiplicity and x:jump, space-separated; empty when there are none, null when undefined (Δ = 0, or no Seifert matrix)
+      case 'unit_roots': rec[k] = r.unitRoots ? r.unitRoots.map((u) => `${u.x}:${u.multiplicity}`).join(' ') : null; break;
+      case 'jumps': rec[k] = r.jumps ? r.jumps.map((j) => `${j.x}:${j.jump}`).join(' ') : null; break;
       case 'hyperbolic': {
         const h = r.hyperbolic;
         rec.geometry = h?.geometry ?? null;

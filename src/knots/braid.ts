@@ -9,7 +9,9 @@
  */
 import { SurmiseError } from '../errors.ts';
 import type { Crossing } from './pd.ts';
-import { polyDivExact } from './poly.ts';
+import { bareissDet } from './exact.ts';
+import { pack, packBits, unpack } from './kronecker.ts';
+import { polyDivExact, trimPoly } from './poly.ts';
 
 export interface Braid {
   strands: number;
@@ -254,6 +256,95 @@ export function burauAlexander(b: Braid): bigint[] | undefined {
   const geometric = new Array<bigint>(n).fill(1n);
   return polyDivExact(det, geometric);
 }
+
+/** log2(2^a + 2^b), with −Infinity for 0. */
+function log2Sum(a: number, b: number): number {
+  if (a === -Infinity) return b;
+  if (b === -Infinity) return a;
+  const hi = Math.max(a, b);
+  return hi + Math.log2(1 + 2 ** (Math.min(a, b) - hi));
+}
+
+/**
+ * The same polynomial as `burauAlexander`, exactly at any length: the reduced Burau product in
+ * packed big integers (Kronecker substitution, see kronecker.ts), then det(I − ψ(β)) by fraction-free
+ * elimination on packed entries. The packing width comes from upper bounds on the ℓ¹ norms of the
+ * entries, propagated letter by letter (each letter adds column i to its neighbours), and for the
+ * determinant the product of the rows' ℓ¹ sums (Hadamard-type: every minor is below it), squared
+ * for the products inside one elimination step.
+ */
+export function burauAlexanderExact(b: Braid): bigint[] {
+  validateBraid(b);
+  const n = b.strands;
+  if (n === 1) return [1n];
+  const r = n - 1;
+  const L = b.word.length;
+  // ℓ¹ bounds (log2) of every entry, following the column operations of each letter
+  const u: number[][] = Array.from({ length: r }, (_, i) => Array.from({ length: r }, (_, j) => (i === j ? 0 : -Infinity)));
+  for (const g of b.word) {
+    const i = Math.abs(g) - 1;
+    for (const row of u) {
+      if (i - 1 >= 0) row[i - 1] = log2Sum(row[i - 1]!, row[i]!);
+      if (i + 1 < r) row[i + 1] = log2Sum(row[i + 1]!, row[i]!);
+    }
+  }
+  let entryLog = 0;
+  for (const row of u) for (const x of row) entryLog = Math.max(entryLog, x);
+  const B1 = packBits(entryLog + 2); // + 2: the 3-strand shortcut adds three terms of this size
+  const bB = BigInt(B1);
+  // M' = t^N·ψ(β) for N letters σ_i⁻¹, so that every exponent lies in 0..length: a letter σ_i⁻¹ is
+  // applied as t·ψ(σ_i⁻¹), whose row i is (t, −1, 1) and whose other rows are t times the identity
+  const M: bigint[][] = Array.from({ length: r }, (_, i) => Array.from({ length: r }, (_, j) => (i === j ? 1n : 0n)));
+  let N = 0;
+  for (const g of b.word) {
+    const i = Math.abs(g) - 1;
+    if (g < 0) N++;
+    for (const R of M) {
+      const ci = R[i]!;
+      if (g > 0) {
+        if (ci === 0n) continue;
+        const sh = ci << bB;
+        if (i - 1 >= 0) R[i - 1] = R[i - 1]! + sh;
+        R[i] = -sh;
+        if (i + 1 < r) R[i + 1] = R[i + 1]! + ci;
+      } else {
+        for (let j = 0; j < r; j++) if (j !== i && R[j] !== 0n) R[j] = R[j]! << bB;
+        if (i - 1 >= 0) R[i - 1] = R[i - 1]! + (ci << bB);
+        R[i] = -ci;
+        if (i + 1 < r) R[i + 1] = R[i + 1]! + ci;
+      }
+    }
+  }
+  if (r === 2) {
+    // det(t^N·I − M') = t^{2N} − t^N·tr M' + det M', and det ψ(σ_i^{±1}) = −t^{±1}, so det M' = (−t)^length
+    const B = BigInt(B1);
+    const det = (1n << (2n * B * BigInt(N))) - ((M[0]![0]! + M[1]![1]!) << (B * BigInt(N))) + (L % 2 === 0 ? 1n : -1n) * (1n << (B * BigInt(L)));
+    return polyDivExact(trimPoly(unpack(det, B1, 2 * L + 1)).coeffs, [1n, 1n, 1n]);
+  }
+  // t^N·I − M', repacked wide enough for the elimination (the actual ℓ¹ norms of the entries bound
+  // every minor by the product of the rows' sums); its determinant is t^{rN}·det(I − ψ(β))
+  const width = L + 1;
+  const entries = M.map((row) => row.map((p) => unpack(p, B1, width)));
+  // a k-minor is at most the product of the k largest row sums; one elimination step multiplies two
+  // minors of at most r − 1 rows, and the determinant has all r
+  const rowLogs: number[] = entries.map((row) => {
+    let rowSum = 1n;
+    for (const c of row) for (const x of c) rowSum += x < 0n ? -x : x;
+    return rowSum.toString(16).length * 4;
+  }).sort((x, y) => y - x);
+  const all = rowLogs.reduce((x, y) => x + y, 0);
+  const B2 = packBits(Math.max(all, 2 * (all - rowLogs[r - 1]!)) + 1);
+  const tN = 1n << BigInt(B2 * N);
+  const A: bigint[][] = entries.map((row, i) => row.map((c, j) => {
+    const q = pack(c.map((x) => -x), B2);
+    return i === j ? q + tN : q;
+  }));
+  // packed entries are plain integers: Bareiss' exact quotients are the packed polynomial quotients
+  const det = bareissDet(A);
+  const coeffs = unpack(det, B2, r * (width - 1) + 1);
+  return polyDivExact(trimPoly(coeffs).coeffs, new Array<bigint>(n).fill(1n));
+}
+
 
 function polyMul(a: bigint[], b: bigint[]): bigint[] {
   if (a.length === 0 || b.length === 0) return [];

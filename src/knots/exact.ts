@@ -4,7 +4,12 @@
  * elimination (Sylvester's law of inertia). No floating point.
  */
 
+import { sparseInertia, symmetricEntries } from './sparse.ts';
+
 export type IntMatrix = number[][];
+
+/** Matrices larger than this go to the sparse fraction-free elimination (sparse.ts). */
+const SPARSE_FROM = 48;
 
 /**
  * Determinant of a square integer matrix by Bareiss' fraction-free elimination
@@ -77,6 +82,10 @@ export function symmetricInertia(m: ReadonlyArray<ReadonlyArray<number>>): Inert
   for (let i = 0; i < n; i++)
     for (let j = 0; j < n; j++)
       if (m[i]![j] !== m[j]![i]) throw new Error(`symmetricInertia: matrix is not symmetric at (${i}, ${j})`);
+  if (n > SPARSE_FROM) {
+    const { positive, negative, zero } = sparseInertia(n, symmetricEntries(m));
+    return { positive, negative, zero };
+  }
   const r = inertiaNumber(m);
   return r ?? inertiaBig(m);
 }

@@ -15,7 +15,7 @@
  * Split diagrams are handled piece by piece (signatures add; the determinant is then 0).
  */
 import type { PDInfo } from './pd.ts';
-import { bareissDet, symmetricSignature } from './exact.ts';
+import { bandOrder, sparseInertia } from './sparse.ts';
 
 export interface GordonLitherland {
   signature: number;
@@ -94,10 +94,34 @@ export function gordonLitherland(info: PDInfo): GordonLitherland {
     const G = full.slice(1).map((row) => row.slice(1));
     goeritz.push(G);
     correction.push(mu);
-    signature += symmetricSignature(G) - mu;
-    const d = bareissDet(G);
-    determinant *= d < 0n ? -d : d;
+    // inertia and determinant in one sparse fraction-free elimination (the Goeritz matrix is sparse:
+    // one entry per pair of white faces meeting at a crossing)
+    const g = sparseInertia(k - 1, reducedEntries(full));
+    signature += g.positive - g.negative - mu;
+    determinant *= g.determinant < 0n ? -g.determinant : g.determinant;
   }
   if (info.nPieces > 1) determinant = 0n;
   return { signature, determinant, goeritz, correction };
+}
+
+/**
+ * Entries of a reduced Goeritz matrix for the elimination: the rows and columns sum to zero, so
+ * deleting any one white face gives a congruent matrix (the same form on Zᵏ modulo (1, …, 1)); the
+ * face touching most crossings is deleted (its row would be dense) and the rest are numbered in
+ * reverse Cuthill–McKee order (keeps fill-in near the diagonal).
+ */
+function reducedEntries(full: number[][]): Array<[number, number, number]> {
+  const k = full.length;
+  const adj: number[][] = full.map((row, i) => row.flatMap((x, j) => (x !== 0 && j !== i ? [j] : [])));
+  let hub = 0;
+  for (let i = 1; i < k; i++) if (adj[i]!.length > adj[hub]!.length) hub = i;
+  const order = bandOrder(adj, hub);
+  const pos = new Int32Array(k).fill(-1);
+  order.forEach((v, i) => (pos[v] = i));
+  const out: Array<[number, number, number]> = [];
+  for (let i = 0; i < k; i++) {
+    if (i === hub) continue;
+    for (let j = i; j < k; j++) if (j !== hub && full[i]![j] !== 0) out.push([pos[i]!, pos[j]!, full[i]![j]!]);
+  }
+  return out;
 }

@@ -20,9 +20,12 @@ export {
 } from './poly.ts';
 export { gordonLitherland, checkerboard, type GordonLitherland } from './goeritz.ts';
 export { foxAlexander } from './fox.ts';
-export { levineTristram, alexanderUnitRoots, polynomialRoots, symmetricEigenvalues } from './levine.ts';
+export { levineTristram, hermitianInertia, symmetricEigenvalues } from './levine.ts';
+export { alexanderUnitRoots, unitCircleRoots, type UnitRoot, type CircleRoot } from './unitroots.ts';
+export { signatureJumps, arcSignatures, levineTristramAt, ROOT_MATCH, type Jump } from './jumps.ts';
+export { squareFree, gcdPoly, type SquareFreeFactor } from './intpoly.ts';
 export { naturalSlope } from './slope.ts';
-export { parseCode, detectKind, splitDiagramLines, DIAGRAM_KINDS, type DiagramKind, type ParsedCode, type DiagramSource } from './parse.ts';
+export { parseCode, detectKind, splitDiagramLines, checkDiagramSize, MAX_STRANDS, MAX_CROSSINGS, DIAGRAM_KINDS, type DiagramKind, type ParsedCode, type DiagramSource } from './parse.ts';
 export { parseDiagram, diagramFrom, type Diagram } from './diagram.ts';
 export {
   computeInvariants,

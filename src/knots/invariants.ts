@@ -17,16 +17,27 @@
  * Levine–Tristram signatures at ω ≠ −1) comes from the braid that Vogel's algorithm produces, and
  * its signature is checked against Gordon–Litherland (a mismatch is an internal error, exit 1).
  */
-import { braidSeifertMatrix, burauAlexander } from './braid.ts';
+import { braidSeifertMatrix, burauAlexander, burauAlexanderExact, type Braid } from './braid.ts';
 import type { Diagram } from './diagram.ts';
 import { symmetricInertia } from './exact.ts';
 import { foxAlexander } from './fox.ts';
 import { gordonLitherland } from './goeritz.ts';
-import { alexanderUnitRoots, levineTristram } from './levine.ts';
+import { conwaySign } from './circlesign.ts';
+import { levineTristramAt, signatureJumps, type Jump } from './jumps.ts';
+import { levineTristram } from './levine.ts';
+import { alexanderUnitRoots, type UnitRoot } from './unitroots.ts';
 import { linkingMatrix, writhe, type PDInfo } from './pd.ts';
 import { pdToBraid } from './vogel.ts';
 import { hyperbolicInvariants, type HyperbolicInvariants } from './hyperbolic/index.ts';
 import { centre, exactOut, formatLaurent, pencilDeterminant, valueAtMinusOne, valueAtOne, type LaurentPolynomial } from './poly.ts';
+
+/** PD/DT diagrams up to this size get Δ by Fox calculus; larger connected ones through their Vogel braid. */
+const FOX_MAX_CROSSINGS = 30;
+/** ... when that braid has at most this many strands (the Burau determinant is (strands − 1)²-sized). */
+const VOGEL_BURAU_MAX_STRANDS = 12;
+
+/** Braid words up to this length use the float64 Burau product first (fast for short words). */
+const FLOAT_BURAU_MAX_LENGTH = 100;
 
 export const INVARIANT_NAMES = [
   'crossings',
@@ -39,6 +50,7 @@ export const INVARIANT_NAMES = [
   'genus_bound',
   'linking',
   'levine_tristram',
+  'unit_roots',
   'jumps',
   'hyperbolic',
 ] as const;
@@ -63,8 +75,10 @@ export interface KnotInvariants {
   /** σ_ω at ω = e^{2πi·omega}; undefined when no Seifert matrix is available. */
   levineTristram?: number;
   omega?: number;
-  /** x ∈ (0, 1/2] with Δ(e^{2πix}) = 0. */
-  jumps?: number[];
+  /** Roots e^{2πix} of Δ, x ∈ (0, 1/2], each once with its multiplicity (certified to 1e-12); undefined when Δ = 0. */
+  unitRoots?: Array<{ x: number; multiplicity: number }>;
+  /** The roots x ∈ (0, 1/2) where σ_ω actually jumps, with σ(x+) − σ(x−); undefined without a Seifert matrix or when Δ = 0. */
+  jumps?: Jump[];
   /** Status, volume, cusp shape and natural slope (`hyperbolic/`). */
   hyperbolic?: HyperbolicInvariants;
 }
@@ -112,8 +126,8 @@ function symmetrise(V: number[][]): number[][] {
  * Seifert matrix of a connected PD/DT diagram through Vogel's algorithm (the braid-form surface of
  * an equivalent closed braid). Guard: its signature must equal the Gordon–Litherland signature.
  */
-function vogelSeifert(d: Diagram, res: KnotInvariants): number[][] {
-  const V = braidSeifertMatrix(pdToBraid(d.pd));
+function vogelSeifert(d: Diagram, res: KnotInvariants, braid: Braid = pdToBraid(d.pd)): number[][] {
+  const V = braidSeifertMatrix(braid);
   const sig = symmetricInertia(symmetrise(V));
   const gl = res.signature ?? gordonLitherland(d.info).signature;
   if (sig.positive - sig.negative !== gl) throw new Error(`internal: Seifert signature ${sig.positive - sig.negative} after Vogel moves differs from Gordon–Litherland ${gl}`);
@@ -127,7 +141,14 @@ function vogelSeifert(d: Diagram, res: KnotInvariants): number[][] {
  */
 function fixLinkSign(alex: LaurentPolynomial, V: number[][], inertia: { negative: number; zero: number }): LaurentPolynomial {
   if (alex.coefficients.length === 0) return alex;
-  if (inertia.zero > 0) return centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V[j]![i]!))));
+  if (inertia.zero > 0) {
+    // det(V + Vᵀ) = 0: the sign from one exact evaluation on the circle (circlesign.ts); the pencil
+    // det(V − tVᵀ) only if every tried point is a root
+    const s = conwaySign(alex, V);
+    if (s === 1) return alex;
+    if (s === -1) return { ...alex, coefficients: alex.coefficients.map((x) => -x) };
+    return centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V[j]![i]!))));
+  }
   const m = V.length;
   const detSign = inertia.negative % 2 === 0 ? 1 : -1;
   const [re, im] = valueAtMinusOne(alex);
@@ -151,7 +172,11 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
   const components = info.nComponents + d.freeLoops;
   const isKnot = components === 1;
   const res: KnotInvariants = { crossings: info.nCrossings, writhe: writhe(info), components };
-  const needAlex = want.has('alexander') || want.has('jumps') || (d.braid && want.has('determinant'));
+  const omega = opts.omega ?? 0.5;
+  const generic = omega - Math.floor(omega) !== 0.5 && omega - Math.floor(omega) !== 0;
+  // the roots of Δ on the circle: for unit_roots, jumps, and σ_ω away from ω = ±1 (read on its arc)
+  const needRoots = want.has('unit_roots') || want.has('jumps') || (want.has('levine_tristram') && generic);
+  const needAlex = want.has('alexander') || needRoots || (d.braid && want.has('determinant'));
   const needSig = want.has('signature') || want.has('determinant');
   let V: number[][] | undefined;
   if (d.braid) {
@@ -160,12 +185,11 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
     const inertia = needSig || needAlex ? symmetricInertia(S) : undefined;
     if (inertia && want.has('signature')) res.signature = inertia.positive - inertia.negative;
     if (needAlex) {
+      // float64 Burau for short words while every coefficient stays below 2^52; packed big integers
+      // for long words (their polynomial determinant is where the time goes) and beyond 2^52
+      const raw = (d.braid.word.length <= FLOAT_BURAU_MAX_LENGTH ? burauAlexander(d.braid) : undefined) ?? burauAlexanderExact(d.braid);
       let alex: LaurentPolynomial;
-      const raw = burauAlexander(d.braid);
-      if (raw === undefined) {
-        // exact fallback: Δ = t^{-m/2} det(V − tVᵀ)
-        alex = centre(pencilDeterminant(V, V.map((r, i) => r.map((_, j) => -V![j]![i]!))));
-      } else if (isKnot) alex = normaliseKnot(raw);
+      if (isKnot) alex = normaliseKnot(raw);
       else alex = fixLinkSign(centre(raw), V, inertia!);
       res.alexander = alex;
       res.alexanderText = formatLaurent(alex);
@@ -183,13 +207,16 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
       if (want.has('determinant')) res.determinant = d.freeLoops > 0 ? 0 : bigToOut(gl.determinant);
     }
     if (needAlex) {
-      const raw = foxAlexander(info, d.freeLoops);
+      // Fox calculus up to FOX_MAX_CROSSINGS (its c × c pencil grows like c⁵); beyond, the Burau
+      // formula on the Vogel braid when that braid has few strands (connected diagrams)
+      const vb = info.nCrossings > FOX_MAX_CROSSINGS && info.nPieces === 1 && d.freeLoops === 0 ? pdToBraid(d.pd) : undefined;
+      const raw = vb && vb.strands <= VOGEL_BURAU_MAX_STRANDS ? burauAlexanderExact(vb) : foxAlexander(info, d.freeLoops);
       let alex: LaurentPolynomial;
       let fixed = true;
       if (isKnot) alex = normaliseKnot(raw);
       else if (info.nPieces === 1 && d.freeLoops === 0 && raw.some((x) => x !== 0n)) {
         // the sign needs a Seifert matrix: braid the diagram (Vogel) and use its braid-form surface
-        const Vb = vogelSeifert(d, res);
+        const Vb = vogelSeifert(d, res, vb);
         alex = fixLinkSign(centre(raw), Vb, symmetricInertia(symmetrise(Vb)));
       } else {
         alex = centre(raw);
@@ -202,13 +229,23 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
       res.alexanderSignFixed = fixed;
     }
   }
+  const roots: UnitRoot[] | undefined = needRoots && res.alexander && res.alexander.coefficients.length > 0 ? alexanderUnitRoots(res.alexander) : undefined;
+  if (want.has('unit_roots') && roots) res.unitRoots = roots.map(({ x, multiplicity }) => ({ x, multiplicity }));
   if (!want.has('alexander')) {
-    const a = res.alexander;
     delete res.alexander;
     delete res.alexanderText;
     delete res.alexanderSignFixed;
-    if (want.has('jumps') && a) res.jumps = alexanderUnitRoots(a);
-  } else if (want.has('jumps') && res.alexander) res.jumps = alexanderUnitRoots(res.alexander);
+  }
+  // a Seifert matrix: the braid's, or for a connected PD/DT diagram that of its Vogel braid
+  let seifert: number[][] | undefined = V;
+  const seifertFor = (): number[][] | undefined => {
+    if (!seifert && info.nPieces === 1 && d.freeLoops === 0) seifert = vogelSeifert(d, res);
+    return seifert;
+  };
+  if (want.has('jumps') && roots) {
+    const S = seifertFor();
+    if (S) res.jumps = signatureJumps(S, roots);
+  }
   if (want.has('seifert_circles') || want.has('genus_bound')) {
     const s = seifertCircles(info, d.freeLoops);
     if (want.has('seifert_circles')) res.seifertCircles = s;
@@ -220,11 +257,14 @@ export function computeInvariants(d: Diagram, opts: ComputeOptions = {}): KnotIn
     for (let i = 0; i < lk.length; i++) for (let j = i + 1; j < lk.length; j++) res.linking.push({ i: i + 1, j: j + 1, lk: lk[i]![j]! });
   }
   if (want.has('levine_tristram')) {
-    const x = opts.omega ?? 0.5;
-    res.omega = x;
-    if (V) res.levineTristram = levineTristram(V, x);
-    else if (x - Math.floor(x) === 0.5) res.levineTristram = gordonLitherland(info).signature;
-    else if (info.nPieces === 1 && d.freeLoops === 0) res.levineTristram = levineTristram(vogelSeifert(d, res), x);
+    res.omega = omega;
+    if (!generic) res.levineTristram = V ? levineTristram(V, omega) : omega - Math.floor(omega) === 0 ? 0 : gordonLitherland(info).signature;
+    else {
+      const S = seifertFor();
+      // away from ω = ±1: the value of ω's arc between the certified roots of Δ (at a root: the
+      // degenerate form's signature, jumps.ts); Δ = 0 has no isolated roots, so the form is read at ω itself
+      if (S) res.levineTristram = roots ? levineTristramAt(S, roots, omega) : levineTristram(S, omega);
+    }
   }
   if (want.has('hyperbolic')) res.hyperbolic = hyperbolicInvariants(d);
   return res;

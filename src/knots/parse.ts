@@ -43,6 +43,16 @@ function intList(text: string, what: string): number[] {
   });
 }
 
+/** Largest strand count of a braid read from input (the reduced Burau matrices are (n − 1) × (n − 1)). */
+export const MAX_STRANDS = 64;
+/** Largest diagram read from input, in crossings (braid letters or PD crossings): Seifert and Goeritz matrices are held densely. */
+export const MAX_CROSSINGS = 2000;
+
+/** Refuse a diagram with more than MAX_CROSSINGS crossings (`knots.tooLarge`). */
+export function checkDiagramSize(n: number, what: string, unit: string): void {
+  if (n > MAX_CROSSINGS) throw new SurmiseError('knots.tooLarge', `the ${what} has ${n} ${unit}; at most ${MAX_CROSSINGS} crossings are accepted`);
+}
+
 function parsePDText(text: string): Crossing[] {
   const t = text.trim();
   if (t.startsWith('[')) {
@@ -107,7 +117,15 @@ function parseBraidText(text: string, strandsOverride?: number): Braid {
   }
   if (strandsOverride !== undefined) strands = strandsOverride;
   if (word.length === 0) throw new SurmiseError('knots.emptyBraid', 'the braid word is empty');
-  const b: Braid = { strands: strands ?? Math.max(...word.map((g) => Math.abs(g))) + 1, word };
+  let top = 0;
+  for (const g of word) top = Math.max(top, Math.abs(g));
+  const b: Braid = { strands: strands ?? top + 1, word };
+  checkDiagramSize(word.length, 'braid word', 'letters');
+  if (b.strands > MAX_STRANDS || top + 1 > MAX_STRANDS)
+    throw new SurmiseError(
+      'knots.tooLarge',
+      `the braid needs ${Math.max(b.strands, top + 1)} strands${top + 1 > MAX_STRANDS ? ` (generator ${top})` : ''}; at most ${MAX_STRANDS} strands are accepted`,
+    );
   validateBraid(b);
   return b;
 }
@@ -135,7 +153,11 @@ export function detectKind(text: string): DiagramKind {
 export function parseCode(text: string, kind?: DiagramKind): ParsedCode {
   const k = kind ?? detectKind(text);
   const t = text.trim();
-  if (k === 'pd') return { kind: 'pd', pd: parsePDText(t) };
+  if (k === 'pd') {
+    const pd = parsePDText(t);
+    checkDiagramSize(pd.length, 'PD code', 'crossings');
+    return { kind: 'pd', pd };
+  }
   if (k === 'braid') {
     if (/^(PD|X|DT)\s*\[/.test(t) || t.startsWith('[[')) parseErr(`'${t.slice(0, 20)}' is not a braid word`);
     return { kind: 'braid', braid: parseBraidText(t) };

@@ -62,6 +62,31 @@ export interface TrainedNetwork {
   dispose(): void;
 }
 
+/** What every engine's network holds from its state: the public fields and `toJSON`. */
+export abstract class NetworkBase {
+  readonly task: Task;
+  readonly p: number;
+  readonly classes: number[] | null;
+  readonly epochs: number;
+  readonly bestEpoch: number;
+  readonly history: EpochRecord[];
+  protected readonly state: NetworkState;
+
+  constructor(state: NetworkState) {
+    this.state = state;
+    this.task = state.task;
+    this.p = state.p;
+    this.classes = state.classes;
+    this.epochs = state.epochs;
+    this.bestEpoch = state.bestEpoch;
+    this.history = state.history;
+  }
+
+  toJSON(): NetworkState {
+    return structuredClone(this.state);
+  }
+}
+
 /** Check a state's fields (it may come from a file) and build the network. */
 export function networkFromJSON(state: NetworkState): TrainedNetwork {
   const bad = (m: string): never => {

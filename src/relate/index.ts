@@ -6,6 +6,6 @@ export { simplestRational, simpleFraction, SIMPLE_DENOMINATOR, convergents, type
 export { crossValidatedRmse, type CrossValidation } from './crossval.ts';
 export { fitRelation, type FitSpec, type FitResult, type FitTerm, type RowRef } from './fit.ts';
 export { searchRelations, type SearchSpec, type SearchResult, type SearchCandidate } from './search.ts';
-export { buildCandidates, type CandidateTerm, type SkippedTerm, type CandidateOptions } from './candidates.ts';
+export { baseQuantities, type BaseQuantity, type SkippedTerm } from './bases.ts';
 export { completeRows, type DroppedRows } from './rows.ts';
 export { splitRows } from './split-option.ts';

@@ -8,4 +8,6 @@ export const RELATE_LIMITS = Object.freeze({
   maxTerms: { min: 1, max: 6 },
   /** Candidates searchRelations reports. */
   top: { min: 1, max: 1000 },
+  /** Complexity of one term in searchRelations. */
+  maxComplexity: { min: 1, max: 12 },
 } satisfies Record<string, IntegerRange>);

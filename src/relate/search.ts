@@ -1,22 +1,31 @@
 /**
- * searchRelations: which few terms, built from chosen columns, best predict a target?
- * Candidates are scored on a SELECTION part of the rows; the survivors are refitted there by
- * Householder QR and their error is then measured on a HELD-OUT part that took no part in the
- * choice. Screening uses the Gram matrix of the centred, unit-length candidate columns (a
- * correlation matrix): for a subset S, RSS = yᵀy − bₛᵀ Gₛ⁻¹ bₛ (e.g. Miller, "Subset Selection in
- * Regression", 2nd ed., ch. 3); the reported numbers always come from the QR refit.
+ * searchRelations: which closed-form formula target ≈ c₀ + Σ cⱼ·termⱼ, with terms built from the
+ * chosen columns by the grammar of grammar.ts, predicts the target? The method is SISSO's
+ * (Ouyang et al., Phys. Rev. Materials 2, 083802, 2018): grow the terms level by level in
+ * complexity and screen them by correlation (enumerate.ts), then search every subset of at most K
+ * screened terms (subsets.ts). Screening and the subset search use a seeded sample of the
+ * SELECTION rows; the survivors get their inner constants by Levenberg–Marquardt
+ * (inner-constants.ts), are refitted on all selection rows by Householder QR (lstsq.ts) and are
+ * measured on the HELD-OUT rows, which took no part in any choice.
  */
 import { SurmiseError } from '../errors.ts';
 import { tooLarge } from '../util/integer.ts';
 import { RELATE_LIMITS } from './limits.ts';
 import type { Table } from '../table/types.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
-import { buildCandidates, type CandidateTerm, type SkippedTerm } from './candidates.ts';
+import { baseQuantities, type SkippedTerm } from './bases.ts';
 import { getColumnOrThrow } from './columns.ts';
-import { gather, predictRows, rmseOn } from './crossval.ts';
+import { gather, rmseOn } from './crossval.ts';
+import { enumerateTerms, type EnumerateResult } from './enumerate.ts';
+import { unaryOps } from './grammar.ts';
+import { fitInnerConstants, residualVector } from './inner-constants.ts';
+import { detectLattice, exactFraction, type Lattice } from './lattice.ts';
 import { lstsq } from './lstsq.ts';
 import { simpleFraction, type Rational } from './rational.ts';
 import { completeRows, realExpression, withDerived, type DroppedRows } from './rows.ts';
+import { countSubsets, subsetSearch } from './subsets.ts';
+import { complexity, constantsOf, evaluateTree, firstBase, type Tree } from './tree.ts';
+import { formulaText, treeText, type Coef } from './canonical.ts';
 
 export interface SearchSpec {
   target: string;
@@ -24,7 +33,7 @@ export interface SearchSpec {
   from: string[];
   /** Largest number of terms besides the intercept (default 2). */
   maxTerms?: number;
-  /** Integer powers [lo, hi] (default [−3, 3]). */
+  /** Integer powers [lo, hi] of the grammar (default [−3, 3]). */
   powers?: [number, number];
   /** Row indices of the selection and held-out parts; default a seeded 60/40 split of the usable rows. */
   split?: { selection: ArrayLike<number>; heldOut: ArrayLike<number>; description?: string };
@@ -32,34 +41,49 @@ export interface SearchSpec {
   top?: number;
   seed?: number;
   derive?: Array<{ name: string; expression: string }>;
-  /** Exhaustive search only when it needs at most this many subset fits (default 200,000); else greedy. */
+  /** Largest complexity of one term (default 8). */
+  maxComplexity?: number;
+  /** Terms of each complexity level kept to build the next (beam width, default 120). */
+  beam?: number;
+  /** At most this many subsets in the exhaustive subset search (default 1,000,000): the screened terms are cut to fit. */
   maxExhaustive?: number;
-  /** Cap on product terms (default 600). */
-  maxProducts?: number;
-  /** Keep rows that repeat an earlier row in every column the target and candidate terms use (default false: drop and count them). */
+  /** Selection rows used for screening (default 2000). */
+  screenRows?: number;
+  /** Keep rows that repeat an earlier row in every column the target and terms use (default false: drop and count them). */
   keepDuplicates?: boolean;
-  /** Sample the usable rows (before any split) so that (candidate terms × rows) ≤ this (default 25,000,000). */
+  /** Memory bound in float64 cells for stored term values (default 25,000,000 ≈ 200 MB). */
   maxCells?: number;
-  /** Called with (done, total) while subsets are screened. */
+  /** Time budget in seconds for growing terms (default 60). */
+  timeLimit?: number;
+  /** 'auto' (default): report round-to-lattice exactness when the target is integer-valued; 'off'; or a step. */
+  lattice?: 'auto' | 'off' | number;
+  /** Called with (done, total) as the search advances. */
   progress?: (done: number, total: number) => void;
+  /** Clock in milliseconds (default performance.now); tests pass their own. */
+  now?: () => number;
 }
 
 export interface SearchCandidate {
   terms: string[];
   coefs: number[];
-  /** [intercept, …terms] standard errors and 95% intervals from the selection refit. */
+  /** Standard errors and 95% intervals of the coefficients (terms), from the selection refit. */
   se: number[];
   low: number[];
   high: number[];
-  /** The one fraction with denominator ≤ 12 inside each interval (simpleFraction; intercept first), or null. */
+  /** The one fraction with denominator ≤ 12 inside each interval (simpleFraction), or null. */
   rationals: Array<Rational | null>;
   intercept: { coef: number; se: number; low: number; high: number; rational: Rational | null };
+  /** Numeric constants inside the terms, fitted by Levenberg–Marquardt: estimate, SE, value used. */
+  innerConstants: Array<{ estimate: number; se: number; used: number }>;
   complexity: number;
   selectionRmse: number;
   selectionBic: number;
   heldOutRmse: number;
-  /** Held-out RMSE of the model with every coefficient replaced by its rational (where one exists). */
+  /** Held-out RMSE of the formula with every coefficient replaced by its rational (where one exists). */
   roundedHeldOutRmse: number;
+  /** With a lattice: held-out fraction where round_L(formula) is exactly the target (fitted, and with rationals). */
+  heldOutExact: number | null;
+  roundedHeldOutExact: number | null;
   formula: string;
   roundedFormula: string;
   condition: number;
@@ -67,87 +91,78 @@ export interface SearchCandidate {
 
 export interface SearchResult {
   target: string;
-  mode: 'exhaustive' | 'greedy';
+  /** 'exhaustive': every screened term entered the subset search; 'screened': only the best-screened did. */
+  mode: 'exhaustive' | 'screened';
+  method: string;
   nCandidateTerms: number;
   nCandidatesTried: number;
-  /** Subsets passed over as numerically collinear during screening. */
   nCollinearSkipped: number;
   selectionRows: number;
   heldOutRows: number;
-  /** How the usable rows were divided. */
+  screeningRows: number;
   split: string;
   dropped: DroppedRows;
   skippedTerms: SkippedTerm[];
-  /** Best first by selection BIC. */
+  /** Best first (README "Search": the simplest formula whose held-out RMSE reaches the lowest one). */
   candidates: SearchCandidate[];
   /** Pareto front of (complexity, held-out RMSE) over the survivors, simplest first. */
   front: SearchCandidate[];
+  lattice: Lattice | null;
+  /** What cut the search: the time budget, the beam (memory bound), the subset limit. */
+  cuts: { time: boolean; beam: number[]; subsets: boolean };
   seed: number;
   notes: string[];
 }
 
-function nChooseK(n: number, k: number): number {
-  let r = 1;
-  for (let i = 1; i <= k; i++) r = (r * (n - k + i)) / i;
-  return Math.round(r);
-}
+interface OptionRule { key: keyof SearchSpec; ok: (v: number) => boolean; expected: string; code: string }
+const OPTION_RULES: OptionRule[] = [
+  { key: 'maxTerms', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 6, expected: 'the maximum number of terms to be an integer from 1 to 6', code: 'relate.badMaxTerms' },
+  { key: 'top', ok: (v) => Number.isInteger(v) && v >= 1, expected: 'the number of candidates to report to be a positive integer', code: 'relate.badTop' },
+  { key: 'maxComplexity', ok: (v) => Number.isInteger(v) && v >= 1, expected: 'the largest complexity of a term to be a positive integer', code: 'relate.badOption' },
+  { key: 'beam', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 5000, expected: 'the beam width to be an integer from 1 to 5000', code: 'relate.badOption' },
+  { key: 'maxExhaustive', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 50_000_000, expected: 'the subset limit to be an integer from 1 to 50,000,000', code: 'relate.badOption' },
+  { key: 'screenRows', ok: (v) => Number.isInteger(v) && v >= 50 && v <= 1_000_000, expected: 'the screening rows to be an integer from 50 to 1,000,000', code: 'relate.badOption' },
+  { key: 'maxCells', ok: (v) => Number.isInteger(v) && v >= 10_000 && v <= 2_000_000_000, expected: 'the memory bound to be an integer number of cells from 10,000 to 2,000,000,000', code: 'relate.badOption' },
+  { key: 'timeLimit', ok: (v) => Number.isFinite(v) && v > 0 && v <= 86_400, expected: 'the time budget to be a number of seconds in (0, 86400]', code: 'relate.badOption' },
+];
 
-/** RSS reduction bᵀG⁻¹b for the subset `s` by Cholesky of G_s; null when numerically singular. */
-function explained(gram: (i: number, j: number) => number, b: Float64Array, s: number[]): number | null {
-  const k = s.length;
-  const L = new Float64Array(k * k);
-  for (let i = 0; i < k; i++) {
-    for (let j = 0; j <= i; j++) {
-      let v = gram(s[i]!, s[j]!);
-      for (let m = 0; m < j; m++) v -= L[i * k + m]! * L[j * k + m]!;
-      if (i === j) {
-        if (v <= 1e-9) return null; // pivot ≤ 1e-9 of a unit diagonal: collinear within 1e-9
-        L[i * k + i] = Math.sqrt(v);
-      } else L[i * k + j] = v / L[j * k + j]!;
-    }
+function checkOptions(spec: SearchSpec): void {
+  for (const r of OPTION_RULES) {
+    const v = spec[r.key];
+    if (v !== undefined && !(typeof v === 'number' && r.ok(v)))
+      throw new SurmiseError(r.code, `expected ${r.expected}, got ${String(v)}`, { key: r.key });
   }
-  // z = L⁻¹ b_s; explained = ‖z‖²
-  const z = new Float64Array(k);
-  let e = 0;
-  for (let i = 0; i < k; i++) {
-    let v = b[s[i]!]!;
-    for (let m = 0; m < i; m++) v -= L[i * k + m]! * z[m]!;
-    z[i] = v / L[i * k + i]!;
-    e += z[i]! * z[i]!;
+  for (const key of ['top', 'maxComplexity'] as const) {
+    const v = spec[key];
+    if (v !== undefined && v > RELATE_LIMITS[key].max) throw tooLarge(key, v, RELATE_LIMITS[key]);
   }
-  return e;
+  const p = spec.powers;
+  if (p && !(Number.isInteger(p[0]) && Number.isInteger(p[1]) && p[0] <= p[1] && Math.max(-p[0], p[1]) <= 12 && (p[0] !== 0 || p[1] !== 0)))
+    throw new SurmiseError('relate.badPowers', `expected a power range lo..hi of integers within −12..12, not both 0, got ${p[0]}..${p[1]}`, { key: 'powers' });
+  const L = spec.lattice;
+  if (L !== undefined && L !== 'auto' && L !== 'off' && !(typeof L === 'number' && Number.isFinite(L) && L > 0))
+    throw new SurmiseError('relate.badOption', `expected the lattice to be auto, off or a positive step, got ${String(L)}`, { key: 'lattice' });
+  if (spec.from.length === 0) throw new SurmiseError('relate.noColumns', 'give at least one column to build terms from');
 }
 
-function fmtCoef(x: number): string {
-  return Number(x.toPrecision(6)).toString();
-}
-
-function formulaText(intercept: string, coefs: string[], terms: string[]): string {
-  let s = intercept;
-  terms.forEach((t, j) => {
-    const c = coefs[j]!;
-    const neg = c.startsWith('-');
-    const mag = neg ? c.slice(1) : c;
-    const prod = mag === '1' ? t : `${mag}*${t}`;
-    s = s === '0' ? (neg ? `-${prod}` : prod) : `${s} ${neg ? '-' : '+'} ${prod}`;
-  });
-  return s;
+function coefOf(r: Rational | null, x: number): Coef {
+  return r ? { num: r.num, den: r.den } : { decimal: x };
 }
 
 /** Search for formulas target ≈ c₀ + Σ cⱼ·termⱼ with at most `maxTerms` terms. */
 export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
+  checkOptions(spec);
+  const now = spec.now ?? (() => performance.now());
+  const t0 = now();
   const maxTerms = spec.maxTerms ?? 2;
   const top = spec.top ?? 10;
   const seed = spec.seed ?? 0;
   const powers = spec.powers ?? [-3, 3];
-  const maxExhaustive = spec.maxExhaustive ?? 200_000;
-  if (!Number.isInteger(maxTerms) || maxTerms < 1 || maxTerms > 6)
-    throw new SurmiseError('relate.badMaxTerms', `expected the maximum number of terms to be an integer from 1 to 6, got ${maxTerms}`);
-  if (!Number.isInteger(top) || top < 1) throw new SurmiseError('relate.badTop', `expected the number of candidates to report to be a positive integer, got ${top}`);
-  if (top > RELATE_LIMITS.top.max) throw tooLarge('top', top, RELATE_LIMITS.top);
-  if (!(Number.isInteger(powers[0]) && Number.isInteger(powers[1]) && powers[0] <= powers[1] && Math.max(-powers[0], powers[1]) <= 12 && (powers[0] !== 0 || powers[1] !== 0)))
-    throw new SurmiseError('relate.badPowers', `expected a power range lo..hi of integers within −12..12, not both 0, got ${powers[0]}..${powers[1]}`);
-  if (spec.from.length === 0) throw new SurmiseError('relate.noColumns', 'give at least one column to build terms from');
+  const maxComplexity = spec.maxComplexity ?? 7;
+  const maxExhaustive = spec.maxExhaustive ?? 1_000_000;
+  const maxCells = spec.maxCells ?? 25_000_000;
+  const timeLimit = spec.timeLimit ?? 60;
+  const progress = spec.progress ?? (() => {});
   const table = withDerived(table0, spec.derive ?? []);
   const target = realExpression(table, spec.target, 'the target');
   const fromCols = spec.from.map((name) => {
@@ -163,27 +178,7 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   ];
   const complete = completeRows(checks, table.nRows, spec.keepDuplicates ? undefined : table0);
   const dropped = complete.dropped;
-  // memory: every candidate term is a column of the rows in use; keep (terms × rows) under
-  // `maxCells` by a seeded sample of the usable rows (said in the notes)
-  const nReal = fromCols.filter((c) => c.kind !== 'complex').length;
-  const nComplex = fromCols.length - nReal;
-  const nPow = powers[1] - powers[0] + 1 - (powers[0] <= 0 && powers[1] >= 0 ? 1 : 0);
-  const pairs = (nReal * (nReal - 1)) / 2;
-  const estTerms = nReal * (nPow + 3) + 4 * nComplex + Math.min(spec.maxProducts ?? 600, pairs * nPow * nPow) +
-    2 * (nComplex * nReal + (nComplex * (nComplex - 1)) / 2);
-  const maxCells = spec.maxCells ?? 25_000_000;
-  let rows = complete.rows;
-  let sampledNote: string | null = null;
-  if (rows.length * estTerms > maxCells) {
-    const keepN = Math.max(1000, Math.floor(maxCells / estTerms));
-    if (keepN < rows.length) {
-      const perm = new Rng(deriveSeed(seed, 'search', 'sample')).permutation(rows.length);
-      const pick = perm.slice(0, keepN).sort();
-      const all = rows;
-      rows = Int32Array.from(pick, (i) => all[i]!);
-      sampledNote = `to bound memory (about ${estTerms} candidate terms), the search used a seeded random sample of ${keepN} of the ${all.length} usable rows.`;
-    }
-  }
+  const rows = complete.rows;
   // selection / held-out parts (indices into `rows`)
   let sel: Int32Array;
   let held: Int32Array;
@@ -200,159 +195,212 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   }
   if (sel.length < maxTerms + 3 || held.length < 2)
     throw new SurmiseError('relate.tooFewRows', `too few usable rows for a search: ${sel.length} for selection and ${held.length} held out (${dropped.total} of ${table.nRows} rows dropped)`);
-  const { terms, skipped } = buildCandidates(table, spec.from, rows, { powers, ...(spec.maxProducts ? { maxProducts: spec.maxProducts } : {}) });
-  const m = terms.length;
-  if (m === 0) throw new SurmiseError('relate.noCandidates', `no usable candidate terms from ${spec.from.join(', ')} (${skipped.length} skipped)`);
-  const y = gather(target.values, rows);
-  // centred, unit-length columns on the selection rows
-  const nS = sel.length;
-  const Z: Float64Array[] = terms.map((t) => {
-    const v = gather(t.values, sel);
-    let mean = 0;
-    for (let i = 0; i < nS; i++) mean += v[i]!;
-    mean /= nS;
-    let ss = 0;
-    for (let i = 0; i < nS; i++) { v[i] = v[i]! - mean; ss += v[i]! * v[i]!; }
-    const f = ss > 0 ? 1 / Math.sqrt(ss) : 0;
-    for (let i = 0; i < nS; i++) v[i] = v[i]! * f;
-    return v;
-  });
-  const yS = gather(y, sel);
-  let ymean = 0;
-  for (let i = 0; i < nS; i++) ymean += yS[i]!;
-  ymean /= nS;
-  let yy = 0;
-  for (let i = 0; i < nS; i++) { yS[i] = yS[i]! - ymean; yy += yS[i]! * yS[i]!; }
-  const dot = (a: Float64Array, b: Float64Array): number => {
-    let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-    let i = 0;
-    for (; i + 3 < nS; i += 4) { s0 += a[i]! * b[i]!; s1 += a[i + 1]! * b[i + 1]!; s2 += a[i + 2]! * b[i + 2]!; s3 += a[i + 3]! * b[i + 3]!; }
-    for (; i < nS; i++) s0 += a[i]! * b[i]!;
-    return s0 + s1 + s2 + s3;
+  const selRows = Int32Array.from(sel, (i) => rows[i]!); // table rows
+  const heldRows = Int32Array.from(held, (i) => rows[i]!);
+  const { bases, skipped } = baseQuantities(table, spec.from, rows);
+  if (bases.length === 0) throw new SurmiseError('relate.noCandidates', `no usable quantities from ${spec.from.join(', ')} (${skipped.length} skipped: ${skipped.map((s) => `${s.name}: ${s.reason}`).join('; ')})`);
+  const baseValues = bases.map((b) => b.values);
+  const baseTrees: Tree[] = bases.map((b, id) => ({ op: 'base', id, text: b.text, cost: b.cost }));
+  // screening rows: a seeded sample of the selection rows
+  const nScreen = Math.min(sel.length, spec.screenRows ?? 2000);
+  const screenRows = nScreen === sel.length ? selRows : Int32Array.from(new Rng(deriveSeed(seed, 'search', 'screen')).permutation(sel.length).slice(0, nScreen), (i) => selRows[i]!).sort();
+  const yScreen = gather(target.values, screenRows);
+  const yMean = yScreen.reduce((s, x) => s + x, 0) / nScreen;
+  const yC = yScreen.map((x) => x - yMean);
+  const screenBases = baseTrees.map((tree, id) => ({ tree, values: gather(baseValues[id]!, screenRows) }));
+  const unary = unaryOps(powers);
+  const beam = Math.max(1, Math.min(spec.beam ?? 100, Math.floor(maxCells / (nScreen * (maxComplexity + 4)))));
+  const poolPerTarget = 30;
+  const deadline = t0 + timeLimit * 1000;
+  let timeCut = false;
+  const stop = (): boolean => {
+    if (now() > deadline) timeCut = true;
+    return timeCut;
   };
-  const b = Float64Array.from(Z, (z) => dot(z, yS));
-  const gramCache = new Float64Array(m * m).fill(NaN);
-  const gram = (i: number, j: number): number => {
-    if (i === j) return 1;
-    let v = gramCache[i * m + j]!;
-    if (Number.isNaN(v)) {
-      v = dot(Z[i]!, Z[j]!);
-      gramCache[i * m + j] = v;
-      gramCache[j * m + i] = v;
-    }
-    return v;
+  const TOTAL = 100;
+  const grow = (targets: Float64Array[], levels: number, from: number, span: number): EnumerateResult =>
+    enumerateTerms({
+      bases: screenBases, targets, unary, maxComplexity: levels, parentsPerLevel: beam, poolPerTarget, perLevel: 4, stop,
+      rowName: (i) => `data row ${screenRows[i]! + 1}`,
+      progress: (c) => progress(Math.round(from + (span * c) / levels), TOTAL),
+    });
+  const standardize = (v: Float64Array): Float64Array => {
+    const m = v.reduce((s, x) => s + x, 0) / v.length;
+    const c = v.map((x) => x - m);
+    const nn = Math.sqrt(c.reduce((s, x) => s + x * x, 0));
+    return c.map((x) => x / nn);
   };
-  let total = 0;
-  for (let k = 1; k <= Math.min(maxTerms, m); k++) total += nChooseK(m, k);
-  const mode: 'exhaustive' | 'greedy' = total <= maxExhaustive ? 'exhaustive' : 'greedy';
-  const poolSize = Math.max(5 * top, 50);
-  // pool: best subsets by selection BIC, plus the best by RSS at each complexity (for the front)
-  type Scored = { s: number[]; rss: number; bic: number; complexity: number };
-  let pool: Scored[] = [];
-  const bestByComplexity = new Map<number, Scored>();
-  let worstInPool = Infinity;
-  let tried = 0;
-  let collinear = 0;
-  const consider = (s: number[]): number | null => {
-    tried++;
-    const e = explained(gram, b, s);
-    if (e === null) { collinear++; return null; }
-    const rss = Math.max(yy - e, 1e-300 * yy);
-    const bic = nS * Math.log(rss / nS) + (s.length + 2) * Math.log(nS);
-    const complexity = s.reduce((a, j) => a + terms[j]!.complexity, 0);
-    const sc = { s: s.slice(), rss, bic, complexity };
-    const prior = bestByComplexity.get(complexity);
-    if (!prior || rss < prior.rss) bestByComplexity.set(complexity, sc);
-    if (pool.length < poolSize || bic < worstInPool) {
-      pool.push(sc);
-      if (pool.length > 2 * poolSize) {
-        pool.sort((x, z) => x.bic - z.bic);
-        pool = pool.slice(0, poolSize);
-        worstInPool = pool[pool.length - 1]!.bic;
-      }
-    }
-    return rss;
-  };
-  const report = (done: number) => spec.progress?.(done, mode === 'exhaustive' ? total : maxTerms);
-  if (mode === 'exhaustive') {
-    const s: number[] = [];
-    let done = 0;
-    const rec = (start: number, k: number): void => {
-      for (let j = start; j < m; j++) {
-        s.push(j);
-        consider(s);
-        done++;
-        if ((done & 0xffff) === 0) report(done);
-        if (s.length < k) rec(j + 1, k);
-        s.pop();
-      }
-    };
-    rec(0, Math.min(maxTerms, m));
-    report(total);
-  } else {
-    // greedy forward selection: add the term that lowers the selection RSS most; every step's
-    // runners-up enter the pool too
-    const chosen: number[] = [];
-    for (let step = 0; step < Math.min(maxTerms, m); step++) {
-      let best = -1;
-      let bestRss = Infinity;
-      for (let j = 0; j < m; j++) {
-        if (chosen.includes(j)) continue;
-        const rss = consider([...chosen, j]);
-        if (rss !== null && rss < bestRss) { bestRss = rss; best = j; }
-      }
-      if (best < 0) break;
-      chosen.push(best);
-      report(step + 1);
+  // pass 1 (small terms only): the best models of 1..K−1 terms give residual targets for pass 2
+  const targets: Float64Array[] = [yC];
+  if (maxTerms > 1) {
+    const first = grow([yC], Math.min(3, maxComplexity), 0, 10);
+    const Z1 = first.pool.map((t) => standardize(t.values));
+    const s1 = subsetSearch(Z1, yC, first.pool.map((t) => t.complexity), maxTerms - 1, 1);
+    for (let k = 1; k < maxTerms; k++) {
+      const b = s1.bestBySize[k - 1];
+      if (!b) continue;
+      const r = residualVector(b.s.map((j) => first.pool[j]!.values), yScreen);
+      if (r) targets.push(r);
     }
   }
-  pool.sort((x, z) => x.bic - z.bic);
-  pool = pool.slice(0, poolSize);
-  const inPool = new Set(pool.map((p) => p.s.join(',')));
-  for (const sc of bestByComplexity.values()) if (!inPool.has(sc.s.join(','))) { pool.push(sc); inPool.add(sc.s.join(',')); }
-  // refit survivors by QR on the selection rows; measure on the held-out rows
-  const selRows = sel;
-  const survivors: SearchCandidate[] = pool.map((sc) => refit(sc.s.map((j) => terms[j]!), y, selRows, held, sc.bic, sc.complexity));
-  survivors.sort((x, z) => x.selectionBic - z.selectionBic);
-  const candidates = survivors.slice(0, top);
-  // Pareto front: no other survivor is at most as complex and strictly better held out (or equal and simpler)
-  const byComplexity = survivors.slice().sort((x, z) => x.complexity - z.complexity || x.heldOutRmse - z.heldOutRmse);
+  const tA = now();
+  const grown = grow(targets, maxComplexity, 10, 70);
+  if (process.env.SEARCH_DEBUG) console.error('grow', ((now() - tA) / 1000).toFixed(2), 'pass1', ((tA - t0) / 1000).toFixed(2));
+  const pool = grown.pool;
+  // inner constants of the best-screened terms that have some, fitted against the target alone
+  // (Levenberg–Marquardt); a refined term joins the pool beside the one it came from
+  const order: number[] = [];
+  const inOrder = new Set<number>();
+  const withConst = pool.map((t, i) => ({ t, i })).filter(({ t }) => constantsOf(t.tree).length > 0)
+    .sort((a, b) => b.t.scores[0]! - a.t.scores[0]! || a.t.id - b.t.id).slice(0, 20);
+  for (const { t } of withConst) {
+    const fit = fitInnerConstants([t.tree], baseValues, screenRows, yScreen);
+    if (!fit || fit.used.every((v, k) => v === constantsOf(t.tree)[k])) continue;
+    const values = evaluateTree(fit.terms[0]!, baseValues, screenRows);
+    if (values.some((x) => !Number.isFinite(x))) continue;
+    const z = standardize(values);
+    const scores = Float64Array.from(targets, (tg) => {
+      const nn = Math.sqrt(tg.reduce((q, x) => q + x * x, 0));
+      return nn > 0 ? Math.abs(z.reduce((q, x, i) => q + x * tg[i]!, 0)) / nn : 0;
+    });
+    pool.push({ tree: fit.terms[0]!, complexity: complexity(fit.terms[0]!), values, scores, best: Math.max(...scores), id: 1e9 + pool.length });
+    order.push(pool.length - 1);
+    inOrder.add(pool.length - 1);
+  }
+  // the terms for the subset search: those, then round robin over the targets' best lists, then each level's best
+  const longest = Math.max(...grown.byTarget.map((l) => l.length));
+  for (let r = 0; r < longest; r++) for (const list of grown.byTarget) if (r < list.length && !inOrder.has(list[r]!)) { order.push(list[r]!); inOrder.add(list[r]!); }
+  for (let i = 0; i < pool.length; i++) if (!inOrder.has(i)) { order.push(i); inOrder.add(i); }
+  let u = order.length;
+  while (u > maxTerms && countSubsets(u, maxTerms) > maxExhaustive) u--;
+  const subsetCut = u < order.length;
+  const chosen = order.slice(0, u).sort((a, b) => pool[a]!.id - pool[b]!.id);
+  const Z = chosen.map((i) => standardize(pool[i]!.values));
+  const totalSubsets = countSubsets(u, maxTerms);
+  const sub = subsetSearch(Z, yC, chosen.map((i) => pool[i]!.complexity), maxTerms, Math.max(5 * top, 50), (d) => progress(80 + Math.round((15 * d) / totalSubsets), TOTAL));
+  progress(95, TOTAL);
+  const tB = now();
+  if (process.env.SEARCH_DEBUG) console.error('subsets', ((tB - tA) / 1000).toFixed(2));
+  // survivors: inner constants, refit on all selection rows, measured on held-out rows
+  const lattice = spec.lattice === 'off' ? null
+    : typeof spec.lattice === 'number' ? { step: spec.lattice, offset: 0 }
+      : detectLattice(gather(target.values, rows));
+  // inner constants refitted within the model for the best 15 (by selection BIC) that have some
+  let lmLeft = 15;
+  const survivors = sub.kept.map((sc) => {
+    let trees = sc.s.map((j) => pool[chosen[j]!]!.tree);
+    let inner: SearchCandidate['innerConstants'] = [];
+    if (trees.some((t) => constantsOf(t).length > 0) && lmLeft-- > 0) {
+      const fit = fitInnerConstants(trees, baseValues, screenRows, yScreen);
+      if (fit) {
+        trees = fit.terms;
+        inner = fit.estimates.map((e, k) => ({ estimate: e, se: fit.se[k]!, used: fit.used[k]! }));
+      }
+    }
+    return refit(trees, baseValues, target.values, selRows, heldRows, sc.bic, inner, lattice);
+  }).filter((c): c is SearchCandidate => c !== null);
+  if (process.env.SEARCH_DEBUG) console.error('refit', ((now() - tB) / 1000).toFixed(2));
+  // merge formulas that are the same function: equal rounded predictions on probe rows
+  const probe = heldRows.slice(0, Math.min(64, heldRows.length));
+  const yHeld = gather(target.values, heldRows);
+  const yHeldMean = yHeld.reduce((q, x) => q + x, 0) / yHeld.length;
+  const order2 = rankBest(survivors, heldRows.length, Math.sqrt(yHeld.reduce((q, x) => q + (x - yHeldMean) ** 2, 0) / yHeld.length));
+  const seenFn = new Map<string, SearchCandidate>();
+  let merged = 0;
+  const distinct: SearchCandidate[] = [];
+  for (const c of order2) {
+    const key = probeKey(c, baseValues, probe);
+    if (seenFn.has(key)) { merged++; continue; }
+    seenFn.set(key, c);
+    distinct.push(c);
+  }
+  const candidates = distinct.slice(0, top);
+  const byComplexity = distinct.slice().sort((x, z) => x.complexity - z.complexity || x.heldOutRmse - z.heldOutRmse);
   const front: SearchCandidate[] = [];
   let bestSoFar = Infinity;
-  for (const c of byComplexity) {
-    if (c.heldOutRmse < bestSoFar) {
-      front.push(c);
-      bestSoFar = c.heldOutRmse;
-    }
-  }
+  for (const c of byComplexity) if (c.heldOutRmse < bestSoFar) { front.push(c); bestSoFar = c.heldOutRmse; }
+  progress(TOTAL, TOTAL);
   const notes = [
-    `${tried} subsets screened (${mode}) on ${sel.length} selection rows; the ${survivors.length} survivors were refitted there and measured on ${held.length} held-out rows that took no part in the choice.`,
+    `${sub.tried} subsets screened (exhaustive over ${u} screened terms of ${grown.nDistinct} distinct terms built, complexity ≤ ${maxComplexity} per term) on ${nScreen} of the ${sel.length} selection rows; the ${survivors.length} survivors were refitted on all selection rows and measured on ${held.length} held-out rows that took no part in the choice.`,
     'With many candidates some fit well by luck (multiple comparisons): trust a formula only when its held-out error matches its selection error and it survives on new data.',
   ];
-  if (sampledNote) notes.push(sampledNote);
-  if (collinear > 0) notes.push(`${collinear} subsets were passed over as numerically collinear.`);
-  if (mode === 'greedy') notes.push(`greedy forward selection: ${total} subsets would be needed for an exhaustive search (limit ${maxExhaustive}); the best subset may be missed.`);
+  if (merged > 0) notes.push(`${merged} candidates that compute the same function as a simpler one (equal predictions of the formula with fractions on ${probe.length} held-out rows) were merged into it.`);
+  if (timeCut) notes.push(`the time budget of ${timeLimit} s stopped growing terms in complexity level ${grown.stoppedInLevel ?? '?'} (levels up to ${grown.levelsDone} are complete); a faster machine may find more, so this result depends on the machine's speed.`);
+  if (grown.beamLevels.length > 0) notes.push(`memory bound: at complexity ${grown.beamLevels.join(', ')} only the ${beam} best-screened terms of the level were used to build larger ones (a beam); larger terms built from the others were not tried.`);
+  if (subsetCut) notes.push(`the subset search was limited to the ${u} best-screened of ${order.length} screened terms (${maxExhaustive} subsets at most).`);
+  if (sub.collinear > 0) notes.push(`${sub.collinear} subsets were passed over as numerically collinear.`);
+  if (lattice) notes.push(`the target lies on the lattice ${lattice.offset === 0 ? '' : `${lattice.offset} + `}${lattice.step}ℤ: each formula's held-out fraction of rows where rounding it to that lattice gives the target exactly is reported beside its RMSE.`);
   return {
-    target: spec.target, mode, nCandidateTerms: m, nCandidatesTried: tried, nCollinearSkipped: collinear,
-    selectionRows: sel.length, heldOutRows: held.length,
+    target: spec.target, mode: subsetCut ? 'screened' : 'exhaustive',
+    method: 'terms grown by complexity with sure independence screening, exhaustive subset search (SISSO, Ouyang et al. 2018), inner constants by Levenberg–Marquardt',
+    nCandidateTerms: grown.nDistinct, nCandidatesTried: sub.tried, nCollinearSkipped: sub.collinear,
+    selectionRows: sel.length, heldOutRows: held.length, screeningRows: nScreen,
     split: spec.split ? spec.split.description ?? 'given split' : `random 60/40 split of the ${rows.length} usable rows (seed ${seed})`,
-    dropped, skippedTerms: skipped,
-    candidates, front, seed, notes,
+    dropped, skippedTerms: [...skipped, ...grown.skipped],
+    candidates, front, lattice,
+    cuts: { time: timeCut, beam: grown.beamLevels, subsets: subsetCut },
+    seed, notes,
   };
 }
 
-function refit(ts: CandidateTerm[], y: Float64Array, sel: Int32Array, held: Int32Array, bic: number, complexity: number): SearchCandidate {
-  const cols = ts.map((t) => gather(t.values, sel));
-  const fit = lstsq(cols, gather(y, sel), { names: ts.map((t) => t.name) });
-  const all = ts.map((t) => t.values);
-  const pred = predictRows(all, fit.coef, true, held);
-  const heldOutRmse = rmseOn(pred, y, held);
-  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simpleFraction(fit.low[j]!, fit.high[j]!).rational));
+/**
+ * Best first: let e* be the lowest held-out RMSE and τ = 1 + 2/√(2·n_held) (two standard errors of
+ * an RMSE estimate under Gaussian residuals, common practice); the formulas with RMSE ≤ τ·e* "reach"
+ * it and come first, simplest first (then by RMSE); the rest follow by RMSE.
+ */
+export function rankBest<C extends { heldOutRmse: number; complexity: number }>(cands: C[], nHeld: number, targetSd = 0): C[] {
+  const best = Math.min(...cands.map((c) => c.heldOutRmse));
+  const reach = best * (1 + 2 / Math.sqrt(2 * Math.max(nHeld, 1))) + 1e-9 * targetSd;
+  return cands.slice().sort((a, b) => {
+    const ra = a.heldOutRmse <= reach ? 0 : 1;
+    const rb = b.heldOutRmse <= reach ? 0 : 1;
+    if (ra !== rb) return ra - rb;
+    if (ra === 0) return a.complexity - b.complexity || a.heldOutRmse - b.heldOutRmse;
+    return a.heldOutRmse - b.heldOutRmse || a.complexity - b.complexity;
+  });
+}
+
+interface Internal extends SearchCandidate { trees: Tree[]; roundedCoef: Float64Array }
+
+function probeKey(c: SearchCandidate, bases: Float64Array[], probe: Int32Array): string {
+  const it = c as Internal;
+  const cols = it.trees.map((t) => evaluateTree(t, bases, probe));
+  const parts: string[] = [];
+  for (let i = 0; i < probe.length; i++) {
+    let s = it.roundedCoef[0]!;
+    cols.forEach((v, j) => (s += it.roundedCoef[j + 1]! * v[i]!));
+    parts.push(Math.fround(s).toString());
+  }
+  return parts.join(',');
+}
+
+function refit(
+  trees0: Tree[], bases: Float64Array[], y: Float64Array, selRows: Int32Array, heldRows: Int32Array,
+  bic: number, innerConstants: SearchCandidate['innerConstants'], lattice: Lattice | null,
+): SearchCandidate | null {
+  const trees = trees0.slice().sort((a, b) => complexity(b) - complexity(a) || firstBase(a) - firstBase(b) || (treeText(a) < treeText(b) ? -1 : 1));
+  const cols = trees.map((t) => evaluateTree(t, bases, selRows));
+  const heldCols = trees.map((t) => evaluateTree(t, bases, heldRows));
+  if ([...cols, ...heldCols].some((c) => c.some((x) => !Number.isFinite(x)))) return null;
+  const names = trees.map(treeText);
+  const fit = lstsq(cols, gather(y, selRows), { names });
+  const predict = (coef: ArrayLike<number>): Float64Array => {
+    const out = new Float64Array(heldRows.length).fill(coef[0]!);
+    heldCols.forEach((v, j) => { for (let i = 0; i < out.length; i++) out[i] = out[i]! + coef[j + 1]! * v[i]!; });
+    return out;
+  };
+  const all = Int32Array.from({ length: heldRows.length }, (_, i) => heldRows[i]!);
+  const pred = predict(fit.coef);
+  const heldOutRmse = rmseOn(pred, y, all);
+  // an exact law is known only to double rounding: each interval is at least ±1e-9·SD(y)/SD(term)
+  const sd = (v: Float64Array): number => { const m = v.reduce((q, x) => q + x, 0) / v.length; return Math.sqrt(v.reduce((q, x) => q + (x - m) ** 2, 0) / v.length); };
+  const sdY = sd(gather(y, selRows));
+  const eps = [1e-9 * sdY, ...cols.map((c) => 1e-9 * sdY / (sd(c) || 1))];
+  const rationals = Array.from(fit.coef, (_, j) => (fit.aliased[j] ? null : simpleFraction(fit.low[j]! - eps[j]!, fit.high[j]! + eps[j]!).rational));
   const rounded = Float64Array.from(fit.coef, (c, j) => (rationals[j] ? rationals[j]!.num / rationals[j]!.den : c));
-  const roundedHeldOutRmse = rmseOn(predictRows(all, rounded, true, held), y, held);
+  const rpred = predict(rounded);
   const coefs = Array.from(fit.coef);
-  const names = ts.map((t) => t.name);
-  return {
+  const cand: Internal = {
     terms: names,
     coefs: coefs.slice(1),
     se: Array.from(fit.se).slice(1),
@@ -360,17 +408,21 @@ function refit(ts: CandidateTerm[], y: Float64Array, sel: Int32Array, held: Int3
     high: Array.from(fit.high).slice(1),
     rationals: rationals.slice(1),
     intercept: { coef: coefs[0]!, se: fit.se[0]!, low: fit.low[0]!, high: fit.high[0]!, rational: rationals[0]! },
-    complexity,
+    innerConstants,
+    complexity: trees.reduce((s, t) => s + complexity(t), 0),
     selectionRmse: fit.rmse,
     selectionBic: bic,
     heldOutRmse,
-    roundedHeldOutRmse,
-    formula: formulaText(fmtCoef(coefs[0]!), coefs.slice(1).map(fmtCoef), names),
-    roundedFormula: formulaText(
-      rationals[0] ? rationals[0].text : fmtCoef(coefs[0]!),
-      coefs.slice(1).map((c, j) => (rationals[j + 1] ? rationals[j + 1]!.text : fmtCoef(c))),
-      names.map((n) => (n.includes('/') && !/^[a-z]+\(/.test(n) ? `(${n})` : n)),
-    ),
+    roundedHeldOutRmse: rmseOn(rpred, y, all),
+    heldOutExact: lattice ? exactFraction(pred, y, heldRows, lattice) : null,
+    roundedHeldOutExact: lattice ? exactFraction(rpred, y, heldRows, lattice) : null,
+    formula: formulaText({ decimal: coefs[0]! }, coefs.slice(1).map((c) => ({ decimal: c })), trees),
+    roundedFormula: formulaText(coefOf(rationals[0]!, coefs[0]!), coefs.slice(1).map((c, j) => coefOf(rationals[j + 1]!, c)), trees),
     condition: fit.condition,
+    trees,
+    roundedCoef: rounded,
   };
+  Object.defineProperty(cand, 'trees', { enumerable: false });
+  Object.defineProperty(cand, 'roundedCoef', { enumerable: false });
+  return cand;
 }

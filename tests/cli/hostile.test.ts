@@ -79,6 +79,24 @@ export const ROWS: HostileRow[] = [
   { name: 'bound --bins 1e9', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x', '--bins', '1e9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
   { name: 'bound --top 1e9', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x', '--top', '1e9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge' },
 
+  // ---- knots: diagram sizes (MAX_STRANDS 64, MAX_CROSSINGS 2,000) and every knots generate count option
+  { name: 'braid generator 99999999999', args: ['knots', 'k.txt'], files: { 'k.txt': 'a\t99999999999\n' }, exit: 2, code: 'knots.tooLarge', says: 'k.txt:1:3: a: the braid needs 100000000000 strands' },
+  { name: 'braid with 1e9 strands', args: ['knots', 'k.txt'], files: { 'k.txt': 'b\t{"strands": 1e9, "word": [1]}\n' }, exit: 2, code: 'knots.tooLarge', says: 'at most 64 strands' },
+  { name: 'braid generator 3000', args: ['knots', 'k.txt'], files: { 'k.txt': 'c\t1 3000\n' }, exit: 2, code: 'knots.tooLarge', says: '(generator 3000)' },
+  { name: 'braid of 2,001 letters', args: ['knots', 'k.txt'], files: { 'k.txt': `d\t${Array(2001).fill('1').join(' ')}\n` }, exit: 2, code: 'knots.tooLarge', says: 'at most 2000 crossings' },
+  { name: 'knots generate braid --count 1e12', args: ['knots', 'generate', 'braid', '--strands', '3', '--length', '10', '--count', '1e12'], exit: 2, code: 'knots.tooLarge', says: 'the ceiling of --count' },
+  { name: 'knots generate braid --strands 100', args: ['knots', 'generate', 'braid', '--strands', '100', '--length', '10'], exit: 2, code: 'knots.tooLarge', says: 'at most 64 strands' },
+  { name: 'knots generate braid --length 5000', args: ['knots', 'generate', 'braid', '--strands', '3', '--length', '5000'], exit: 2, code: 'knots.tooLarge', says: 'at most 2000 letters' },
+  { name: 'knots generate pd --count 2e6', args: ['knots', 'generate', 'pd', '--strands', '3', '--length', '10', '--count', '2000000'], exit: 2, code: 'knots.tooLarge', says: 'at most 1000000' },
+  { name: 'knots generate pd --summands 1..500', args: ['knots', 'generate', 'pd', '--strands', '3', '--length', '10', '--summands', '1..500'], exit: 2, code: 'knots.tooLarge', says: 'at most 100 summands' },
+  { name: 'knots generate pd --kinks 0..999999', args: ['knots', 'generate', 'pd', '--strands', '3', '--length', '10', '--kinks', '0..999999'], exit: 2, code: 'knots.tooLarge', says: 'at most 2000 kinks' },
+  { name: 'knots generate pd past 2,000 crossings', args: ['knots', 'generate', 'pd', '--strands', '3', '--length', '1000', '--summands', '1..3'], exit: 2, code: 'knots.tooLarge', says: 'up to 3003 crossings' },
+  { name: 'knots generate twist --twists 0..99999999', args: ['knots', 'generate', 'twist', '--braid', '1 2', '--on', '1..3', '--twists', '0..99999999'], exit: 2, code: 'knots.tooLarge', says: 'the ceiling of --twists' },
+  { name: 'knots generate twist past 2,000 crossings', args: ['knots', 'generate', 'twist', '--braid', '1 2', '--on', '1..3', '--twists', '-400..0'], exit: 2, code: 'knots.tooLarge', says: 'up to 2402 crossings' },
+  { name: 'knots generate torus --p 2..1000', args: ['knots', 'generate', 'torus', '--p', '2..1000', '--q', '3'], exit: 2, code: 'knots.tooLarge', says: 'the ceiling of --p' },
+  { name: 'knots generate torus --q 1..99999', args: ['knots', 'generate', 'torus', '--p', '2..3', '--q', '1..99999'], exit: 2, code: 'knots.tooLarge', says: 'the ceiling of --q' },
+  { name: 'knots generate torus past 2,000 crossings', args: ['knots', 'generate', 'torus', '--p', '60..64', '--q', '1..100'], exit: 2, code: 'knots.tooLarge', says: 'up to 6300 crossings' },
+
   // ---- output folders and files
   { name: 'run --force into a folder of the user\'s files', args: ['run', 'c.yaml', '--force'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/notes.txt': 'mine' }, exit: 2, code: 'output.notRunFolder', says: 'notes.txt' },
   { name: 'run --force into a folder with a forged format string', args: ['run', 'c.yaml', '--force'], files: { 'c.yaml': 'table: xy.csv\ntarget: y\noutput: out\n', 'xy.csv': XY, 'out/results.json': '{"format":"surmise-run"}' }, exit: 2, code: 'output.notRunFolder' },

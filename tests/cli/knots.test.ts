@@ -45,7 +45,7 @@ describe('surmise knots', () => {
     expect(o.rows).toHaveLength(4);
     expect(o.rows[0].alexander).toEqual([1, -1, 1]);
     expect(o.rows[0].alexander_lowest_exponent).toBe(-1);
-    expect(o.rows[0].jumps).toEqual([0.166666667]); // root e^{iπ/3} of t² − t + 1 (hand computation)
+    expect(o.rows[0].jumps).toEqual([{ x: 0.166666666667, jump: -2 }]); // root e^{iπ/3} of t² − t + 1 (hand computation); σ_ω goes 0 → −2 (from memory)
     expect(o.rows[0].levine_tristram).toBe(0); // trefoil: σ_ω = 0 below the first jump (from memory)
     expect(o.rows[3].linking).toEqual([{ i: 1, j: 2, lk: 1 }]);
     expect(o.rows[1].levine_tristram).toBe(0); // figure-eight: σ_ω = 0 for all ω (amphichiral; from memory)

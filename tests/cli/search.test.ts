@@ -24,7 +24,7 @@ beforeAll(() => {
 describe('surmise search (CLI)', () => {
   it('--json finds 3x² − 2pq with rationals 3 and −2, reports mode, counts and a front (known answer by construction)', async () => {
     const io = memoryIO(dir);
-    const code = await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x,p,q', '--max-terms', '2', '--powers', '-3..3', '--json', '--top', '5'], io);
+    const code = await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x,p,q', '--max-terms', '2', '--powers', '-3..3', '--max-complexity', '3', '--json', '--top', '5'], io);
     expect(code).toBe(0);
     const j = JSON.parse(io.out);
     expect(j.mode).toBe('exhaustive');
@@ -43,16 +43,17 @@ describe('surmise search (CLI)', () => {
       expect(j.front[k].complexity).toBeGreaterThan(j.front[k - 1].complexity);
       expect(j.front[k].heldOutRmse).toBeLessThan(j.front[k - 1].heldOutRmse);
     }
-    expect(io.err).toBe(''); // short work, not a terminal: no progress lines
+    // not a terminal: at most plain progress lines (one per 5 s on a slow machine), nothing else
+    for (const line of io.err.split('\n').filter(Boolean)) expect(line).toMatch(/^searching formulas: \d+% \(\d+\/100\)$/);
   });
   it('human output names the held-out split and warns about multiple comparisons', async () => {
     const io = memoryIO(dir);
-    expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x,p,q', '--powers', '-1..2', '--split', 'random:0.5,0.1,0.4'], io)).toBe(0);
+    expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x,p,q', '--powers', '-1..2', '--max-complexity', '5', '--split', 'random:0.5,0.1,0.4'], io)).toBe(0);
     // project split syntax: 1500 rows → 600 test, 150 validation (unused here, and said so), 750 train
     expect(io.out).toMatch(/selection rows 750, held-out rows 600: .*\(150 rows in neither part\)/);
     expect(io.out).toMatch(/multiple comparisons/);
     expect(io.out).toMatch(/3\*x\^2 - 2\*p\*q/);
-    expect(io.out).toMatch(/skipped terms \(4\):\n {2}- sqrt\(p\): 'p' < 0 at data row \d+/);
+    expect(io.out).toMatch(/skipped terms \(6\):\n {2}- sqrt\(p\): 'p' is negative at data row \d+/);
   });
   it('bad input exits 2: power range, unknown column, bad target expression', async () => {
     const a = memoryIO(dir);
@@ -61,6 +62,15 @@ describe('surmise search (CLI)', () => {
     const b = memoryIO(dir);
     expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x,pp'], b)).toBe(2);
     expect(b.err).toMatch(/no column 'pp'.*did you mean 'p'/);
+    const d = memoryIO(dir);
+    expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x', '--time', '10 parsecs'], d)).toBe(2);
+    expect(d.err).toMatch(/--time 10 parsecs: expected a duration such as 60s or 2m/);
+    const e = memoryIO(dir);
+    expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x', '--lattice', '-2'], e)).toBe(2);
+    expect(e.err).toMatch(/--lattice -2: expected auto, off or a positive step/);
+    const f = memoryIO(dir);
+    expect(await runCli(['search', 'planted.csv', '--target', 'y', '--from', 'x', '--max-complexity', '40'], f)).toBe(2);
+    expect(f.err).toMatch(/expected --max-complexity to be at most 12 \(its ceiling\), got 40/);
     const c = memoryIO(dir);
     expect(await runCli(['search', 'planted.csv', '--target', 'y)', '--from', 'x'], c)).toBe(2);
     expect(c.err).toMatch(/\n {2}y\)\n {3}\^/);

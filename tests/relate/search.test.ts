@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { searchRelations } from '../../src/relate/search.ts';
-import { buildCandidates } from '../../src/relate/candidates.ts';
+import { baseQuantities } from '../../src/relate/bases.ts';
 import { Rng } from '../../src/util/rng.ts';
 import { makeTable } from './helpers.ts';
 
@@ -19,7 +19,7 @@ describe('searchRelations', () => {
     // (with seed 11 the 95% interval of the p*q coefficient, −1.9926 ± 0.0071, just missed −2 and the
     // simplest rational inside was −137/69: a 95% interval misses 5% of the time; see the coverage test below)
     const t = planted(3000, 12);
-    const r = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, powers: [-3, 3], seed: 5 });
+    const r = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, powers: [-3, 3], seed: 5, maxComplexity: 5 });
     expect(r.mode).toBe('exhaustive');
     const best = r.candidates[0]!;
     expect(new Set(best.terms)).toEqual(new Set(['x^2', 'p*q']));
@@ -39,7 +39,7 @@ describe('searchRelations', () => {
   it('95% intervals cover the planted 3 and −2 about 90% of the time: the rationals are exactly 3 and −2 in ≥ 7 of 10 seeds (coverage of a 95% interval, common practice)', () => {
     let exact = 0;
     for (let seed = 100; seed < 110; seed++) {
-      const r = searchRelations(planted(800, seed), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, powers: [-2, 2], seed });
+      const r = searchRelations(planted(800, seed), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, powers: [-2, 2], seed, maxComplexity: 4 });
       const best = r.candidates[0]!;
       expect(new Set(best.terms)).toEqual(new Set(['x^2', 'p*q']));
       const txt = best.terms.map((t, j) => `${t}:${best.rationals[j]?.text}`).sort().join(' ');
@@ -47,17 +47,27 @@ describe('searchRelations', () => {
     }
     expect(exact).toBeGreaterThanOrEqual(7);
   });
-  it('bounds memory by sampling rows when terms × rows would pass maxCells, and says so', () => {
-    const r = searchRelations(planted(5000, 4), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 1, powers: [-1, 2], seed: 3, maxCells: 100_000 });
-    // estimated terms for 3 real columns, powers −1..2 (3 powers): 3·6 + 3·9 = 45 → 2222 rows
-    expect(r.selectionRows + r.heldOutRows).toBe(2222);
-    expect(r.notes.join(' ')).toMatch(/seeded random sample of 2222 of the 5000 usable rows/);
-  });
-  it('falls back to greedy forward selection past the exhaustive limit and still finds the law', () => {
-    const t = planted(2000, 12);
-    const r = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, seed: 1, maxExhaustive: 100 });
-    expect(r.mode).toBe('greedy');
+  it('says when the memory bound cuts the beam and when the subset limit cuts the screened terms (counts, not clocks)', () => {
+    const r = searchRelations(planted(1500, 4), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, powers: [-1, 2], seed: 3, maxComplexity: 5, beam: 20, maxExhaustive: 500 });
+    expect(r.cuts.beam.length).toBeGreaterThan(0);
+    expect(r.notes.join(' ')).toMatch(/only the 20 best-screened terms of the level/);
+    expect(r.mode).toBe('screened');
+    expect(r.cuts.subsets).toBe(true);
+    expect(r.nCandidatesTried).toBeLessThanOrEqual(500);
     expect(new Set(r.candidates[0]!.terms)).toEqual(new Set(['x^2', 'p*q']));
+  });
+  it('a time budget stops growing terms and says so (clock injected: every call advances 1 s)', () => {
+    let t = 0;
+    const r = searchRelations(planted(800, 4), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, seed: 3, timeLimit: 5, now: () => (t += 1000) });
+    expect(r.cuts.time).toBe(true);
+    expect(r.notes.join(' ')).toMatch(/time budget of 5 s stopped growing terms in complexity level \d/);
+    expect(r.candidates.length).toBeGreaterThan(0);
+  });
+  it('is deterministic for a given seed (same candidates, same front)', () => {
+    const t = planted(900, 8);
+    const a = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, seed: 4, maxComplexity: 5 });
+    const b = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, seed: 4, maxComplexity: 5 });
+    expect(JSON.stringify(a)).toBe(JSON.stringify(b));
   });
   it('finds re(lon/mer) for a complex column (natural slope = re(λ/μ), fact of the trade)', () => {
     const rng = new Rng(3);
@@ -76,21 +86,18 @@ describe('searchRelations', () => {
   });
 });
 
-describe('buildCandidates', () => {
-  it('skips log and sqrt where the column is not positive, and negative powers of a column with a 0 (saying why)', () => {
-    const t = makeTable({ a: new Float64Array([1, 2, 3, 4]), b: new Float64Array([-1, 0, 2, 3]) });
-    const { terms, skipped } = buildCandidates(t, ['a', 'b'], Int32Array.from([0, 1, 2, 3]), { powers: [-1, 2] });
-    const names = terms.map((x) => x.name);
-    expect(names).toContain('log(a)');
-    expect(names).toContain('1/a');
-    expect(names).not.toContain('log(b)');
-    expect(names).not.toContain('1/b');
-    expect(skipped.find((s) => s.name === 'log(b)')!.reason).toMatch(/≤ 0 at data row 1/);
-    expect(skipped.find((s) => s.name === '1/b')!.reason).toMatch(/is 0 at data row 2/);
-    // complexity as documented: x^2 = 2, 1/a = 2, a*b = 2, a^2/b... skipped; a/b skipped (b has a 0)
-    expect(terms.find((x) => x.name === 'a^2')!.complexity).toBe(2);
-    expect(terms.find((x) => x.name === '1/a')!.complexity).toBe(2);
-    expect(terms.find((x) => x.name === 'a*b')!.complexity).toBe(2);
-    expect(terms.find((x) => x.name === 'b/a')!.complexity).toBe(3);
+describe('baseQuantities', () => {
+  it('gives columns, the parts of complex columns and of quotients with a complex member; skips constants with the reason', () => {
+    const t = makeTable({ a: new Float64Array([1, 2, 3, 4]), k: new Float64Array([5, 5, 5, 5]), z: { re: new Float64Array([1, 0, 2, 1]), im: new Float64Array([1, 2, 0, -1]) } });
+    const { bases, skipped } = baseQuantities(t, ['a', 'k', 'z'], Int32Array.from([0, 1, 2, 3]));
+    expect(bases.map((b) => b.text)).toEqual(['a', 're(z)', 'im(z)', 'abs(z)', 'arg(z)', 're(a/z)', 'im(a/z)', 're(k/z)', 'im(k/z)', 're(z/a)', 'im(z/a)', 're(z/k)', 'im(z/k)']);
+    expect(skipped).toEqual([{ name: 'k', reason: 'constant on the rows used (the intercept covers it)' }]);
+    // a/z on row 1: 1/(1 + i) = (1 − i)/2
+    const reAz = bases.find((b) => b.text === 're(a/z)')!;
+    const imAz = bases.find((b) => b.text === 'im(a/z)')!;
+    expect(reAz.values[0]).toBeCloseTo(0.5, 15);
+    expect(imAz.values[0]).toBeCloseTo(-0.5, 15);
+    expect(reAz.cost).toBe(4);
+    expect(bases.find((b) => b.text === 'abs(z)')!.values[1]).toBe(2);
   });
 });

@@ -10,7 +10,7 @@ import { checkMatrix } from '../data.ts';
 import type { Engine, Trainer } from '../engines.ts';
 import { makeLayout } from '../layout.ts';
 import { adamRate, type TrainSetup } from '../train.ts';
-import type { EpochRecord, NetworkState, TrainedNetwork } from '../trained.ts';
+import { NetworkBase, type NetworkState, type TrainedNetwork } from '../trained.ts';
 import type { Task } from '../options.ts';
 import { inferenceModel, lossModel, trainStepModel, type NetSpec } from './graphs.ts';
 import { Session, f32, loadOrt, type OrtTensor } from './runtime.ts';
@@ -96,15 +96,8 @@ function nativeTrainer(s: TrainSetup): Trainer {
 /** Rows per prediction / gradient chunk (see README for the measurement). */
 const CHUNK = 4096;
 
-class NativeNetwork implements TrainedNetwork {
-  readonly task: Task;
-  readonly p: number;
-  readonly classes: number[] | null;
-  readonly epochs: number;
-  readonly bestEpoch: number;
-  readonly history: EpochRecord[];
+class NativeNetwork extends NetworkBase implements TrainedNetwork {
   readonly engine = 'native' as const;
-  private readonly state: NetworkState;
   private readonly spec: NetSpec;
   private readonly params: Float32Array;
   private predictS: Session | null = null;
@@ -112,13 +105,7 @@ class NativeNetwork implements TrainedNetwork {
   private disposed = false;
 
   constructor(state: NetworkState) {
-    this.state = state;
-    this.task = state.task;
-    this.p = state.p;
-    this.classes = state.classes;
-    this.epochs = state.epochs;
-    this.bestEpoch = state.bestEpoch;
-    this.history = state.history;
+    super(state);
     this.spec = { layout: makeLayout(state.sizes), activation: state.activation, loss: state.loss, task: state.task };
     this.params = Float32Array.from(state.params);
   }
@@ -173,10 +160,6 @@ class NativeNetwork implements TrainedNetwork {
 
   inputGradients(x: Float64Array | Float32Array, n: number): Float64Array {
     return this.chunks(x, n, this.p, 'grad', true);
-  }
-
-  toJSON(): NetworkState {
-    return structuredClone(this.state);
   }
 
   dispose(): void {
