@@ -79,6 +79,19 @@ describe('surmise demo on the demo table of knots', () => {
     expect(m.score).toBeGreaterThan(m.baselines.constant.score + 0.2);
   });
 
+  it('the discovered bound is Seifert\'s |σ| ≤ c − s + 1 with c = 1, attained along T(2, 2k+1) (reference-checks: random braids; Seifert 1935)', () => {
+    const d = results.discoveries[0]!;
+    const top = d.proposals[0]!;
+    expect(top.exponents['crossings - seifert_circles + 1']).toBe(1);
+    expect(top.exponents.strands).toBe(0);
+    expect(top.constant).toBe(1);
+    expect(top.trend.kind).toBe('none');
+    // the equality family: torus knots T(2, q) are among the witnesses (|σ| = q − 1 = c − s + 1)
+    expect(top.witnesses.length).toBeGreaterThan(0);
+    for (const w of top.witnesses) expect(w.ratio).toBe(1);
+    expect(top.witnesses.some((w) => /^T\(2,/.test(String(w.labels.name)))).toBe(true);
+  });
+
   it('the leading quantities are those with a theorem behind them; the decoy sits at the bottom', () => {
     const ranking = results.rank!.ranking;
     const order = ranking.map((r) => r.feature);
@@ -87,6 +100,9 @@ describe('surmise demo on the demo table of knots', () => {
     // its interval lies below every interval of the first three
     for (const r of ranking.slice(0, 3)) expect(decoy.high).toBeLessThan(r.low);
     expect(order.indexOf('decoy_uniform')).toBeGreaterThanOrEqual(order.length - 3);
+    // the noise line: the seeded decoy is at noise level, the leaders above it
+    expect(decoy.aboveNoise).toBe(false);
+    for (const r of ranking.slice(0, 3)) expect(r.aboveNoise).toBe(true);
     for (const method of Object.values(results.rank!.methods)) {
       const o = method!.ranking.map((r) => r.feature);
       for (const lead of order.slice(0, 2)) expect(o.indexOf('decoy_uniform')).toBeGreaterThan(o.indexOf(lead));
