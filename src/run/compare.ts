@@ -18,6 +18,8 @@ interface ComparableResults {
   fits?: Array<{ target?: string; terms: FitTerm[] }>;
   search?: { target?: string; candidates?: SearchCand[] } | null;
   bounds?: Array<{ lhs: string; form?: 'upper' | 'lower'; results: Array<{ rhs: string; constant: number }> }>;
+  /** Right-hand sides found by `discover` (proposals best first). */
+  discoveries?: Array<{ lhs: string; form?: 'upper' | 'lower'; proposals: Array<{ rhs: string; constant: number }> }>;
 }
 
 /** A difference B − A with its interval; null fields when a side is missing. */
@@ -75,6 +77,8 @@ export interface ConstantMove {
   change: number | null;
   /** true when B's constant lies beyond A's (grew for an upper bound, shrank for a lower one): A's bound fails on B's rows */
   flagged: boolean;
+  /** 'discovered' for a right-hand side proposed by `discover`, else a bound the configuration named. */
+  source?: 'bound' | 'discovered';
 }
 
 export interface Comparison {
@@ -207,24 +211,33 @@ export function compareRuns(a: ComparableResults, b: ComparableResults): Compari
   }
 
   const constants: ConstantMove[] = [];
-  const nBounds = Math.max(a.bounds?.length ?? 0, b.bounds?.length ?? 0);
-  for (let i = 0; i < nBounds; i++) {
-    const ba = a.bounds?.[i];
-    const bb = b.bounds?.[i];
-    const lhs = ba?.lhs ?? bb?.lhs ?? '';
-    const lower = (ba?.form ?? bb?.form) === 'lower';
-    const rhss = [...new Set([...(ba?.results ?? []).map((r) => r.rhs), ...(bb?.results ?? []).map((r) => r.rhs)])];
-    for (const rhs of rhss) {
-      const x = ba?.results.find((r) => r.rhs === rhs)?.constant ?? null;
-      const y = bb?.results.find((r) => r.rhs === rhs)?.constant ?? null;
-      const change = x !== null && y !== null && x !== 0 ? (y - x) / Math.abs(x) : null;
-      const flagged = x !== null && y !== null && (lower ? y < x : y > x);
-      if (flagged) {
-        flags.push(`bound ${lhs} ${lower ? '≥' : '≤'} c·(${rhs}): the constant ${lower ? 'shrank' : 'grew'} from ${fmt(x)} to ${fmt(y)}, so A's bound fails on some row of B`);
+  // one list of (lhs, form, rhs → constant) per bound, whether the configuration named the rhs or `discover` proposed it
+  type Side = { lhs: string; form?: 'upper' | 'lower'; results: Array<{ rhs: string; constant: number }> } | undefined;
+  const compareConstants = (as: Side[], bs: Side[], source: 'bound' | 'discovered') => {
+    for (let i = 0; i < Math.max(as.length, bs.length); i++) {
+      const ba = as[i];
+      const bb = bs[i];
+      const lhs = ba?.lhs ?? bb?.lhs ?? '';
+      const lower = (ba?.form ?? bb?.form) === 'lower';
+      if (source === 'discovered' && ba?.results[0] && bb?.results[0] && ba.results[0].rhs !== bb.results[0].rhs) {
+        flags.push(`discovered bound for ${lhs}: the best right-hand side changed from ${ba.results[0].rhs} to ${bb.results[0].rhs}`);
       }
-      constants.push({ lhs, rhs, constantA: x, constantB: y, change, flagged });
+      const rhss = [...new Set([...(ba?.results ?? []).map((r) => r.rhs), ...(bb?.results ?? []).map((r) => r.rhs)])];
+      for (const rhs of rhss) {
+        const x = ba?.results.find((r) => r.rhs === rhs)?.constant ?? null;
+        const y = bb?.results.find((r) => r.rhs === rhs)?.constant ?? null;
+        const change = x !== null && y !== null && x !== 0 ? (y - x) / Math.abs(x) : null;
+        const flagged = x !== null && y !== null && (lower ? y < x : y > x);
+        if (flagged) {
+          flags.push(`${source === 'discovered' ? 'discovered bound' : 'bound'} ${lhs} ${lower ? '≥' : '≤'} c·(${rhs}): the constant ${lower ? 'shrank' : 'grew'} from ${fmt(x)} to ${fmt(y)}, so A's bound fails on some row of B`);
+        }
+        constants.push({ lhs, rhs, constantA: x, constantB: y, change, flagged, source });
+      }
     }
-  }
+  };
+  compareConstants(a.bounds ?? [], b.bounds ?? [], 'bound');
+  const asBounds = (d: NonNullable<ComparableResults['discoveries']>): Side[] => d.map((x) => ({ lhs: x.lhs, form: x.form, results: x.proposals }));
+  compareConstants(asBounds(a.discoveries ?? []), asBounds(b.discoveries ?? []), 'discovered');
 
   const metric = a.rank?.model?.metric ?? b.rank?.model?.metric;
   let skill: Comparison['skill'] = null;
@@ -308,7 +321,7 @@ export function formatComparison(c: Comparison): string {
   if (c.constants.length) {
     out.push('', 'bound constants (a maximum over rows: a larger c* in B means A\'s bound fails on some row of B)');
     out.push(table([['lhs', 'rhs', 'c* A', 'c* B', 'change', ''],
-      ...c.constants.map((r) => [r.lhs, r.rhs, fmt(r.constantA), fmt(r.constantB), r.change === null ? '-' : `${(r.change * 100).toFixed(1)}%`, r.flagged ? '<< grew past A' : 'A holds on B'])]));
+      ...c.constants.map((r) => [r.lhs, r.source === 'discovered' ? `${r.rhs} (discovered)` : r.rhs, fmt(r.constantA), fmt(r.constantB), r.change === null ? '-' : `${(r.change * 100).toFixed(1)}%`, r.flagged ? '<< grew past A' : 'A holds on B'])]));
   }
   out.push('', c.flags.length ? `${c.flags.length} difference(s) flagged:` : 'nothing flagged: every difference is consistent with both runs\' uncertainty.');
   for (const f of c.flags) out.push(`  - ${f}`);

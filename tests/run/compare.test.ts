@@ -73,6 +73,19 @@ describe('compareRuns: both runs\' uncertainty (definition: consistent when the 
     expect(low.constants[0]!.flagged).toBe(false);
   });
 
+  it('discovered bounds: proposals compared like bounds (a maximum over rows), and a change of the best right-hand side is flagged', () => {
+    const d = (rhs: string, c: number) => ({ lhs: 'u', form: 'upper' as const, proposals: [{ rhs, constant: c }, { rhs: 'w', constant: 5 }] });
+    const same = compareRuns({ discoveries: [d('v^2', 1)] }, { discoveries: [d('v^2', 1)] });
+    expect(same.flags).toEqual([]);
+    expect(same.constants.map((c) => c.source)).toEqual(['discovered', 'discovered']);
+    const grew = compareRuns({ discoveries: [d('v^2', 1)] }, { discoveries: [d('v^2', 1.2)] });
+    expect(grew.constants[0]!.flagged).toBe(true);
+    expect(grew.flags[0]).toContain('discovered bound u ≤ c·(v^2): the constant grew from 1 to 1.2');
+    const moved = compareRuns({ discoveries: [d('v^2', 1)] }, { discoveries: [d('v^3', 1)] });
+    expect(moved.flags[0]).toBe('discovered bound for u: the best right-hand side changed from v^2 to v^3');
+    expect(formatComparison(moved)).toContain('v^3 (discovered)');
+  });
+
   it('skill: per-repeat values compared through their t intervals', () => {
     const c = compareRuns({ rank: { model: { metric: 'r2', score: 0.8, perRepeat: [0.79, 0.8, 0.81] } } }, { rank: { model: { metric: 'r2', score: 0.81, perRepeat: [0.8, 0.81, 0.82] } } });
     expect(c.skill!.diff!.consistent).toBe(true);
