@@ -4,7 +4,7 @@ import { SurmiseError, didYouMean } from '../errors.ts';
 /**
  * Default groups from feature names: `name.re` and `name.im` form the group `name` (one complex
  * column); any other feature is its own group. Order follows the first member's position.
- * @example defaultGroups(['a', 'mer.re', 'mer.im']) // [{name:'a',members:[0]}, {name:'mer',members:[1,2]}]
+ * @example defaultGroups(['a', 'za.re', 'za.im']) // [{name:'a',members:[0]}, {name:'za',members:[1,2]}]
  */
 export function defaultGroups(featureNames: readonly string[]): FeatureGroup[] {
   const out: FeatureGroup[] = [];
@@ -25,7 +25,7 @@ export function defaultGroups(featureNames: readonly string[]): FeatureGroup[] {
 
 /**
  * Merge user-declared groups (name → member feature or column names) into the default grouping:
- * a declared member may be a feature (`mer.re`) or a default group (`mer`). A feature may belong
+ * a declared member may be a feature (`za.re`) or a default group (`za`). A feature may belong
  * to one group only; unknown names are refused (code `attribute.unknownGroupMember`).
  */
 export function declareGroups(

@@ -66,7 +66,7 @@ export function registerBound(program: Command, io: CliIO): void {
     .option('--bins <n>', `number of equal-count strata (default 10)${rangeHelp(BOUND_LIMITS.bins)}`)
     .option('--top <k>', `number of witness rows shown${rangeHelp(BOUND_LIMITS.top)}`, '5')
     .option('--id <col>', 'column shown beside witness rows (repeat or comma-separate; default: every label column)', collect, [])
-    .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. slope=re(lon/mer) (repeatable)', collect, [])
+    .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. ratio=re(zb/za) (repeatable)', collect, [])
     .option('--skip-invalid', 'drop and count rows with a missing cell, a non-finite value or rhs ≤ 0 instead of refusing them')
     .option('--lower', 'the lower form: largest c with lhs ≥ c·rhs on every row (min of lhs/rhs)')
     .option('--form <form>', `with --rhs: ${BOUND_FORMS.join(', ')} (affine adds lhs ≤ c·rhs + d; two-sided adds both affine sides)`, 'ratio')

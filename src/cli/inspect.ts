@@ -124,7 +124,7 @@ export function registerInspect(program: Command, io: CliIO): void {
     .command('inspect')
     .description('Read a table (CSV, TSV, JSON, JSON Lines) and summarise its columns, duplicates and rank correlations')
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
-    .option('--derive <name=expr>', 'add a computed column before profiling (repeatable), e.g. slope=re(lon/mer)', collect, [])
+    .option('--derive <name=expr>', 'add a computed column before profiling (repeatable), e.g. ratio=re(zb/za)', collect, [])
     .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [])
     .option(
       '--complex-pairs <rule>',

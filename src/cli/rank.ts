@@ -79,7 +79,7 @@ export function parseGroups(specs: string[]): Record<string, string[]> {
   for (const s of specs) {
     const eq = s.indexOf('=');
     const name = eq < 0 ? '' : s.slice(0, eq).trim();
-    if (name === '' || eq === s.length - 1) throw new SurmiseError('option.badGroup', `--group ${s}: expected NAME=FEATURE,FEATURE,…, e.g. --group cusp=mer,lon`);
+    if (name === '' || eq === s.length - 1) throw new SurmiseError('option.badGroup', `--group ${s}: expected NAME=FEATURE,FEATURE,…, e.g. --group pair=za,zb`);
     if (out[name]) throw new SurmiseError('option.badGroup', `--group ${s}: group '${name}' is declared twice`);
     out[name] = parseNameList(`--group ${name}=`, s.slice(eq + 1));
   }
@@ -220,7 +220,7 @@ export function registerRank(program: Command, io: CliIO): void {
     .requiredOption('--target <col>', 'the column (or expression) to predict, e.g. sig')
     .option('--features <a,b,c>', 'use only these features (default: every numeric column but the target)')
     .option('--exclude <a,b>', 'leave these columns out of the features')
-    .option('--derive <name=expr>', 'add a computed column first (repeatable), e.g. slope=re(lon/mer)', collect, [])
+    .option('--derive <name=expr>', 'add a computed column first (repeatable), e.g. ratio=re(zb/za)', collect, [])
     .option('--group <name=a,b>', 'score these features as one group (repeatable); a complex column is always one group', collect, [])
     .option('--method <m>', `attribution method: ${ATTRIBUTION_METHODS.join('|')}|all, or a comma list`, 'all')
     .option('--seeds <n>', `networks per split${rangeHelp(RANK_LIMITS.seeds)}`, String(RANK_DEFAULTS.seeds))

@@ -82,7 +82,7 @@ export function registerResidual(program: Command, io: CliIO): void {
     .description('fit a formula, then rank the remaining columns by how well they predict what it leaves over (and its size), and propose the next term')
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
     .requiredOption('--target <expr>', 'expression the formula predicts, e.g. sig')
-    .requiredOption('--terms <list>', 'the formula\'s terms separated by ";", e.g. "vol; inj^2"')
+    .requiredOption('--terms <list>', 'the formula\'s terms separated by ";", e.g. "ux; uy^2"')
     .option('--no-intercept', 'fit without the constant term')
     .option('--from <a,b>', 'rank only these columns (default: every numeric column the target and terms do not read)')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])

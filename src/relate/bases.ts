@@ -1,8 +1,8 @@
 /**
  * The real-valued base quantities the formula search builds on, one grammar for all of them:
  * a real (or integer, or derived) column x; re(z), im(z), abs(z), arg(z) of a complex column z;
- * re(a/b) and im(a/b) of every ordered pair with a complex member (re(lon/mer) is a cusp's
- * natural slope). Complexity as in tree.ts: 1 for a column, 2 for a part of a complex column,
+ * re(a/b) and im(a/b) of every ordered pair with a complex member (a quotient
+ * of two complex columns). Complexity as in tree.ts: 1 for a column, 2 for a part of a complex column,
  * 4 for a part of a quotient. Constant or non-finite quantities are skipped with the reason.
  */
 import type { Table } from '../table/types.ts';
@@ -10,7 +10,7 @@ import { formatColumnName } from '../table/expr/format.ts';
 import { getColumnOrThrow } from './columns.ts';
 
 export interface BaseQuantity {
-  /** Expression text, e.g. `x`, `abs(z)`, `re(lon/mer)`. */
+  /** Expression text, e.g. `x`, `abs(z)`, `re(zb/za)`. */
   text: string;
   cost: number;
   /** Values on every row of the table (NaN where not defined). */

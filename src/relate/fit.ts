@@ -11,9 +11,9 @@ import { crossValidatedRmse, gather, predictRows, rmseOn } from './crossval.ts';
 import { completeRows, describeRow, realExpression, withDerived, type DroppedRows } from './rows.ts';
 
 export interface FitSpec {
-  /** Expression for the target, e.g. `re(lon/mer)`. */
+  /** Expression for the target, e.g. `re(zb/za)`. */
   target: string;
-  /** One expression per term, e.g. [`sig`, `vol/inj^3`]. */
+  /** One expression per term, e.g. [`sig`, `ux/uy^3`]. */
   terms: string[];
   /** Include the constant term `1` (default true). */
   intercept?: boolean;

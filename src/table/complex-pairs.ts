@@ -15,7 +15,7 @@ export function parseComplexPairsOption(values: readonly string[], option = '--c
   const bad = (v: string, why: string): never => {
     throw new SurmiseError(
       'cli.badComplexPairs',
-      `${option} ${v}: ${why}; expected auto, none, or NAME=RE,IM (repeatable), e.g. ${option} mer=mer_re,mer_im`,
+      `${option} ${v}: ${why}; expected auto, none, or NAME=RE,IM (repeatable), e.g. ${option} za=za_re,za_im`,
     );
   };
   if (values.length === 0) return 'auto';

@@ -1,7 +1,7 @@
 /** What the learning stages receive: the row policy's input spec and its output. */
 
 export interface DatasetSpec {
-  /** A column name or an expression (e.g. `re(lon/mer)`). */
+  /** A column name or an expression (e.g. `re(zb/za)`). */
   target: string;
   /** Feature columns; default every numeric column except the target, its inputs and `exclude`. */
   features?: string[];
@@ -12,7 +12,7 @@ export interface DatasetSpec {
   dedupe?: 'all' | 'key' | 'none';
   /** Key columns for dedupe 'key' (giving `key` alone implies dedupe 'key'). */
   key?: string[];
-  /** Further feature groups, e.g. { cusp: ['mer', 'lon'] }; members are features or complex columns. */
+  /** Further feature groups, e.g. { pair: ['za', 'zb'] }; members are features or complex columns. */
   groups?: Record<string, string[]>;
   /** Extra columns to carry as text for witness tables (every label column is carried anyway). */
   keepLabels?: string[];

@@ -347,7 +347,7 @@ function buildGroups(features: Feature[], userGroups: Record<string, string[]>, 
   return [...out.values()];
 }
 
-/** A short human summary, e.g. "kept 9,812 of 10,000 rows; dropped 150 rows with bad values (vol: 120 missing; …) and 38 duplicates". */
+/** A short human summary, e.g. "kept 9,812 of 10,000 rows; dropped 150 rows with bad values (ux: 120 missing; …) and 38 duplicates". */
 export function formatDropReport(d: DropReport): string {
   const fmt = (x: number): string => x.toLocaleString('en-US');
   const parts: string[] = [`kept ${fmt(d.keptRows)} of ${fmt(d.inputRows)} rows`];
