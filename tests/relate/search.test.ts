@@ -69,20 +69,20 @@ describe('searchRelations', () => {
     const b = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, seed: 4, maxComplexity: 5 });
     expect(JSON.stringify(a)).toBe(JSON.stringify(b));
   });
-  it('finds re(lon/mer) for a complex column (natural slope = re(λ/μ), fact of the trade)', () => {
+  it('finds re(b/z) for a real column b and a complex column z (re(b/z) = b·re(z)/|z|², by definition)', () => {
     const rng = new Rng(3);
     const n = 1500;
     const re = Float64Array.from({ length: n }, () => rng.uniform(0.5, 1.5));
     const im = Float64Array.from({ length: n }, () => rng.uniform(-1, 1));
-    const lon = Float64Array.from({ length: n }, () => rng.uniform(2, 8));
-    const sig = Float64Array.from({ length: n }, (_, i) => {
-      const slope = (lon[i]! * re[i]!) / (re[i]! ** 2 + im[i]! ** 2);
-      return slope / 2 + 0.01 * rng.normal();
+    const b = Float64Array.from({ length: n }, () => rng.uniform(2, 8));
+    const y = Float64Array.from({ length: n }, (_, i) => {
+      const q = (b[i]! * re[i]!) / (re[i]! ** 2 + im[i]! ** 2);
+      return 3 * q + 0.01 * rng.normal();
     });
-    const t = makeTable({ lon, mer: { re, im }, sig });
-    const r = searchRelations(t, { target: 'sig', from: ['lon', 'mer'], maxTerms: 1, seed: 2 });
-    expect(r.candidates[0]!.terms).toEqual(['re(lon/mer)']);
-    expect(r.candidates[0]!.rationals[0]!.text).toBe('1/2');
+    const t = makeTable({ b, z: { re, im }, y });
+    const r = searchRelations(t, { target: 'y', from: ['b', 'z'], maxTerms: 1, seed: 2 });
+    expect(r.candidates[0]!.terms).toEqual(['re(b/z)']);
+    expect(r.candidates[0]!.rationals[0]!.text).toBe('3');
   });
 });
 
