@@ -1,3 +1,5 @@
+import { gcd } from '../util/gcd.ts';
+
 /** A small rational exponent p/q (q ≥ 1, in lowest terms). */
 export interface SmallRational {
   num: number;
@@ -5,13 +7,6 @@ export interface SmallRational {
   value: number;
   /** `2`, `-1`, `1/2`, `-3/4` */
   text: string;
-}
-
-function gcd(a: number, b: number): number {
-  a = Math.abs(a);
-  b = Math.abs(b);
-  while (b) [a, b] = [b, a % b];
-  return a;
 }
 
 function rational(num: number, den: number): SmallRational {

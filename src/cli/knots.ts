@@ -42,6 +42,7 @@ import {
 } from '../knots/index.ts';
 import { invariantColumns, readDiagramFile, tableRecord } from '../knots/batch.ts';
 import { invariantsMany } from '../knots/many.ts';
+import { gcd } from '../util/gcd.ts';
 
 const CONVENTIONS =
   'Conventions: PD crossings X[a,b,c,d] are read counter-clockwise from the incoming under-edge; a crossing is\n' +
@@ -409,7 +410,6 @@ export function registerKnots(program: Command, io: CliIO): void {
       const [p0, p1] = parseRange('--p', o.p);
       const [q0, q1] = parseRange('--q', o.q);
       generatedSize((p1 - 1) * Math.max(Math.abs(q0), Math.abs(q1)), `with --p ${o.p} and --q ${o.q} the braid of T(p, q)`);
-      const gcd = (a: number, b: number): number => (b ? gcd(b, a % b) : Math.abs(a));
       const lines: string[] = [];
       for (let p = p0; p <= p1; p++)
         for (let q = q0; q <= q1; q++) {

@@ -24,6 +24,7 @@
 import { Rng, deriveSeed } from '../util/rng.ts';
 import { quoteField } from '../table/write.ts';
 import { computeInvariants, diagramFrom, randomKnotBraid, torusBraid, twistedBraid, valueAtMinusOne, type Braid, type InvariantName } from '../knots/index.ts';
+import { gcd } from '../util/gcd.ts';
 
 export const DEMO_KNOT_COLUMNS = [
   'name', 'family', 'code', 'strands', 'crossings', 'writhe', 'seifert_circles', 'genus_bound',
@@ -48,7 +49,6 @@ export interface DemoDiagram {
   braid: Braid;
 }
 
-const gcd = (a: number, b: number): number => (b ? gcd(b, a % b) : Math.abs(a));
 const braidText = (b: Braid): string => `${b.strands}: ${b.word.join(' ')}`;
 
 /** The demo's diagrams, in table order. Deterministic in `seed`. */

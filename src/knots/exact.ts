@@ -5,6 +5,7 @@
  */
 
 import { sparseInertia, symmetricEntries } from './sparse.ts';
+import { gcd } from '../util/gcd.ts';
 
 export type IntMatrix = number[][];
 
@@ -55,12 +56,6 @@ export interface Inertia {
 
 const SAFE = 2 ** 52;
 
-function gcdNum(a: number, b: number): number {
-  a = Math.abs(a);
-  b = Math.abs(b);
-  while (b) [a, b] = [b, a % b];
-  return a;
-}
 function gcdBig(a: bigint, b: bigint): bigint {
   if (a < 0n) a = -a;
   if (b < 0n) b = -b;
@@ -141,7 +136,7 @@ function inertiaNumber(m: ReadonlyArray<ReadonlyArray<number>>): Inertia | undef
         if (Math.abs(x) >= SAFE || Math.abs(y) >= SAFE) return undefined;
         const v = x - y;
         row.push(v);
-        if (v !== 0 && g !== 1) g = gcdNum(g, v);
+        if (v !== 0 && g !== 1) g = gcd(g, v);
       }
       b.push(row);
     }

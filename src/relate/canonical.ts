@@ -7,6 +7,7 @@
  */
 import { simplestRational } from './rational.ts';
 import { firstBase, type Tree } from './tree.ts';
+import { gcd } from '../util/gcd.ts';
 
 /** A numeric coefficient: an exact rational, or a decimal shown as given. */
 export type Coef = { num: number; den: number } | { decimal: number };
@@ -18,12 +19,6 @@ interface Factor {
   order: number;
   num: number;
   den: number;
-}
-
-function gcd(a: number, b: number): number {
-  a = Math.abs(a); b = Math.abs(b);
-  while (b) [a, b] = [b, a % b];
-  return a || 1;
 }
 
 /** Shortest text of a number that reads back to it (6 significant digits for fitted decimals). */

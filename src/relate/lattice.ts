@@ -4,15 +4,11 @@
  * signature, always even, gets step 2), and round_L(f) = offset + step·round((f − offset)/step),
  * the lattice point nearest f (halves away from zero, as the expression language's `round`).
  */
+import { gcd } from '../util/gcd.ts';
 
 export interface Lattice {
   step: number;
   offset: number;
-}
-
-function gcd(a: number, b: number): number {
-  while (b) [a, b] = [b, a % b];
-  return a;
 }
 
 /**

@@ -2,6 +2,7 @@
  * Simplest rationals and continued-fraction convergents (A. Ya. Khinchin, "Continued Fractions",
  * 1964, ch. I; the Stern–Brocot tree, Graham, Knuth & Patashnik, "Concrete Mathematics", §4.5).
  */
+import { gcd } from '../util/gcd.ts';
 
 export interface Rational {
   num: number;
@@ -109,11 +110,6 @@ export interface SimpleFraction {
   rational: Rational | null;
   /** "1/2"; "several simple fractions (1/2, 2/3, …)"; "no simple fraction". */
   text: string;
-}
-
-function gcd(a: number, b: number): number {
-  while (b) [a, b] = [b, a % b];
-  return Math.abs(a);
 }
 
 /**

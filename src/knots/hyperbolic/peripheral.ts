@@ -23,6 +23,7 @@ import { across, cuspBases, type Passage } from './cusp.ts';
 import { curveTranslation, developCusps, type Shapes } from './develop.ts';
 import { linkingNumbers } from './linking.ts';
 import type { Combinatorics, Triangulation } from './triangulation.ts';
+import { gcd } from '../../util/gcd.ts';
 
 export interface CuspGeometry {
   /** Component (0-based). */
@@ -111,13 +112,6 @@ const cdiv = (a: [number, number], b: [number, number]): [number, number] => {
   const d = b[0] * b[0] + b[1] * b[1];
   return [(a[0] * b[0] + a[1] * b[1]) / d, (a[1] * b[0] - a[0] * b[1]) / d];
 };
-
-function gcd(a: number, b: number): number {
-  a = Math.abs(a);
-  b = Math.abs(b);
-  while (b) [a, b] = [b, a % b];
-  return a;
-}
 
 /**
  * Cusp geometry of every component from a geometric solution; undefined with a reason when a
