@@ -1,13 +1,15 @@
-import { mkdir, rename, writeFile } from 'node:fs/promises';
+import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
+import { writeFileAtomic } from '../util/atomic-write.ts';
 import type { RenderedReport } from './types.ts';
 
 /**
- * Write report.html, report.md and plots/<name>.svg|.png under `dir`, each first to `<file>.tmp`
- * and then renamed into place, so a reader never sees a half-written file.
+ * Write report.html, report.md and plots/<name>.svg|.png under `dir` (replacing earlier copies),
+ * each through the shared partial-file writer (`writeFileAtomic`): a reader never sees a
+ * half-written file, and a failed or interrupted write leaves no partial file behind.
  */
 export async function writeReportFiles(dir: string, r: RenderedReport): Promise<string[]> {
-  await mkdir(join(dir, 'plots'), { recursive: true });
+  mkdirSync(join(dir, 'plots'), { recursive: true });
   const files: Array<[string, string | Uint8Array]> = [
     ['report.html', r.html],
     ['report.md', r.markdown],
@@ -16,10 +18,6 @@ export async function writeReportFiles(dir: string, r: RenderedReport): Promise<
     files.push([join('plots', `${p.name}.svg`), p.svg]);
     if (p.png.length > 0) files.push([join('plots', `${p.name}.png`), p.png]);
   }
-  for (const [rel, data] of files) {
-    const target = join(dir, rel);
-    await writeFile(`${target}.tmp`, data);
-    await rename(`${target}.tmp`, target);
-  }
+  for (const [rel, data] of files) writeFileAtomic(join(dir, rel), data, { force: true, display: rel, codePrefix: 'report' });
   return files.map(([rel]) => rel);
 }

@@ -1,5 +1,5 @@
 import { describe, it, expect, beforeAll } from 'vitest';
-import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -210,17 +210,33 @@ describe('bad input and options', () => {
 });
 
 describe('writeReportFiles', () => {
-  it('writes every file by rename, leaving no .tmp behind', async () => {
+  it('writes every file by rename, leaving no partial file behind', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'surmise-report-'));
     try {
       const r = await renderReport(makeInput(200, 2));
       const files = await writeReportFiles(dir, r);
       expect(files).toContain('report.html');
       for (const f of files) expect(existsSync(join(dir, f))).toBe(true);
-      expect(readdirSync(join(dir, 'plots')).some((f) => f.endsWith('.tmp'))).toBe(false);
+      const debris = (d: string) => readdirSync(d).filter((f) => f.endsWith('.tmp') || f.includes('surmise-partial'));
+      expect(debris(dir)).toEqual([]);
+      expect(debris(join(dir, 'plots'))).toEqual([]);
       const png = readFileSync(join(dir, 'plots', `${r.plots[0]!.name}.png`));
       expect(Array.from(png.subarray(0, 8))).toEqual(PNG_SIGNATURE); // PNG spec §5.2
       expect(readFileSync(join(dir, 'report.md'), 'utf8')).toBe(r.markdown);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+  it('a write that fails says which file and leaves no partial file behind', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'surmise-report-'));
+    try {
+      mkdirSync(join(dir, 'report.md')); // a folder where the file should go: the rename fails
+      const r = await renderReport(makeInput(50, 1));
+      const e = await writeReportFiles(dir, r).then(() => null, (x: unknown) => x);
+      expect(e).toBeInstanceOf(SurmiseError);
+      expect((e as SurmiseError).code).toBe('report.unwritable');
+      expect((e as SurmiseError).message).toMatch(/cannot write report\.md/);
+      expect(readdirSync(dir).filter((f) => f.includes('surmise-partial'))).toEqual([]);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
