@@ -11,6 +11,7 @@ import { findBound, BOUND_FORMS, type BoundForm } from '../bound/find.ts';
 import { discoverBound, DISCOVER_OPTIONS, type DiscoverSpec } from '../bound/discover.ts';
 import { formatBound, formatDiscovery } from '../bound/format.ts';
 import { witnessTable } from '../bound/witness-table.ts';
+import { toJson } from '../util/json.ts';
 
 interface BoundOptions {
   lhs: string;
@@ -143,7 +144,7 @@ export function registerBound(program: Command, io: CliIO): void {
         await writeTable(witnessTable(table, groups), witnessPath, { force: Boolean(opts.force) });
         if (!opts.json) text += `witness rows written to ${opts.witnesses}\n`;
       }
-      if (opts.json) io.stdout(JSON.stringify(json, null, 2) + '\n');
+      if (opts.json) io.stdout(toJson(json, 2) + '\n');
       else io.stdout(text);
     });
 }

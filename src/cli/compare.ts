@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import { resolve } from 'node:path';
 import type { CliIO } from './io.ts';
+import { toJson } from '../util/json.ts';
 
 export function registerCompare(program: Command, io: CliIO): void {
   program
@@ -13,6 +14,6 @@ export function registerCompare(program: Command, io: CliIO): void {
       // the run stage (zod, yaml, plotting) loads when the command runs, not at every start
       const [{ readRunResults }, { compareRuns, formatComparison }] = await Promise.all([import('../run/rerun.ts'), import('../run/compare.ts')]);
       const c = compareRuns(readRunResults(resolve(io.cwd, a)), readRunResults(resolve(io.cwd, b)));
-      io.stdout(o.json ? JSON.stringify(c) + '\n' : formatComparison(c));
+      io.stdout(o.json ? toJson(c) + '\n' : formatComparison(c));
     });
 }

@@ -15,7 +15,8 @@ import { parseDerive } from '../table/expr/derive.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { splitRows } from '../relate/split-option.ts';
 import { withDerived } from '../relate/rows.ts';
-import { alignTable, num, toJson } from '../relate/text.ts';
+import { alignTable, num } from '../relate/text.ts';
+import { toJson } from '../util/json.ts';
 
 export interface FitOptions {
   target: string;
@@ -146,7 +147,7 @@ export function registerFit(program: Command, io: CliIO): void {
         split = { train: s.first, test: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
       const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, seed, folds, level, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}), ...(o.noisy !== undefined ? { noisyTerms: splitTerms(o.noisy) } : {}) });
-      if (o.json) io.stdout(toJson(r) + '\n');
+      if (o.json) io.stdout(toJson(r, 2) + '\n');
       else io.stdout(renderFit(r));
     });
 }

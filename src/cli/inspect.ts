@@ -14,6 +14,7 @@ import { parseComplexPairsOption } from '../table/complex-pairs.ts';
 import { profileTable, type ColumnProfile, type TableProfile } from '../table/profile.ts';
 import type { ColumnKind, Table } from '../table/types.ts';
 import { deriveColumn, parseDerive } from '../table/expr/index.ts';
+import { toJson } from '../util/json.ts';
 
 interface InspectOptions {
   derive: string[];
@@ -112,13 +113,6 @@ export function formatProfile(p: TableProfile): string {
   return lines.join('\n') + '\n';
 }
 
-function jsonSafe(p: TableProfile): unknown {
-  // JSON has no NaN/Infinity: write them as strings
-  return JSON.parse(
-    JSON.stringify(p, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? (Number.isNaN(v) ? 'nan' : v > 0 ? 'inf' : '-inf') : v)),
-  );
-}
-
 export function registerInspect(program: Command, io: CliIO): void {
   program
     .command('inspect')
@@ -159,7 +153,7 @@ export function registerInspect(program: Command, io: CliIO): void {
       }
       table = applyDerives(table, opts.derive);
       const profile = profileTable(table);
-      if (opts.json) io.stdout(JSON.stringify(jsonSafe(profile)) + '\n');
+      if (opts.json) io.stdout(toJson(profile) + '\n');
       else io.stdout(formatProfile(profile));
     });
 }

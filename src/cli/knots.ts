@@ -43,6 +43,7 @@ import {
 import { invariantColumns, readDiagramFile, tableRecord } from '../knots/batch.ts';
 import { invariantsMany } from '../knots/many.ts';
 import { gcd } from '../util/gcd.ts';
+import { toJson } from '../util/json.ts';
 
 const CONVENTIONS =
   'Conventions: PD crossings X[a,b,c,d] are read counter-clockwise from the incoming under-edge; a crossing is\n' +
@@ -224,7 +225,7 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   if (o.out !== undefined) await writeTable(table, resolve(io.cwd, o.out), { force: o.force === true });
   if (o.json) {
     io.stdout(
-      JSON.stringify({
+      toJson({
         command: 'knots',
         file,
         diagrams: sources.length,

@@ -19,6 +19,7 @@ import { RANK_LIMITS } from '../attribute/options.ts';
 import { tooLarge } from '../util/integer.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
+import { toJson } from '../util/json.ts';
 
 interface RankCliOptions {
   target: string;
@@ -305,7 +306,7 @@ export function registerRank(program: Command, io: CliIO): void {
       } finally {
         progress.stop();
       }
-      const json = JSON.stringify({ source: file, ...result });
+      const json = toJson({ source: file, ...result });
       if (outFile) writeFileAtomic(outFile, json + '\n', { force: Boolean(o.force) });
       if (o.json) io.stdout(json + '\n');
       else io.stdout(formatRank(result, file) + (outFile ? `wrote ${join(o.out!, 'rank.json')}\n` : ''));

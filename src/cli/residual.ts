@@ -13,7 +13,7 @@ import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
 import { parseDerive } from '../table/expr/derive.ts';
 import { withDerived } from '../relate/rows.ts';
-import { toJson } from '../relate/text.ts';
+import { toJson } from '../util/json.ts';
 import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
 import { residualRanking, RESIDUAL_LIMITS, type ResidualResult } from '../run/residual.ts';
@@ -142,6 +142,6 @@ export function registerResidual(program: Command, io: CliIO): void {
       } finally {
         progress.stop();
       }
-      io.stdout(o.json ? toJson({ source: file, ...result }) + '\n' : formatResidual(result, file));
+      io.stdout(o.json ? toJson({ source: file, ...result }, 2) + '\n' : formatResidual(result, file));
     });
 }

@@ -2,6 +2,7 @@ import type { CliIO } from './io.ts';
 import type { LoadedConfig } from '../run/config.ts';
 import { executeRun, type RunOutcome } from '../run/run.ts';
 import { makeProgress } from './progress.ts';
+import { toJson } from '../util/json.ts';
 
 /** Run with stage lines and a training progress bar on stderr; print the report's path on stdout. */
 export async function runWithProgress(
@@ -23,7 +24,7 @@ export async function runWithProgress(
   bar.stop();
   const t = outcome.results.timings;
   if (o.json) {
-    io.stdout(JSON.stringify({ outDir: outcome.outDir, report: `${outcome.outDir}/report.html`, files: outcome.files, timings: t, engine: outcome.results.rank?.model.engine ?? null }) + '\n');
+    io.stdout(toJson({ outDir: outcome.outDir, report: `${outcome.outDir}/report.html`, files: outcome.files, timings: t, engine: outcome.results.rank?.model.engine ?? null }) + '\n');
   } else {
     io.stdout(`${outcome.outDir}/report.html\n`);
     const engine = outcome.results.rank ? `; network on the ${outcome.results.rank.model.engine} engine` : '';

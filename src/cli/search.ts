@@ -14,10 +14,12 @@ import { parseDerive } from '../table/expr/derive.ts';
 import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
 import { splitRows } from '../relate/split-option.ts';
 import { withDerived } from '../relate/rows.ts';
-import { alignTable, num, toJson } from '../relate/text.ts';
+import { alignTable, num } from '../relate/text.ts';
+import { toJson } from '../util/json.ts';
 import { intOption } from './fit.ts';
 import { rangeHelp } from './options.ts';
 import { RELATE_LIMITS } from '../relate/limits.ts';
+import { parseIntegerRange } from '../util/range.ts';
 
 interface SearchOptions {
   target: string;
@@ -53,14 +55,9 @@ export function parseLattice(text: string): 'auto' | 'off' | number {
   return v;
 }
 
-/** `lo..hi` with integers, e.g. `-3..3`. */
+/** `--powers lo..hi` with integers, e.g. `-3..3` (the shared range reader). */
 export function parsePowers(text: string): [number, number] {
-  const m = /^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$/.exec(text);
-  if (!m) throw new SurmiseError('relate.badPowers', `--powers ${text}: expected a range of integer powers lo..hi, e.g. -3..3`);
-  const lo = Number(m[1]);
-  const hi = Number(m[2]);
-  if (lo > hi) throw new SurmiseError('relate.badPowers', `--powers ${text}: the lower end ${lo} exceeds the upper end ${hi}`);
-  return [lo, hi];
+  return parseIntegerRange(text, 'relate.badPowers', `--powers ${text}`);
 }
 
 function row(c: SearchCandidate, rank: number, lattice: boolean): string[] {
@@ -158,7 +155,7 @@ export function registerSearch(program: Command, io: CliIO): void {
       } finally {
         bar.stop();
       }
-      if (o.json) io.stdout(toJson(r) + '\n');
+      if (o.json) io.stdout(toJson(r, 2) + '\n');
       else io.stdout(renderSearch(r));
     });
 }

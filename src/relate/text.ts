@@ -16,7 +16,3 @@ export function alignTable(rows: string[][]): string {
   return rows.map((r) => r.map((c, j) => c + ' '.repeat(widths[j]! - [...c].length)).join('  ').trimEnd()).join('\n') + '\n';
 }
 
-/** JSON with non-finite numbers as null (JSON has no NaN). */
-export function toJson(x: unknown): string {
-  return JSON.stringify(x, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2);
-}

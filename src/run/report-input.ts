@@ -1,0 +1,278 @@
+/**
+ * The report's input from a run's results: what each stage computed, shaped for the report, and
+ * the points of its plots (sampled to at most MAX_POINTS per plot).
+ */
+import { isAbsolute, relative } from 'node:path';
+import { VERSION } from '../version.ts';
+import { evaluateExpression, type Table } from '../table/index.ts';
+import { formatColumnName } from '../table/expr/format.ts';
+import type { RankResult } from '../attribute/rank.ts';
+import { describeProbes } from '../attribute/probes.ts';
+import type { SearchResult } from '../relate/search.ts';
+import type { BoundResult } from '../bound/find.ts';
+import type { DiscoverResult } from '../bound/discover.ts';
+import { largestIndices, sampleIndices, type ReportInput } from '../report/index.ts';
+import { targetExpression } from './check.ts';
+import type { RunResults } from './run.ts';
+
+/**
+ * Points handed to the report per plot at most. The report itself bins or samples them for
+ * drawing (and says so on the plot); this cap only bounds memory on tables of millions of rows.
+ */
+const MAX_POINTS = 200_000;
+
+/** Values of an expression on the given rows, real part (NaN where missing). */
+function realValues(table: Table, source: string): Float64Array {
+  const v = evaluateExpression(table, source);
+  const out = new Float64Array(v.re.length);
+  for (let i = 0; i < out.length; i++) out[i] = v.missing[i] ? NaN : v.re[i]!;
+  return out;
+}
+
+/** Expression for a ranked feature group: a complex column is plotted through its real part. */
+function featureExpression(table: Table, name: string): string | null {
+  const col = table.columns.find((c) => c.name === name);
+  if (!col || col.kind === 'label') return null;
+  const q = formatColumnName(name);
+  return col.kind === 'complex' ? `abs(${q})` : q;
+}
+
+/** A path as the report shows it: relative to the working folder when inside it, else as is. */
+function shownPath(p: string): string {
+  const r = relative(process.cwd(), p);
+  return r && !r.startsWith('..') && !isAbsolute(r) ? r : p;
+}
+
+/**
+ * A label column that names groups of rows (e.g. a family): the first label column with 2 to 12
+ * distinct values. Its values colour the report's point plots.
+ */
+function groupingLabel(table: Table): { name: string; values: string[] } | null {
+  for (const c of table.columns) {
+    if (c.kind !== 'label') continue;
+    const seen = new Set<string>();
+    for (let i = 0; i < table.nRows && seen.size <= 12; i++) seen.add(c.missing[i] ? '' : c.values[i]!);
+    if (seen.size >= 2 && seen.size <= 12) return { name: c.name, values: Array.from({ length: table.nRows }, (_, i) => (c.missing[i] ? '' : c.values[i]!)) };
+  }
+  return null;
+}
+
+function pick(values: Float64Array, idx: Int32Array): number[] {
+  return Array.from(idx, (i) => values[i]!);
+}
+
+/**
+ * Finite rows of all arrays, then a seeded sample of at most MAX_POINTS of them; with `keepLargest`
+ * the rows with the 100 largest values of that array are always kept (the rows that set a bound).
+ */
+function finiteSample(arrays: Float64Array[], seed: number, keepLargest?: Float64Array): { idx: Int32Array; from: number } {
+  const n = arrays[0]!.length;
+  const ok: number[] = [];
+  for (let i = 0; i < n; i++) if (arrays.every((a) => Number.isFinite(a[i]!))) ok.push(i);
+  if (ok.length <= MAX_POINTS) return { idx: Int32Array.from(ok), from: ok.length };
+  const keep = keepLargest ? largestIndices(Float64Array.from(ok, (i) => keepLargest[i]!), 100) : [];
+  const s = sampleIndices(ok.length, MAX_POINTS, seed, keep);
+  return { idx: Int32Array.from(s, (k) => ok[k]!), from: ok.length };
+}
+
+/** The report's input from a run's results, the table they came from and the configuration text. */
+export function buildReportInput(
+  results: RunResults,
+  table: Table,
+  configText: string,
+): ReportInput {
+  const { config, rank, fits, search } = results;
+  // each search's proposals are shown as bounds along its first quantity
+  const bounds = [...results.bounds, ...results.discoveries.map(discoveryAsBounds)];
+  const group = groupingLabel(table);
+  const pickLabels = (idx: Int32Array) => (group ? { labels: { name: group.name, values: Array.from(idx, (i) => group.values[i]!) } } : {});
+  const input: ReportInput = {
+    title: `surmise: what predicts ${config.target}`,
+    createdAt: results.createdAt,
+    tool: { name: 'surmise', version: VERSION },
+    input: { path: shownPath(results.input.path), sha256: results.input.sha256, rows: results.input.rows },
+    configText,
+  };
+  if (rank) {
+    input.drops = rank.rows;
+    const methods: NonNullable<ReportInput['rank']>['methods'] = {};
+    for (const [m, r] of Object.entries(rank.methods)) {
+      if (r) methods[m] = { ranking: r.ranking, kendallTau: r.kendallTau ?? NaN };
+    }
+    input.rank = {
+      target: rank.target,
+      task: rank.task,
+      model: {
+        metric: rank.model.metric,
+        score: rank.model.score,
+        baselines: { constant: rank.model.baselines.constant.score, ridge: rank.model.baselines.ridge.score },
+        ...(rank.model.secondary
+          ? {
+              secondary: {
+                metric: rank.model.secondary.metric,
+                score: rank.model.secondary.score,
+                baselines: { constant: rank.model.baselines.constant.secondary!.score, ridge: rank.model.baselines.ridge.secondary!.score },
+              },
+            }
+          : {}),
+      },
+      methods,
+      ranking: rank.ranking,
+    };
+    if (rank.predictions) input.rank.predictions = { actual: rank.predictions.actual, predicted: rank.predictions.predicted };
+    if (rank.completeness) input.rank.completeness = rank.completeness;
+    if (rank.confusion) input.rank.confusion = { classes: rank.confusion.classes, counts: rank.confusion.counts };
+    const lead = rank.dependence?.find((d) => d.feature === rank.ranking[0]?.feature);
+    if (lead) input.rank.dependence = lead;
+    if (rank.noise) input.rank.noise = { probes: describeProbes(rank.noise.probes), reference: rank.noise.reference };
+    // target against the top feature, coloured by the second
+    const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
+    if (top.length >= 1) {
+      const y = realValues(table, targetExpression(table, config.target));
+      const x = realValues(table, top[0]!);
+      const c = top.length >= 2 ? realValues(table, top[1]!) : null;
+      const { idx, from } = finiteSample(c ? [x, y, c] : [x, y], config.seed);
+      input.scatter = {
+        x: pick(x, idx),
+        y: pick(y, idx),
+        xName: top[0]!,
+        yName: config.target,
+        ...(c ? { color: pick(c, idx), colorName: top[1]! } : {}),
+        ...pickLabels(idx),
+        ...(from > idx.length ? { sampledFrom: from } : {}),
+      };
+    }
+  }
+  if (fits.length) {
+    input.fits = fits.map((f) => {
+      const termCols = f.terms.filter((t) => t.term !== '1').map((t) => ({ term: t.term, v: realValues(table, t.term) }));
+      const y = realValues(table, f.target);
+      const resid = new Float64Array(y.length);
+      const icpt = f.terms.find((t) => t.term === '1')?.coef ?? 0;
+      for (let i = 0; i < y.length; i++) {
+        let s = icpt;
+        for (const tc of termCols) s += f.terms.find((t) => t.term === tc.term)!.coef * tc.v[i]!;
+        resid[i] = y[i]! - s;
+      }
+      const { idx } = finiteSample([resid, ...termCols.map((t) => t.v)], config.seed);
+      return {
+        target: f.target,
+        n: f.n,
+        r2: f.r2,
+        rmse: f.rmse,
+        cvRmse: f.cvRmse,
+        terms: f.terms.map((t) => ({ term: t.term, coef: t.coef, se: t.se, low: t.low, high: t.high, rational: t.rational ? { text: t.rational.text } : null })),
+        warnings: f.warnings,
+        residuals: { byTerm: termCols.map((t) => ({ term: t.term, x: pick(t.v, idx) })), residual: pick(resid, idx) },
+      };
+    });
+  }
+  if (search) {
+    const conv = (c: SearchResult['candidates'][number]) => ({
+      terms: c.terms,
+      coefs: c.coefs,
+      heldOutRmse: c.heldOutRmse,
+      complexity: c.complexity,
+      intercept: c.intercept.coef,
+      selectionRmse: c.selectionRmse,
+      rationalFormula: c.intercept.rational || c.rationals.some((q) => q !== null) ? c.roundedFormula : null,
+      rationalHeldOutRmse: c.roundedHeldOutRmse,
+    });
+    input.search = {
+      candidates: search.candidates.map(conv),
+      front: search.front.map(conv),
+      mode: search.mode,
+      target: search.target,
+      nCandidateTerms: search.nCandidateTerms,
+      nCandidatesTried: search.nCandidatesTried,
+      selectionRows: search.selectionRows,
+      heldOutRows: search.heldOutRows,
+      notes: search.notes,
+    };
+  }
+  if (results.residual) {
+    const rr = results.residual;
+    const noiseOf = (r: RankResult) => (r.noise ? { noise: { probes: describeProbes(r.noise.probes), reference: r.noise.reference } } : {});
+    input.residual = {
+      target: rr.fit.target,
+      fit: `${rr.fit.target} ≈ ${rr.fit.terms.map((t) => `${Number(t.coef.toPrecision(6))}${t.term === '1' ? '' : `·${t.term}`}`).join(' + ')}`,
+      r2: rr.fit.r2,
+      rmse: rr.fit.rmse,
+      residualName: rr.residualName,
+      features: rr.features,
+      ranking: rr.ranking.ranking,
+      ...noiseOf(rr.ranking),
+      ...(rr.absolute ? { absolute: { ranking: rr.absolute.ranking, ...noiseOf(rr.absolute) } } : {}),
+      next: rr.next?.proposal ? { from: rr.next.from, formula: rr.next.proposal.formula, heldOutRmse: rr.next.proposal.heldOutRmse, nextTerms: rr.next.nextTerms! } : null,
+      notes: rr.notes,
+    };
+  }
+  if (bounds.length) {
+    input.bounds = bounds.map((b) => {
+      const lhs = realValues(table, b.lhs);
+      return {
+        lhs: b.lhs,
+        ...(b.by ? { by: b.by } : {}),
+        results: b.results.map((r) => {
+          const rhs = realValues(table, r.rhs);
+          const by = realValues(table, r.by);
+          const ratio = new Float64Array(lhs.length);
+          for (let i = 0; i < ratio.length; i++) ratio[i] = rhs[i]! > 0 ? lhs[i]! / rhs[i]! : NaN;
+          const { idx } = finiteSample([ratio, by], config.seed, ratio);
+          const quantiles: Record<string, number> = {};
+          for (const q of r.quantiles) quantiles[`${Number((q.p * 100).toPrecision(4))}%`] = q.value;
+          return {
+            rhs: r.rhs,
+            constant: r.constant,
+            witnesses: r.witnesses.map((w) => ({
+              row: w.row,
+              lhs: w.lhs,
+              rhs: w.rhs,
+              ratio: w.ratio,
+              by: w.by,
+              labels: Object.fromEntries(Object.entries(w.labels).map(([k, v]) => [k, v === null ? '' : String(v)])),
+            })),
+            quantiles,
+            strata: r.strata.map((s) => ({ low: s.low, high: s.high, n: s.n, constant: s.constant })),
+            trend: r.trend && r.trend.slope !== null && r.trend.low !== null && r.trend.high !== null
+              ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, kind: r.trend.kind, verdict: r.trend.verdict }
+              : null,
+            points: { by: pick(by, idx), ratio: pick(ratio, idx), ...pickLabels(idx) },
+          };
+        }),
+      };
+    });
+  }
+  return input;
+}
+
+
+/** A right-hand-side search seen as bounds along its first quantity, for the report. */
+function discoveryAsBounds(d: DiscoverResult): BoundResult {
+  const by = d.from[0]!;
+  return {
+    source: d.source,
+    lhs: d.lhs,
+    by,
+    form: d.form,
+    n: d.n,
+    dropped: d.dropped,
+    results: d.proposals.map((p) => {
+      const { strata, ...trend } = p.trend.along[by]!;
+      return {
+        rhs: p.rhs,
+        by,
+        constant: p.constant,
+        n: d.used,
+        dropped: d.dropped,
+        witnesses: p.witnesses,
+        quantiles: [],
+        quantileDefinition: '',
+        strata,
+        trend,
+        extremeStratum: null,
+        notes: [],
+      };
+    }),
+  };
+}
