@@ -11,7 +11,7 @@ import type { StandardizerState } from '../table/standardize.ts';
 import { dependenceGrid, partialDependence } from './dependence.ts';
 import type { Table } from '../table/types.ts';
 import { buildDataset, type Dataset, type DropReport } from '../table/dataset.ts';
-import { parseDerive } from '../table/expr/index.ts';
+import type { DeriveSpec } from '../table/expr/index.ts';
 import { SurmiseError } from '../errors.ts';
 import { checkInteger, tooLarge } from '../util/integer.ts';
 import { RANK_DEFAULTS, RANK_LIMITS } from './options.ts';
@@ -40,8 +40,8 @@ export interface RankOptions {
   target: string;
   features?: string[];
   exclude?: string[];
-  /** `NAME=EXPR` derived columns, computed in order. */
-  derive?: string[];
+  /** Derived columns, computed in order (each may use the ones before it). */
+  derive?: readonly DeriveSpec[];
   /** Declared feature groups: name → member features or columns. */
   groups?: Record<string, string[]>;
   /** Methods to run; default all four. */
@@ -452,7 +452,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     target: options.target,
     features: options.features,
     exclude: options.exclude,
-    derive: (options.derive ?? []).map((d) => parseDerive(d)),
+    derive: [...(options.derive ?? [])],
     groups: options.groups,
   });
   const n = ds.y.length;

@@ -4,7 +4,8 @@ import { Rng, deriveSeed } from '../util/rng.ts';
 import { trendAlong, type Trend } from './core.ts';
 import { tightestEnvelope } from './envelope.ts';
 import type { BoundStratum, BoundWitness, DropCounts } from './find.ts';
-import { evalReal, idColumns, labelsOf, lineOf, withDerived, type RealValues } from './inputs.ts';
+import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
+import { idColumns, labelsOf, lineOf } from './inputs.ts';
 import { snapRational, type SmallRational } from './snap.ts';
 import { stratify, type Stratification } from './strata.ts';
 import { estimateSupremum, SUPREMUM_METHOD } from './supremum.ts';
@@ -34,7 +35,7 @@ export interface DiscoverSpec {
   exceedances?: number;
   id?: readonly string[];
   skipInvalid?: boolean;
-  derive?: readonly string[];
+  derive?: readonly DeriveSpec[];
 }
 
 /** One option of discovery: its range and default (the one table the library, CLI and config read). */
@@ -128,8 +129,8 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
   table = withDerived(table, o.derive);
   const upper = !o.lower;
   const n = table.nRows;
-  const lhs = evalReal(table, o.lhs, 'lhs');
-  const xs = o.from.map((f) => evalReal(table, f, 'from'));
+  const lhs = realColumn(table, o.lhs, 'lhs');
+  const xs = o.from.map((f) => realColumn(table, f, 'from'));
   // rows: missing → non-finite → a quantity ≤ 0 → lhs ≤ 0
   const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };
   const bad: Array<{ i: number; why: string }> = [];
@@ -362,7 +363,7 @@ interface CheckedDiscover {
   exceedances: number | null;
   id: string[] | null;
   skipInvalid: boolean;
-  derive: string[];
+  derive: DeriveSpec[];
 }
 
 /** Options checked once against DISCOVER_OPTIONS; errors name the option key. */

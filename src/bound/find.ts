@@ -3,7 +3,8 @@ import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
 import { boundArrays, fmt, type Trend } from './core.ts';
 import { affineEnvelope } from './affine.ts';
-import { evalReal, idColumns, labelsOf, lineOf, withDerived, type RealValues } from './inputs.ts';
+import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
+import { idColumns, labelsOf, lineOf } from './inputs.ts';
 
 /** What to bound: lhs ≤ c·rhs (or lhs ≥ c·rhs with `lower`), for each rhs candidate. */
 export interface BoundSpec {
@@ -23,8 +24,8 @@ export interface BoundSpec {
   skipInvalid?: boolean;
   /** The lower form lhs ≥ c·rhs: c* is the smallest ratio. */
   lower?: boolean;
-  /** Derived columns `NAME=EXPRESSION`, added in order before anything is evaluated (the table is not changed). */
-  derive?: readonly string[];
+  /** Derived columns, added in order before anything is evaluated (the table is not changed). */
+  derive?: readonly DeriveSpec[];
   /** 'ratio' (default): lhs ≤ c·rhs; 'affine': also lhs ≤ c·rhs + d; 'two-sided': also c₁·rhs + d₁ ≤ lhs ≤ c₂·rhs + d₂. */
   form?: BoundForm;
 }
@@ -121,14 +122,14 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
   const opts = checkSpec(spec);
   table = withDerived(table, spec.derive ?? []);
   const upper = !opts.lower;
-  const lhs = evalReal(table, opts.lhs, 'lhs');
-  const byVal = opts.by === null ? null : evalReal(table, opts.by, 'by');
+  const lhs = realColumn(table, opts.lhs, 'lhs');
+  const byVal = opts.by === null ? null : realColumn(table, opts.by, 'by');
   const idCols = idColumns(table, opts.id);
   const n = table.nRows;
   const reasonOf = new Uint8Array(n); // 0 ok, 1 missing, 2 non-finite, 3 rhs ≤ 0 (first across candidates)
   const results: BoundCandidate[] = [];
   for (const rhsSrc of opts.rhs) {
-    const rhs = evalReal(table, rhsSrc, 'rhs');
+    const rhs = realColumn(table, rhsSrc, 'rhs');
     const by = byVal ?? rhs;
     const byName = opts.by ?? rhsSrc;
     const ratio = new Float64Array(n);

@@ -12,6 +12,7 @@ import { discoverBound, DISCOVER_OPTIONS, type DiscoverSpec } from '../bound/dis
 import { formatBound, formatDiscovery } from '../bound/format.ts';
 import { witnessTable } from '../bound/witness-table.ts';
 import { toJson } from '../util/json.ts';
+import { parseDerive } from '../table/expr/derive.ts';
 
 interface BoundOptions {
   lhs: string;
@@ -104,7 +105,7 @@ export function registerBound(program: Command, io: CliIO): void {
         ...(opts.format !== undefined ? { format: opts.format as TableFormat } : {}),
         onProgress: reading.onProgress,
       }).finally(() => reading.stop());
-      const common = { top, ...(id.length > 0 ? { id } : {}), derive: opts.derive, skipInvalid: Boolean(opts.skipInvalid), lower: Boolean(opts.lower) };
+      const common = { top, ...(id.length > 0 ? { id } : {}), derive: opts.derive.map((d) => parseDerive(d)), skipInvalid: Boolean(opts.skipInvalid), lower: Boolean(opts.lower) };
       let text: string;
       let json: unknown;
       let groups: Array<{ rhs: string; witnesses: Array<{ row: number; ratio: number; lhs: number; rhs: number }> }>;

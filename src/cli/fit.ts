@@ -11,10 +11,9 @@ import { tooLarge } from '../util/integer.ts';
 import { RELATE_LIMITS } from '../relate/limits.ts';
 import { SurmiseError } from '../errors.ts';
 import { readTable } from '../table/read.ts';
-import { parseDerive } from '../table/expr/derive.ts';
+import { parseDerive, withDerived } from '../table/expr/derive.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { splitRows } from '../relate/split-option.ts';
-import { withDerived } from '../relate/rows.ts';
 import { alignTable, num } from '../relate/text.ts';
 import { toJson } from '../util/json.ts';
 
@@ -135,10 +134,7 @@ export function registerFit(program: Command, io: CliIO): void {
       const level = Number(o.level);
       if (!(level > 0 && level < 1)) throw new SurmiseError('relate.badOption', `expected --level to lie strictly between 0 and 1, got '${o.level}'`);
       const terms = splitTerms(o.terms);
-      const derive = o.derive.map((d) => {
-        const p = parseDerive(d);
-        return { name: p.name, expression: p.source };
-      });
+      const derive = o.derive.map((d) => parseDerive(d));
       const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
       const table = withDerived(table0, derive);
       let split: { train: Int32Array; test: Int32Array; description: string } | undefined;

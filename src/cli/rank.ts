@@ -20,6 +20,7 @@ import { tooLarge } from '../util/integer.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
 import { toJson } from '../util/json.ts';
+import { parseDerive } from '../table/expr/derive.ts';
 
 interface RankCliOptions {
   target: string;
@@ -265,7 +266,7 @@ export function registerRank(program: Command, io: CliIO): void {
         target: o.target,
         ...(o.features !== undefined ? { features: parseNameList('--features', o.features) } : {}),
         ...(o.exclude !== undefined ? { exclude: parseNameList('--exclude', o.exclude) } : {}),
-        derive: o.derive,
+        derive: o.derive.map((d) => parseDerive(d)),
         ...(o.group.length ? { groups: parseGroups(o.group) } : {}),
         methods: parseMethods(o.method),
         seeds: parsePositiveInt('--seeds', o.seeds, RANK_LIMITS.seeds.max),

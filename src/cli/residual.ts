@@ -11,8 +11,7 @@ import { collect, parseIntOption, parseNonNegativeInt, parsePositiveInt, rangeHe
 import { makeProgress } from './progress.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
-import { parseDerive } from '../table/expr/derive.ts';
-import { withDerived } from '../relate/rows.ts';
+import { parseDerive, withDerived } from '../table/expr/derive.ts';
 import { toJson } from '../util/json.ts';
 import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
@@ -119,10 +118,7 @@ export function registerResidual(program: Command, io: CliIO): void {
       const terms = splitTerms(o.terms);
       const powers = parsePowers(o.powers);
       const from = o.from !== undefined ? parseNameList('--from', o.from) : undefined;
-      const derive = o.derive.map((d) => {
-        const p = parseDerive(d);
-        return { name: p.name, expression: p.source };
-      });
+      const derive = o.derive.map((d) => parseDerive(d));
       const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}) });
       const table = withDerived(table0, derive);
       const progress = makeProgress(io, 'residual', o.progress);

@@ -10,10 +10,9 @@ import type { CliIO } from './io.ts';
 import { collect } from './options.ts';
 import { SurmiseError } from '../errors.ts';
 import { readTable } from '../table/read.ts';
-import { parseDerive } from '../table/expr/derive.ts';
+import { parseDerive, withDerived } from '../table/expr/derive.ts';
 import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
 import { splitRows } from '../relate/split-option.ts';
-import { withDerived } from '../relate/rows.ts';
 import { alignTable, num } from '../relate/text.ts';
 import { toJson } from '../util/json.ts';
 import { intOption } from './fit.ts';
@@ -136,10 +135,7 @@ export function registerSearch(program: Command, io: CliIO): void {
       from.forEach((c, i) => {
         if (c === '') throw new SurmiseError('relate.badOption', `--from: column ${i + 1} of the list is empty (columns are separated by ',')`);
       });
-      const derive = o.derive.map((d) => {
-        const p = parseDerive(d);
-        return { name: p.name, expression: p.source };
-      });
+      const derive = o.derive.map((d) => parseDerive(d));
       const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
       const table = withDerived(table0, derive);
       let split: { selection: Int32Array; heldOut: Int32Array; description: string } | undefined;

@@ -8,7 +8,8 @@ import { lstsq } from './lstsq.ts';
 import { simpleFraction, SIMPLE_DENOMINATOR, type Rational, type SimpleFraction } from './rational.ts';
 import { orthogonalLine } from './orthogonal.ts';
 import { crossValidatedRmse, gather, predictRows, rmseOn } from './crossval.ts';
-import { completeRows, describeRow, realExpression, withDerived, type DroppedRows } from './rows.ts';
+import { completeRows, describeRow, type DroppedRows } from './rows.ts';
+import { realColumn, withDerived, type DeriveSpec } from '../table/expr/index.ts';
 
 export interface FitSpec {
   /** Expression for the target, e.g. `re(zb/za)`. */
@@ -17,8 +18,8 @@ export interface FitSpec {
   terms: string[];
   /** Include the constant term `1` (default true). */
   intercept?: boolean;
-  /** Derived columns `{name, expression}` added before anything else is evaluated. */
-  derive?: Array<{ name: string; expression: string }>;
+  /** Derived columns added before anything else is evaluated (the table is not changed). */
+  derive?: readonly DeriveSpec[];
   /** Row indices (0-based) of a training and a held-out part; the fit uses `train` only. */
   split?: { train: ArrayLike<number>; test: ArrayLike<number>; description?: string };
   /** Seed of the cross-validation folds (default 0). */
@@ -121,8 +122,8 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
     seen.set(key, i);
   });
   const table = withDerived(table0, spec.derive ?? []);
-  const target = realExpression(table, spec.target, 'the target');
-  const terms = spec.terms.map((t) => realExpression(table, t, 'term'));
+  const target = realColumn(table, spec.target, 'the target');
+  const terms = spec.terms.map((t) => realColumn(table, t, 'term'));
   const { rows, dropped } = completeRows(
     [{ expression: spec.target, ...target }, ...terms.map((t, i) => ({ expression: spec.terms[i]!, ...t }))],
     table.nRows,

@@ -3,11 +3,7 @@
  * defined on. Rows with a missing cell or a non-finite value (NaN, ±∞, e.g. log of a negative
  * number or a division by zero) are dropped and counted per expression: never silently.
  */
-import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
-import { evaluateExpression } from '../table/expr/evaluate.ts';
-import { exprError } from '../table/expr/caret.ts';
-import { deriveColumn } from '../table/expr/derive.ts';
 import { parseExpression } from '../table/expr/parse.ts';
 import { expressionColumns } from '../table/expr/ast.ts';
 import { dropDuplicates, type KeyColumn } from '../table/dataset-rows.ts';
@@ -25,27 +21,6 @@ export interface DroppedRows {
   nonFinite: number;
   /** Per expression: rows where it was missing or not finite. */
   byExpression: Array<{ expression: string; missing: number; nonFinite: number }>;
-}
-
-/** A real-valued expression column; complex values are an error asking for re()/im()/abs(). */
-export function realExpression(table: Table, source: string, role: string): { values: Float64Array; missing: Uint8Array } {
-  const v = evaluateExpression(table, source);
-  if (v.im) {
-    for (let i = 0; i < v.im.length; i++) {
-      if (v.im[i] !== 0 && !Number.isNaN(v.im[i]!)) {
-        const line = table.lines ? `, line ${table.lines[i]}` : '';
-        throw exprError(
-          'relate.complexTerm',
-          `${role} '${source}' is complex-valued (first at data row ${i + 1}${line}: ${v.re[i]} ${v.im[i]! < 0 ? '-' : '+'} ${Math.abs(v.im[i]!)}i); ` +
-            `a least-squares term must be real: write re(${source}), im(${source}) or abs(${source})`,
-          source,
-          0,
-          source.length,
-        );
-      }
-    }
-  }
-  return { values: v.re, missing: v.missing };
 }
 
 /**
@@ -145,18 +120,6 @@ export function completeRows(
     rows,
     dropped: { total: nRows - count, duplicates, ...(duplicateRule ? { duplicateRule } : {}), missing, nonFinite, byExpression },
   };
-}
-
-/** A shallow copy of `table` with derived columns appended (each may use the ones before it). */
-export function withDerived(table: Table, derive: Array<{ name: string; expression: string }>): Table {
-  let t = table;
-  for (const d of derive) {
-    if (t.columns.some((c) => c.name === d.name)) {
-      throw new SurmiseError('relate.deriveExists', `--derive ${d.name}=...: the table already has a column '${d.name}'; choose another name`);
-    }
-    t = { ...t, columns: [...t.columns, deriveColumn(t, d.name, d.expression)] };
-  }
-  return t;
 }
 
 /** A human description of a row: 1-based data row, file line, and label columns' values. */

@@ -22,7 +22,8 @@ import { fitInnerConstants, residualVector } from './inner-constants.ts';
 import { detectLattice, exactFraction, type Lattice } from './lattice.ts';
 import { lstsq } from './lstsq.ts';
 import { simpleFraction, type Rational } from './rational.ts';
-import { completeRows, realExpression, withDerived, type DroppedRows } from './rows.ts';
+import { completeRows, type DroppedRows } from './rows.ts';
+import { realColumn, withDerived, type DeriveSpec } from '../table/expr/index.ts';
 import { countSubsets, subsetSearch } from './subsets.ts';
 import { complexity, constantsOf, evaluateTree, firstBase, type Tree } from './tree.ts';
 import { formulaText, treeText, type Coef } from './canonical.ts';
@@ -40,7 +41,8 @@ export interface SearchSpec {
   /** Number of candidates to report (default 10). */
   top?: number;
   seed?: number;
-  derive?: Array<{ name: string; expression: string }>;
+  /** Derived columns added before anything else is evaluated (the table is not changed). */
+  derive?: readonly DeriveSpec[];
   /** Largest complexity of one term (default 8). */
   maxComplexity?: number;
   /** Terms of each complexity level kept to build the next (beam width, default 120). */
@@ -164,7 +166,7 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   const timeLimit = spec.timeLimit ?? 60;
   const progress = spec.progress ?? (() => {});
   const table = withDerived(table0, spec.derive ?? []);
-  const target = realExpression(table, spec.target, 'the target');
+  const target = realColumn(table, spec.target, 'the target');
   const fromCols = spec.from.map((name) => {
     const c = getColumnOrThrow(table, name);
     if (c.kind === 'label') throw new SurmiseError('relate.labelColumn', `column '${name}' holds labels (text); terms need numeric columns`);

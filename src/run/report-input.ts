@@ -4,7 +4,7 @@
  */
 import { isAbsolute, relative } from 'node:path';
 import { VERSION } from '../version.ts';
-import { evaluateExpression, type Table } from '../table/index.ts';
+import { realColumn, type Table } from '../table/index.ts';
 import { formatColumnName } from '../table/expr/format.ts';
 import type { RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
@@ -21,13 +21,8 @@ import type { RunResults } from './run.ts';
  */
 const MAX_POINTS = 200_000;
 
-/** Values of an expression on the given rows, real part (NaN where missing). */
-function realValues(table: Table, source: string): Float64Array {
-  const v = evaluateExpression(table, source);
-  const out = new Float64Array(v.re.length);
-  for (let i = 0; i < out.length; i++) out[i] = v.missing[i] ? NaN : v.re[i]!;
-  return out;
-}
+/** Values of an expression (real, NaN where missing) for a plot. */
+const realValues = (table: Table, source: string): Float64Array => realColumn(table, source, 'plotted quantity').values;
 
 /** Expression for a ranked feature group: a complex column is plotted through its real part. */
 function featureExpression(table: Table, name: string): string | null {

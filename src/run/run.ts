@@ -6,7 +6,7 @@
 import { stringify } from 'yaml';
 import { SurmiseError } from '../errors.ts';
 import { VERSION } from '../version.ts';
-import { deriveColumn, readTable } from '../table/index.ts';
+import { readTable, withDerived } from '../table/index.ts';
 import { rankFeatures, type RankProgress, type RankResult } from '../attribute/rank.ts';
 import { residualRanking, type ResidualResult } from './residual.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
@@ -83,19 +83,14 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
 
   stage(`reading ${config.table}`);
   let t0 = performance.now();
-  const table = await readTable(config.table, {
+  let table = await readTable(config.table, {
     ...(config.format ? { format: config.format } : {}),
     kinds: config.kinds,
   });
   const { sha256, bytes } = await sha256File(config.table);
   const inputColumns = table.columns.map((c) => c.name);
   const at = (path: Array<string | number>) => loaded.locate?.(path) ?? loaded.path;
-  for (const [name, source] of Object.entries(config.derive)) {
-    if (table.columns.some((c) => c.name === name)) {
-      throw new SurmiseError('config.badValue', `${at(['derive', name])}: derive.${name}: the table already has a column '${name}'`);
-    }
-    table.columns.push(inConfig(['derive', name], at, () => deriveColumn(table, name, source)));
-  }
+  for (const [name, source] of Object.entries(config.derive)) table = inConfig(['derive', name], at, () => withDerived(table, [{ name, source }]));
   checkAgainstTable(config, table, at);
   timings.read = seconds(t0);
 

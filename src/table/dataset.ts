@@ -2,7 +2,7 @@ import { SurmiseError, didYouMean } from '../errors.ts';
 import type { Column, Table } from './types.ts';
 import type { Dataset, DatasetSpec, DropCount, DropReport, FeatureGroup } from './dataset-types.ts';
 import { type KeyColumn, type UsedColumn, dropDuplicates, validRows } from './dataset-rows.ts';
-import { deriveColumn, expressionColumns, parseExpression } from './expr/index.ts';
+import { deriveColumn, expressionColumns, parseExpression, withDerived } from './expr/index.ts';
 
 export type { Dataset, DatasetSpec, DropCount, DropReport, FeatureGroup } from './dataset-types.ts';
 
@@ -74,23 +74,11 @@ export function buildDataset(table: Table, spec: DatasetSpec): Dataset {
   }
 
   // ---- derived columns, in order; each may use the earlier ones
-  const columns: Column[] = [...table.columns];
+  const work: Table = withDerived(table, spec.derive ?? []);
+  const columns: Column[] = work.columns;
   const derivedInputs = new Map<string, string[]>();
-  for (const d of spec.derive ?? []) {
-    if (columns.some((c) => c.name === d.name)) {
-      throw new SurmiseError(
-        'dataset.deriveClash',
-        `derived column '${d.name}' would replace an existing column of the same name; choose another name`,
-        { column: d.name },
-      );
-    }
-    const work: Table = { ...table, columns };
-    const col = deriveColumn(work, d.name, d.source);
-    derivedInputs.set(d.name, expressionColumns(parseExpression(d.source)));
-    columns.push(col);
-  }
+  for (const d of spec.derive ?? []) derivedInputs.set(d.name, expressionColumns(parseExpression(d.source)));
   const names = columns.map((c) => c.name);
-  const work: Table = { ...table, columns };
   const n = table.nRows;
 
   // ---- target: a column, or else an expression

@@ -80,7 +80,7 @@ describe('findBound through the expression language', () => {
       complex('p', pRe, pIm),
       real('q', q),
     ]);
-    const viaDerive = findBound(t, { lhs: 'abs(2*k - r)', rhs: 'b', derive: ['r=re(q/p)'] }).results[0]!;
+    const viaDerive = findBound(t, { lhs: 'abs(2*k - r)', rhs: 'b', derive: [{ name: 'r', source: 're(q/p)' }] }).results[0]!;
     const inline = findBound(t, { lhs: 'abs(2*k - re(q/p))', rhs: 'b' }).results[0]!;
     // brute force over the planted errors
     const truth = Math.max(...e.map((x, i) => Math.abs(x) / b[i]!));
@@ -137,7 +137,7 @@ describe('rows that cannot be used', () => {
   it('refuses a complex lhs, an unknown --id column and bad options', () => {
     const c = table([complex('z', [1, 2], [0, 1]), real('r', [1, 1])]);
     const e = thrown(() => findBound(c, { lhs: 'z', rhs: 'r' }));
-    expect(e.code).toBe('bound.complexValue');
+    expect(e.code).toBe('expr.notReal');
     expect(e.message).toMatch(/row 2, line 3/);
     const u = thrown(() => findBound(t, { lhs: 'l', rhs: 'r', id: ['kk'], skipInvalid: true }));
     expect(u.message).toMatch(/no column 'kk'.*did you mean 'k'/);

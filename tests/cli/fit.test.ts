@@ -78,7 +78,7 @@ describe('surmise fit (CLI)', () => {
   it('a complex-valued term exits 2 asking for re()/im()/abs()', async () => {
     const io = memoryIO(dir);
     expect(await runCli(['fit', 'cx.csv', '--target', 'y', '--terms', 'w'], io)).toBe(2);
-    expect(io.err).toMatch(/complex-valued.*re\(w\), im\(w\) or abs\(w\).*\[relate\.complexTerm\]/s);
+    expect(io.err).toMatch(/complex-valued.*re\(w\), im\(w\) or abs\(w\).*\[expr\.notReal\]/s);
   });
   it('bad options exit 2 naming the option', async () => {
     const io = memoryIO(dir);

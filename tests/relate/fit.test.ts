@@ -75,8 +75,8 @@ describe('fitRelation row policy and options', () => {
     expect(fitRelation(c, { target: 'y', terms: ['z.re'] }).dropped.duplicates).toBe(1);
     expect(fitRelation(c, { target: 'y', terms: ['z.re', 'im(z)'] }).dropped.duplicates).toBe(0);
     // a derived column stands for its expression's values: d = x + w differs in rows 2 and 3
-    expect(fitRelation(v, { target: 'y', terms: ['d'], derive: [{ name: 'd', expression: 'x + w' }] }).dropped.duplicates).toBe(0);
-    expect(fitRelation(v, { target: 'y', terms: ['d'], derive: [{ name: 'd', expression: '2*x' }] }).dropped.duplicates).toBe(1);
+    expect(fitRelation(v, { target: 'y', terms: ['d'], derive: [{ name: 'd', source: 'x + w' }] }).dropped.duplicates).toBe(0);
+    expect(fitRelation(v, { target: 'y', terms: ['d'], derive: [{ name: 'd', source: '2*x' }] }).dropped.duplicates).toBe(1);
   });
   it('recovers the planted coefficients 1, 2, −1/2 as simplest rationals in the intervals (known answer by construction)', () => {
     const r = fitRelation(t, { target: 'y', terms: ['x', 'z'] });
@@ -91,7 +91,7 @@ describe('fitRelation row policy and options', () => {
     let err: unknown;
     try { fitRelation(c, { target: 'y', terms: ['w'] }); } catch (e) { err = e; }
     expect(err).toBeInstanceOf(SurmiseError);
-    expect((err as SurmiseError).code).toBe('relate.complexTerm');
+    expect((err as SurmiseError).code).toBe('expr.notReal');
     expect((err as SurmiseError).message).toMatch(/write re\(w\), im\(w\) or abs\(w\)/);
     // re() of it is fine
     expect(fitRelation(c, { target: 'y', terms: ['re(w)'] }).terms[1]!.coef).toBeCloseTo(1, 12);
@@ -106,7 +106,7 @@ describe('fitRelation row policy and options', () => {
     expect(r.heldOut!.rmse).toBeLessThan(0.13);
   });
   it('derived columns can be used as terms', () => {
-    const r = fitRelation(t, { target: 'y', terms: ['u'], derive: [{ name: 'u', expression: '2*x - z/2' }] });
+    const r = fitRelation(t, { target: 'y', terms: ['u'], derive: [{ name: 'u', source: '2*x - z/2' }] });
     expect(r.terms[1]!.rational!.text).toBe('1');
   });
   it('5-fold CV RMSE is close to the in-sample RMSE for a correct model (common practice) and depends on the seed only through the folds', () => {

@@ -80,6 +80,32 @@ export function deriveColumn(table: Table, name: string, source: string): Column
   return { name, kind: integral ? 'integer' : 'real', values: re, missing };
 }
 
+/** A derived column as every stage's options take it: its name and the expression computing it. */
+export interface DeriveSpec {
+  name: string;
+  source: string;
+}
+
+/**
+ * A shallow copy of `table` with the derived columns appended in order (each may use the ones
+ * before it); the table is unchanged. A name the table already has is refused (expr.deriveClash).
+ */
+export function withDerived(table: Table, derive: readonly DeriveSpec[] = []): Table {
+  if (derive.length === 0) return table;
+  const columns = [...table.columns];
+  for (const d of derive) {
+    if (columns.some((c) => c.name === d.name)) {
+      throw new SurmiseError(
+        'expr.deriveClash',
+        `${table.source}: derived column '${d.name}' would replace the table's column of the same name; choose another name`,
+        { column: d.name },
+      );
+    }
+    columns.push(deriveColumn({ ...table, columns: [...columns] }, d.name, d.source));
+  }
+  return { ...table, columns };
+}
+
 const PLAIN_NAME = /^[A-Za-z_][A-Za-z0-9_.]*$/;
 
 /**

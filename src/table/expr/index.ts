@@ -7,5 +7,6 @@ export { sameExpression, expressionColumns } from './ast.ts';
 export { parseExpression, expressionSource } from './parse.ts';
 export { formatExpression, formatColumnName } from './format.ts';
 export { evaluateExpression, compileExpression, type Evaluated, type CompiledExpression } from './evaluate.ts';
-export { deriveColumn, parseDerive, isIntegerByConstruction } from './derive.ts';
+export { deriveColumn, parseDerive, withDerived, isIntegerByConstruction, type DeriveSpec } from './derive.ts';
+export { realColumn, type RealValues } from './real.ts';
 export { FUNCTIONS, FUNCTION_NAMES, type FunctionInfo } from './functions.ts';
