@@ -6,6 +6,7 @@ import { tightestEnvelope } from './envelope.ts';
 import type { BoundStratum, BoundWitness, DropCounts } from './find.ts';
 import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
 import { idColumns, labelsOf, lineOf } from './inputs.ts';
+import { ROW_KEPT, ROW_MISSING, ROW_NON_FINITE, validRows } from '../table/dataset-rows.ts';
 import { snapRational, type SmallRational } from './snap.ts';
 import { stratify, type Stratification } from './strata.ts';
 import { estimateSupremum, SUPREMUM_METHOD } from './supremum.ts';
@@ -134,14 +135,11 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
   // rows: missing → non-finite → a quantity ≤ 0 → lhs ≤ 0
   const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };
   const bad: Array<{ i: number; why: string }> = [];
-  // first reason per row, one column at a time: 1 missing, 2 not finite, 3 + j quantity j ≤ 0, 9 lhs ≤ 0
-  const reason = new Uint8Array(n);
+  // first reason per row: the shared row policy (1 missing, 2 not finite), then 3 + j quantity j ≤ 0, 9 lhs ≤ 0
+  const reason = validRows(n, [lhs, ...xs].map((c, k) => ({ name: String(k), parts: [c.values], missing: c.missing }))).reason;
   const mark = (i: number, r: number) => {
-    if (reason[i] === 0 || r < reason[i]!) reason[i] = r;
+    if (reason[i] === ROW_KEPT || r < reason[i]!) reason[i] = r;
   };
-  const cols = [lhs, ...xs];
-  for (const c of cols) for (let i = 0; i < n; i++) if (c.missing[i]) mark(i, 1);
-  for (const c of cols) for (let i = 0; i < n; i++) if (!Number.isFinite(c.values[i]!)) mark(i, 2);
   xs.forEach((x, j) => {
     for (let i = 0; i < n; i++) if (!(x.values[i]! > 0)) mark(i, 3 + j);
   });
@@ -151,7 +149,7 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
   const keepAll = new Int32Array(n);
   for (let i = 0; i < n; i++) {
     const r = reason[i]!;
-    if (r === 0) {
+    if (r === ROW_KEPT) {
       keepAll[kept++] = i;
       continue;
     }
@@ -159,11 +157,11 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
       lhsNonPositive++; // holds for every c ≥ 0: kept out of the fit, counted in a note
       continue;
     }
-    if (r === 1) dropped.missing++;
-    else if (r === 2) dropped.nonFinite++;
+    if (r === ROW_MISSING) dropped.missing++;
+    else if (r === ROW_NON_FINITE) dropped.nonFinite++;
     else dropped.rhsNonPositive++;
     dropped.total++;
-    if (bad.length < 5) bad.push({ i, why: r === 1 ? 'a missing cell' : r === 2 ? 'a value that is not finite' : r === 9 ? 'lhs ≤ 0 (no positive lower bound)' : `${o.from[r - 3]} ≤ 0` });
+    if (bad.length < 5) bad.push({ i, why: r === ROW_MISSING ? 'a missing cell' : r === ROW_NON_FINITE ? 'a value that is not finite' : r === 9 ? 'lhs ≤ 0 (no positive lower bound)' : `${o.from[r - 3]} ≤ 0` });
   }
   if (dropped.total > 0 && !o.skipInvalid) {
     const first = bad.map((b) => `row ${b.i + 1}${lineOf(table, b.i)} (${b.why})`).join('; ');

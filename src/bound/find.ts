@@ -5,6 +5,8 @@ import { boundArrays, fmt, type Trend } from './core.ts';
 import { affineEnvelope } from './affine.ts';
 import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
 import { idColumns, labelsOf, lineOf } from './inputs.ts';
+import { ROW_KEPT, ROW_MISSING, ROW_NON_FINITE, validRows } from '../table/dataset-rows.ts';
+import type { RowDrops } from '../table/dataset-types.ts';
 
 /** What to bound: lhs ≤ c·rhs (or lhs ≥ c·rhs with `lower`), for each rhs candidate. */
 export interface BoundSpec {
@@ -45,13 +47,13 @@ export interface AffineBound {
   witnesses: BoundWitness[];
 }
 
-/** Rows not used, by first reason (missing cell, then non-finite value, then rhs ≤ 0). */
-export interface DropCounts {
-  missing: number;
-  nonFinite: number;
+/** Rows not used, by first reason: the row policy's (missing cell, then non-finite value), then rhs ≤ 0. */
+export interface DropCounts extends RowDrops {
   rhsNonPositive: number;
-  total: number;
 }
+
+/** The bound's own reason after the row policy's ROW_MISSING and ROW_NON_FINITE. */
+const RHS_NON_POSITIVE = 3;
 
 export interface BoundWitness {
   /** 1-based data row of the table (the header is not counted). */
@@ -126,7 +128,7 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
   const byVal = opts.by === null ? null : realColumn(table, opts.by, 'by');
   const idCols = idColumns(table, opts.id);
   const n = table.nRows;
-  const reasonOf = new Uint8Array(n); // 0 ok, 1 missing, 2 non-finite, 3 rhs ≤ 0 (first across candidates)
+  const reasonOf = new Uint8Array(n); // first reason across candidates: ROW_KEPT, ROW_MISSING, ROW_NON_FINITE, RHS_NON_POSITIVE
   const results: BoundCandidate[] = [];
   for (const rhsSrc of opts.rhs) {
     const rhs = realColumn(table, rhsSrc, 'rhs');
@@ -137,25 +139,24 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
     let m = 0;
     const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };
     const bad: number[] = [];
+    // the shared row policy (missing, then not finite), then the bound's own reason rhs ≤ 0
+    const policy = validRows(n, [lhs, rhs, by].map((v, k) => ({ name: String(k), parts: [v.values], missing: v.missing })));
     for (let i = 0; i < n; i++) {
       const l = lhs.values[i]!;
       const r = rhs.values[i]!;
-      const b = by.values[i]!;
-      let reason = 0;
-      if (lhs.missing[i] || rhs.missing[i] || by.missing[i]) reason = 1;
-      else if (!Number.isFinite(l) || !Number.isFinite(r) || !Number.isFinite(b)) reason = 2;
-      else if (!(r > 0)) reason = 3;
-      else if (!Number.isFinite(l / r)) reason = 2; // rhs so small that the ratio overflows
-      if (reason === 0) {
+      let reason: number = policy.reason[i]!;
+      if (reason === ROW_KEPT && !(r > 0)) reason = RHS_NON_POSITIVE;
+      else if (reason === ROW_KEPT && !Number.isFinite(l / r)) reason = ROW_NON_FINITE; // rhs so small that the ratio overflows
+      if (reason === ROW_KEPT) {
         ratio[i] = l / r;
         rows[m++] = i;
         continue;
       }
-      if (reason === 1) dropped.missing++;
-      else if (reason === 2) dropped.nonFinite++;
+      if (reason === ROW_MISSING) dropped.missing++;
+      else if (reason === ROW_NON_FINITE) dropped.nonFinite++;
       else dropped.rhsNonPositive++;
       dropped.total++;
-      if (reasonOf[i] === 0 || reason < reasonOf[i]!) reasonOf[i] = reason;
+      if (reasonOf[i] === ROW_KEPT || reason < reasonOf[i]!) reasonOf[i] = reason;
       if (bad.length < SHOW_FIRST) bad.push(i);
     }
     if (dropped.total > 0 && !opts.skipInvalid) refuse(table, opts.lhs, rhsSrc, opts.by, upper, dropped, bad, lhs, rhs, byVal);
@@ -199,10 +200,10 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
   const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };
   for (let i = 0; i < n; i++) {
     const r = reasonOf[i]!;
-    if (r === 0) continue;
+    if (r === ROW_KEPT) continue;
     dropped.total++;
-    if (r === 1) dropped.missing++;
-    else if (r === 2) dropped.nonFinite++;
+    if (r === ROW_MISSING) dropped.missing++;
+    else if (r === ROW_NON_FINITE) dropped.nonFinite++;
     else dropped.rhsNonPositive++;
   }
   return { source: table.source, lhs: opts.lhs, by: opts.by, form: upper ? 'upper' : 'lower', n, dropped, results };

@@ -6,19 +6,15 @@
 import type { Table } from '../table/types.ts';
 import { parseExpression } from '../table/expr/parse.ts';
 import { expressionColumns } from '../table/expr/ast.ts';
-import { dropDuplicates, type KeyColumn } from '../table/dataset-rows.ts';
+import { dropDuplicates, validRows, type KeyColumn } from '../table/dataset-rows.ts';
+import type { RowDrops } from '../table/dataset-types.ts';
 
-export interface DroppedRows {
-  /** Rows dropped in all. */
-  total: number;
+/** Rows dropped by the row policy (`RowDrops`: total, missing, nonFinite) and as repeats. */
+export interface DroppedRows extends RowDrops {
   /** Rows dropped as repeats of an earlier kept row in every used column (see `duplicateRule`); first kept. */
   duplicates: number;
   /** The duplicate rule in words, naming the columns compared (absent when duplicates are kept). */
   duplicateRule?: string;
-  /** Rows with a missing input cell in some expression. */
-  missing: number;
-  /** Rows whose value was not finite (though no cell was missing). */
-  nonFinite: number;
   /** Per expression: rows where it was missing or not finite. */
   byExpression: Array<{ expression: string; missing: number; nonFinite: number }>;
 }
@@ -81,30 +77,22 @@ export function completeRows(
   nRows: number,
   dedupeOn?: Table,
 ): { rows: Int32Array; dropped: DroppedRows } {
-  const keep = new Uint8Array(nRows).fill(1);
-  const anyMissing = new Uint8Array(nRows);
-  const byExpression = columns.map((c) => {
+  const policy = validRows(
+    nRows,
+    columns.map((c, k) => ({ name: String(k), parts: [c.values], missing: c.missing })), // by position: two columns may share a text
+  );
+  const keep = policy.keep;
+  const byExpression = columns.map((c, k) => {
     let missing = 0;
     let nonFinite = 0;
-    for (let i = 0; i < nRows; i++) {
-      if (c.missing[i]) {
-        missing++;
-        anyMissing[i] = 1;
-        keep[i] = 0;
-      } else if (!Number.isFinite(c.values[i]!)) {
-        nonFinite++;
-        keep[i] = 0;
-      }
+    for (const d of policy.dropped) {
+      if (d.column !== String(k)) continue;
+      if (d.reason === 'missing') missing += d.rows;
+      else nonFinite += d.rows;
     }
     return { expression: c.expression, missing, nonFinite };
   });
-  let missing = 0;
-  let nonFinite = 0;
-  for (let i = 0; i < nRows; i++) {
-    if (keep[i]) continue;
-    if (anyMissing[i]) missing++;
-    else nonFinite++;
-  }
+  const { missing, nonFinite } = policy.rows;
   let duplicates = 0;
   let duplicateRule: string | undefined;
   if (dedupeOn) {

@@ -1,4 +1,4 @@
-import type { DropCount } from './dataset-types.ts';
+import type { DropCount, RowDrops } from './dataset-types.ts';
 
 /** A numeric column as the row policy sees it: values plus the table's missing mask. */
 export interface UsedColumn {
@@ -8,11 +8,22 @@ export interface UsedColumn {
   missing: Uint8Array;
 }
 
+/** Why a row is left out, first reason first: 0 kept, 1 a missing cell, 2 a value that is not finite. */
+export const ROW_KEPT = 0;
+export const ROW_MISSING = 1;
+export const ROW_NON_FINITE = 2;
+
 /**
- * Rows whose every used cell is present and finite. Each offending cell is counted under its
- * column and reason: 'missing' (empty/NA in the file), 'nan', or 'infinite'.
+ * The row policy every stage applies: rows whose every used cell is present and finite. Each
+ * offending cell is counted under its column and reason ('missing': empty/NA in the file, 'nan',
+ * 'infinite'); each row once under its first reason in `reason` (ROW_MISSING before
+ * ROW_NON_FINITE) and in the totals `rows`. Stages add their own later reasons (rhs ≤ 0, …).
  */
-export function validRows(n: number, used: UsedColumn[]): { keep: Uint8Array; dropped: DropCount[]; invalidRows: number } {
+export function validRows(
+  n: number,
+  used: readonly UsedColumn[],
+): { keep: Uint8Array; dropped: DropCount[]; invalidRows: number; reason: Uint8Array; rows: RowDrops } {
+  const reason = new Uint8Array(n);
   const keep = new Uint8Array(n).fill(1);
   const dropped: DropCount[] = [];
   for (const col of used) {
@@ -23,6 +34,7 @@ export function validRows(n: number, used: UsedColumn[]): { keep: Uint8Array; dr
       if (col.missing[i]) {
         miss++;
         keep[i] = 0;
+        reason[i] = ROW_MISSING;
         continue;
       }
       let bad: 0 | 1 | 2 = 0;
@@ -39,15 +51,22 @@ export function validRows(n: number, used: UsedColumn[]): { keep: Uint8Array; dr
       }
       if (bad === 1) nan++;
       else if (bad === 2) inf++;
-      if (bad) keep[i] = 0;
+      if (bad) {
+        keep[i] = 0;
+        if (reason[i] === ROW_KEPT) reason[i] = ROW_NON_FINITE;
+      }
     }
     if (miss) dropped.push({ column: col.name, reason: 'missing', rows: miss });
     if (nan) dropped.push({ column: col.name, reason: 'nan', rows: nan });
     if (inf) dropped.push({ column: col.name, reason: 'infinite', rows: inf });
   }
-  let invalidRows = 0;
-  for (let i = 0; i < n; i++) if (!keep[i]) invalidRows++;
-  return { keep, dropped, invalidRows };
+  const rows: RowDrops = { total: 0, missing: 0, nonFinite: 0 };
+  for (let i = 0; i < n; i++) {
+    if (reason[i] === ROW_MISSING) rows.missing++;
+    else if (reason[i] === ROW_NON_FINITE) rows.nonFinite++;
+  }
+  rows.total = rows.missing + rows.nonFinite;
+  return { keep, dropped, invalidRows: rows.total, reason, rows };
 }
 
 /** Mix one 32-bit word into a running hash (the 32-bit finalizer steps of MurmurHash3, A. Appleby). */

@@ -30,6 +30,19 @@ export interface DropCount {
   rows: number;
 }
 
+/**
+ * Rows left out, each counted once under its first reason: a missing cell in some used column,
+ * else a value that is not finite. Stages with further reasons (e.g. a bound's rhs ≤ 0) extend it.
+ */
+export interface RowDrops {
+  /** Rows dropped in all. */
+  total: number;
+  /** Rows with a missing cell in some used column. */
+  missing: number;
+  /** Rows with no missing cell but some value NaN or ±∞. */
+  nonFinite: number;
+}
+
 export interface DropReport {
   inputRows: number;
   keptRows: number;

@@ -65,3 +65,34 @@ describe('validRows', () => {
     expect(r.invalidRows).toBe(4);
   });
 });
+
+describe('validRows: the one row policy (missing first, then not finite)', () => {
+  it('agrees with the evident per-row definition on random columns (property; common practice)', () => {
+    const cell = fc.constantFrom(1, -2.5, 0, NaN, Infinity, -Infinity, 'missing' as const);
+    fc.assert(
+      fc.property(fc.array(fc.array(cell, { minLength: 3, maxLength: 3 }), { minLength: 1, maxLength: 40 }), (rowsData) => {
+        const n = rowsData.length;
+        const used = [0, 1, 2].map((j) => ({
+          name: `c${j}`,
+          parts: [Float64Array.from(rowsData, (r) => (r[j] === 'missing' ? NaN : r[j]!))],
+          missing: Uint8Array.from(rowsData, (r) => (r[j] === 'missing' ? 1 : 0)),
+        }));
+        const got = validRows(n, used);
+        const expected = rowsData.map((r) => (r.some((v) => v === 'missing') ? 1 : r.some((v) => !Number.isFinite(v as number)) ? 2 : 0));
+        expect(Array.from(got.reason)).toEqual(expected);
+        expect(Array.from(got.keep)).toEqual(expected.map((e) => (e === 0 ? 1 : 0)));
+        const count = (k: number) => expected.filter((e) => e === k).length;
+        expect(got.rows).toEqual({ total: count(1) + count(2), missing: count(1), nonFinite: count(2) });
+        expect(got.invalidRows).toBe(got.rows.total);
+        // cells: each bad cell once under its column and reason
+        const cells = (j: number, pred: (v: number | 'missing') => boolean) => rowsData.filter((r) => pred(r[j]!)).length;
+        for (let j = 0; j < 3; j++) {
+          const find = (reason: string) => got.dropped.find((d) => d.column === `c${j}` && d.reason === reason)?.rows ?? 0;
+          expect(find('missing')).toBe(cells(j, (v) => v === 'missing'));
+          expect(find('nan')).toBe(cells(j, (v) => v !== 'missing' && Number.isNaN(v)));
+          expect(find('infinite')).toBe(cells(j, (v) => v === Infinity || v === -Infinity));
+        }
+      }),
+    );
+  });
+});
