@@ -104,7 +104,7 @@ export function renderFit(r: FitResult): string {
   if (r.warnings.length) {
     lines.push('');
     lines.push('warnings:');
-    for (const w of r.warnings) lines.push(`  - ${w}`);
+    for (const w of r.warnings) lines.push(`  - ${w.text}`);
   }
   lines.push('');
   lines.push('Intervals assume independent errors of constant variance; this is evidence on this table, not a proof.');

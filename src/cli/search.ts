@@ -98,7 +98,7 @@ export function renderSearch(r: SearchResult): string {
     if (r.skippedTerms.length > 12) out.push(`  … and ${r.skippedTerms.length - 12} more (see --json)`);
   }
   out.push('');
-  for (const n of r.notes) out.push(n);
+  for (const n of r.notes) out.push(n.text);
   out.push('Complexity: 1 per column, 2 per part of a complex column, 4 per part of a quotient; + |power| − 1, + 1 per root, + 1 per division, sum or difference, + 1 per function, + 1 per numeric constant; products and the intercept are free.');
   return out.join('\n') + '\n';
 }

@@ -10,6 +10,7 @@ import { orthogonalLine } from './orthogonal.ts';
 import { crossValidatedRmse, gather, predictRows, rmseOn } from './crossval.ts';
 import { completeRows, describeRow, type DroppedRows } from './rows.ts';
 import { realColumn, withDerived, type DeriveSpec } from '../table/expr/index.ts';
+import type { Note } from '../util/note.ts';
 
 export interface FitSpec {
   /** Expression for the target, e.g. `re(zb/za)`. */
@@ -55,6 +56,9 @@ export interface RowRef {
   labels: Record<string, string>;
 }
 
+/** A fit's note: rows dropped ('rows', information) or a warning about the fit ('warning'). */
+export type FitNote = Note<'rows' | 'warning'>;
+
 export interface FitResult {
   target: string;
   terms: FitTerm[];
@@ -83,7 +87,8 @@ export interface FitResult {
   /** How the rows were split, or null when every usable row was fitted. */
   split: string | null;
   seed: number;
-  warnings: string[];
+  /** Rows dropped (kind 'rows': information) and warnings about the fit (kind 'warning'). */
+  warnings: FitNote[];
   /** The fraction rule, in words. */
   fractionRule: string;
   /** One-term fits: the orthogonal (total least squares) line beside the ordinary one. */
@@ -129,11 +134,11 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
     table.nRows,
     spec.keepDuplicates ? undefined : table0,
   );
-  const warnings: string[] = [];
+  const warnings: FitNote[] = [];
   if (dropped.total > 0) {
     const parts = dropped.byExpression.filter((d) => d.missing + d.nonFinite > 0).map((d) => `'${d.expression}': ${d.missing} missing, ${d.nonFinite} not finite`);
     if (dropped.duplicates > 0) parts.push(`${dropped.duplicates} repeat${dropped.duplicates === 1 ? '' : 's'} of an earlier row in every column used`);
-    warnings.push(`${dropped.total} of ${table.nRows} rows dropped (${parts.join('; ')})`);
+    warnings.push({ kind: 'rows', text: `${dropped.total} of ${table.nRows} rows dropped (${parts.join('; ')})` });
   }
   let trainRows: Int32Array = rows;
   let testRows: Int32Array | null = null;
@@ -157,16 +162,16 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
   const cols = terms.map((t) => (all ? t.values : gather(t.values, trainRows)));
   const y = all ? target.values : gather(target.values, trainRows);
   const fit = lstsq(cols, y, { intercept, names: spec.terms, level });
-  warnings.push(...fit.warnings);
+  warnings.push(...fit.warnings.map((text): FitNote => ({ kind: 'warning', text })));
   const fitTerms: FitTerm[] = fit.names.map((term, j) => {
     const fraction = fit.aliased[j] ? simpleFraction(NaN, NaN) : simpleFraction(fit.low[j]!, fit.high[j]!);
     return { term, coef: fit.coef[j]!, se: fit.se[j]!, low: fit.low[j]!, high: fit.high[j]!, rational: fraction.rational, fraction, aliased: fit.aliased[j]! };
   });
   const cv = trainRows.length >= 2 * folds && fit.rank === p ? crossValidatedRmse(cols, y, { k: folds, seed, intercept }) : null;
-  if (!cv) warnings.push(`${folds}-fold cross-validation skipped (${fit.rank < p ? 'rank-deficient design' : 'too few rows'})`);
+  if (!cv) warnings.push({ kind: 'warning', text: `${folds}-fold cross-validation skipped (${fit.rank < p ? 'rank-deficient design' : 'too few rows'})` });
   let heldOut: FitResult['heldOut'] = null;
   if (testRows) {
-    if (testRows.length === 0) warnings.push('the held-out part of the split has no usable rows');
+    if (testRows.length === 0) warnings.push({ kind: 'warning', text: 'the held-out part of the split has no usable rows' });
     else {
       const pred = predictRows(terms.map((t) => t.values), fit.coef, intercept, testRows);
       let ae = 0;

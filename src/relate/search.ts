@@ -27,6 +27,7 @@ import { realColumn, withDerived, type DeriveSpec } from '../table/expr/index.ts
 import { countSubsets, subsetSearch } from './subsets.ts';
 import { complexity, constantsOf, evaluateTree, firstBase, type Tree } from './tree.ts';
 import { formulaText, treeText, type Coef } from './canonical.ts';
+import type { Note } from '../util/note.ts';
 
 export interface SearchSpec {
   target: string;
@@ -113,8 +114,11 @@ export interface SearchResult {
   /** What cut the search: the time budget, the beam (memory bound), the subset limit. */
   cuts: { time: boolean; beam: number[]; subsets: boolean };
   seed: number;
-  notes: string[];
+  notes: SearchNote[];
 }
+
+/** What a search note is about; the report chooses by kind and never reads the words. */
+export type SearchNote = Note<'screened' | 'multipleComparisons' | 'merged' | 'timeLimit' | 'beam' | 'subsetLimit' | 'collinear' | 'lattice'>;
 
 interface OptionRule { key: keyof SearchSpec; ok: (v: number) => boolean; expected: string; code: string }
 const OPTION_RULES: OptionRule[] = [
@@ -322,16 +326,16 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   let bestSoFar = Infinity;
   for (const c of byComplexity) if (c.heldOutRmse < bestSoFar) { front.push(c); bestSoFar = c.heldOutRmse; }
   progress(TOTAL, TOTAL);
-  const notes = [
-    `${sub.tried} subsets screened (exhaustive over ${u} screened terms of ${grown.nDistinct} distinct terms built, complexity ≤ ${maxComplexity} per term) on ${nScreen} of the ${sel.length} selection rows; the ${survivors.length} survivors were refitted on all selection rows and measured on ${held.length} held-out rows that took no part in the choice.`,
-    'With many candidates some fit well by luck (multiple comparisons): trust a formula only when its held-out error matches its selection error and it survives on new data.',
+  const notes: SearchNote[] = [
+    { kind: 'screened', text: `${sub.tried} subsets screened (exhaustive over ${u} screened terms of ${grown.nDistinct} distinct terms built, complexity ≤ ${maxComplexity} per term) on ${nScreen} of the ${sel.length} selection rows; the ${survivors.length} survivors were refitted on all selection rows and measured on ${held.length} held-out rows that took no part in the choice.` },
+    { kind: 'multipleComparisons', text: 'With many candidates some fit well by luck (multiple comparisons): trust a formula only when its held-out error matches its selection error and it survives on new data.' },
   ];
-  if (merged > 0) notes.push(`${merged} candidates that compute the same function as a simpler one (equal predictions of the formula with fractions on ${probe.length} held-out rows) were merged into it.`);
-  if (timeCut) notes.push(`the time budget of ${timeLimit} s stopped growing terms in complexity level ${grown.stoppedInLevel ?? '?'} (levels up to ${grown.levelsDone} are complete); a faster machine may find more, so this result depends on the machine's speed.`);
-  if (grown.beamLevels.length > 0) notes.push(`memory bound: at complexity ${grown.beamLevels.join(', ')} only the ${beam} best-screened terms of the level were used to build larger ones (a beam); larger terms built from the others were not tried.`);
-  if (subsetCut) notes.push(`the subset search was limited to the ${u} best-screened of ${order.length} screened terms (${maxExhaustive} subsets at most).`);
-  if (sub.collinear > 0) notes.push(`${sub.collinear} subsets were passed over as numerically collinear.`);
-  if (lattice) notes.push(`the target lies on the lattice ${lattice.offset === 0 ? '' : `${lattice.offset} + `}${lattice.step}ℤ: each formula's held-out fraction of rows where rounding it to that lattice gives the target exactly is reported beside its RMSE.`);
+  if (merged > 0) notes.push({ kind: 'merged', text: `${merged} candidates that compute the same function as a simpler one (equal predictions of the formula with fractions on ${probe.length} held-out rows) were merged into it.` });
+  if (timeCut) notes.push({ kind: 'timeLimit', text: `the time budget of ${timeLimit} s stopped growing terms in complexity level ${grown.stoppedInLevel ?? '?'} (levels up to ${grown.levelsDone} are complete); a faster machine may find more, so this result depends on the machine's speed.` });
+  if (grown.beamLevels.length > 0) notes.push({ kind: 'beam', text: `memory bound: at complexity ${grown.beamLevels.join(', ')} only the ${beam} best-screened terms of the level were used to build larger ones (a beam); larger terms built from the others were not tried.` });
+  if (subsetCut) notes.push({ kind: 'subsetLimit', text: `the subset search was limited to the ${u} best-screened of ${order.length} screened terms (${maxExhaustive} subsets at most).` });
+  if (sub.collinear > 0) notes.push({ kind: 'collinear', text: `${sub.collinear} subsets were passed over as numerically collinear.` });
+  if (lattice) notes.push({ kind: 'lattice', text: `the target lies on the lattice ${lattice.offset === 0 ? '' : `${lattice.offset} + `}${lattice.step}ℤ: each formula's held-out fraction of rows where rounding it to that lattice gives the target exactly is reported beside its RMSE.` });
   return {
     target: spec.target, mode: subsetCut ? 'screened' : 'exhaustive',
     method: 'terms grown by complexity with sure independence screening, exhaustive subset search (SISSO, Ouyang et al. 2018), inner constants by Levenberg–Marquardt',

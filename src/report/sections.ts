@@ -2,7 +2,7 @@ import type { Block, Inline } from './doc.ts';
 import type { ReportInput, Interval } from './types.ts';
 import type { PlotPlan } from './plan.ts';
 import { formatCount, formatInterval, formatMaybe, formatNumber } from './format.ts';
-import { completenessTroubled, equation, isRowDropNote, metricDirection, metricLabel, searchFormula, secondaryLabel, trendGrows } from './words.ts';
+import { completenessTroubled, equation, metricDirection, metricLabel, searchFormula, secondaryLabel, trendGrows } from './words.ts';
 import { attributionSpec } from './plots/attribution.ts';
 import { scatterSpec } from './plots/scatter.ts';
 import { predictionSpec } from './plots/predictions.ts';
@@ -273,6 +273,9 @@ export function residualSection(input: ReportInput): Block[] {
   return out;
 }
 
+/** Search notes whose content the report states in its own words (the counts line and the multiple-comparisons caution). */
+const SAID_BY_REPORT = new Set(['screened', 'multipleComparisons']);
+
 /** Fitted relations (coefficients, standard errors, intervals, fractions, warnings, residual plots) and the search front. */
 export function relationsSection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
   const fits = input.fits ?? [];
@@ -301,7 +304,7 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
       numeric: [false, true, true, false, false],
     });
     if (f.warnings.length > 0) {
-      out.push({ kind: 'list', items: f.warnings.map((w) => (isRowDropNote(w) ? ['Rows: ', w] : [{ text: 'Warning:', strong: true }, ' ', w])) });
+      out.push({ kind: 'list', items: f.warnings.map((w) => (w.kind === 'rows' ? ['Rows: ', w.text] : [{ text: 'Warning:', strong: true }, ' ', w.text])) });
     }
     const res = f.residuals;
     if (res) {
@@ -369,8 +372,8 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
         'Many candidates were tried, and with many candidates some overfit by luck (multiple comparisons): trust a formula only when its held-out error is close to its selection error, and check it on new data.',
       ],
     });
-    const extra = (search.notes ?? []).filter((n) => !/^\d+ subsets screened/.test(n) && !/multiple comparisons/.test(n));
-    if (extra.length > 0) out.push({ kind: 'list', items: extra.map((n) => [n]) });
+    const extra = (search.notes ?? []).filter((n) => !SAID_BY_REPORT.has(n.kind));
+    if (extra.length > 0) out.push({ kind: 'list', items: extra.map((n) => [n.text]) });
   }
   return out;
 }

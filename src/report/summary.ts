@@ -1,7 +1,7 @@
 import type { Block, Inline } from './doc.ts';
 import type { ReportInput } from './types.ts';
 import { formatCount, formatInterval, formatMaybe, formatNumber } from './format.ts';
-import { compareScore, completenessTroubled, equation, isRowDropNote, metricDirection, metricLabel, searchFormula, secondaryLabel, trendGrows, witnessLabels } from './words.ts';
+import { compareScore, completenessTroubled, equation, metricDirection, metricLabel, searchFormula, secondaryLabel, trendGrows, witnessLabels } from './words.ts';
 
 /** The sentence every report carries after its summary. */
 export const EVIDENCE_SENTENCE = 'These findings are statistical evidence on this table, not a proof.';
@@ -61,7 +61,7 @@ export function summaryBlocks(input: ReportInput): Block[] {
     if (frac !== null) parts.push('; with its coefficients as fractions: ', { text: frac, code: true });
     parts.push('.');
     items.push(parts);
-    const real = f.warnings.filter((w) => !isRowDropNote(w));
+    const real = f.warnings.filter((w) => w.kind !== 'rows').map((w) => w.text);
     if (real.length > 0) {
       flags.push([`The fit of `, { text: f.target, code: true }, ` carries warnings: ${real.join('; ')}.`]);
     }

@@ -68,6 +68,12 @@ export interface ReportFitTerm {
   rational: { text: string } | null;
 }
 
+/** A stage's note: `kind` to choose on (the report never reads the words), `text` to show. */
+export interface ReportNote {
+  kind: string;
+  text: string;
+}
+
 export interface ReportFit {
   target: string;
   n: number;
@@ -75,7 +81,8 @@ export interface ReportFit {
   rmse: number;
   cvRmse: number;
   terms: ReportFitTerm[];
-  warnings: string[];
+  /** Kind 'rows': rows dropped (shown, not flagged); any other kind is a warning (flagged). */
+  warnings: ReportNote[];
   residuals?: { byTerm: Array<{ term: string; x: number[] }>; residual: number[] };
 }
 
@@ -104,7 +111,8 @@ export interface ReportSearch {
   nCandidatesTried?: number;
   selectionRows?: number;
   heldOutRows?: number;
-  notes?: string[];
+  /** Kinds 'screened' and 'multipleComparisons' are said by the report in its own words; the others are listed. */
+  notes?: ReportNote[];
 }
 
 /** What a first fit leaves over, ranked (the run's `residual` key). */

@@ -115,14 +115,6 @@ export function trendGrows(t: { slope: number | null; low: number | null; high: 
   return excludesZero || /\b(grow|grows|growing|increas\w*|unbounded|diverg\w*)\b/i.test(t.verdict);
 }
 
-/**
- * True for a fit's note that rows were dropped (missing, non-finite or exact repeats), e.g.
- * "10 of 20000 rows dropped (10 exact repeats of an earlier row)": information, not a warning.
- */
-export function isRowDropNote(w: string): boolean {
-  return /^\d+ of \d+ rows dropped( \(|$)/.test(w);
-}
-
 /** Integrated gradients: true when on some repeat the largest row gap exceeds 10% of mean |f(x) − f(baseline)| (our threshold). */
 export function completenessTroubled(c: ReadonlyArray<{ maxAbsGap: number; meanAbsDelta: number }> | undefined): boolean {
   return (c ?? []).some((x) => x.meanAbsDelta > 0 && x.maxAbsGap > 0.1 * x.meanAbsDelta);

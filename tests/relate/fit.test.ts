@@ -40,7 +40,8 @@ describe('fitRelation row policy and options', () => {
     expect(r.n).toBe(n - 2);
     expect(r.dropped).toMatchObject({ total: 2, missing: 1, nonFinite: 1, duplicates: 0 });
     expect(r.dropped.byExpression.find((d) => d.expression === 'log(z)')!.nonFinite).toBe(1);
-    expect(r.warnings[0]).toMatch(/2 of 400 rows dropped/);
+    expect(r.warnings[0]!.kind).toBe('rows');
+    expect(r.warnings[0]!.text).toMatch(/2 of 400 rows dropped/);
   });
   it('drops and counts repeats of an earlier row in every USED column (labels and unused columns not compared), unless asked to keep them', () => {
     // rule from the project issue: a duplicate is a row whose used columns all equal an earlier row's
@@ -53,7 +54,8 @@ describe('fitRelation row policy and options', () => {
     expect(r.n).toBe(5);
     expect(r.dropped.duplicates).toBe(1);
     expect(r.dropped.duplicateRule).toMatch(/every used column \(y, x\)/);
-    expect(r.warnings[0]).toMatch(/1 repeat of an earlier row in every column used/);
+    expect(r.warnings[0]!.kind).toBe('rows');
+    expect(r.warnings[0]!.text).toMatch(/1 repeat of an earlier row in every column used/);
     const k = fitRelation(u, { target: 'y', terms: ['x'], keepDuplicates: true });
     expect(k.n).toBe(6);
     expect(k.dropped.duplicateRule).toBeUndefined();

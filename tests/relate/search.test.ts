@@ -34,7 +34,7 @@ describe('searchRelations', () => {
     const onFront = r.front.find((c) => new Set(c.terms).size === 2 && c.terms.includes('x^2') && c.terms.includes('p*q'));
     expect(onFront).toBeDefined();
     expect(r.selectionRows + r.heldOutRows).toBe(3000);
-    expect(r.notes.join(' ')).toMatch(/multiple comparisons/);
+    expect(r.notes.map((n) => n.text).join(' ')).toMatch(/multiple comparisons/);
   });
   it('95% intervals cover the planted 3 and −2 about 90% of the time: the rationals are exactly 3 and −2 in ≥ 7 of 10 seeds (coverage of a 95% interval, common practice)', () => {
     let exact = 0;
@@ -50,7 +50,7 @@ describe('searchRelations', () => {
   it('says when the memory bound cuts the beam and when the subset limit cuts the screened terms (counts, not clocks)', () => {
     const r = searchRelations(planted(1500, 4), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, powers: [-1, 2], seed: 3, maxComplexity: 5, beam: 20, maxExhaustive: 500 });
     expect(r.cuts.beam.length).toBeGreaterThan(0);
-    expect(r.notes.join(' ')).toMatch(/only the 20 best-screened terms of the level/);
+    expect(r.notes.map((n) => n.text).join(' ')).toMatch(/only the 20 best-screened terms of the level/);
     expect(r.mode).toBe('screened');
     expect(r.cuts.subsets).toBe(true);
     expect(r.nCandidatesTried).toBeLessThanOrEqual(500);
@@ -60,7 +60,7 @@ describe('searchRelations', () => {
     let t = 0;
     const r = searchRelations(planted(800, 4), { target: 'y', from: ['x', 'p', 'q'], maxTerms: 2, seed: 3, timeLimit: 5, now: () => (t += 1000) });
     expect(r.cuts.time).toBe(true);
-    expect(r.notes.join(' ')).toMatch(/time budget of 5 s stopped growing terms in complexity level \d/);
+    expect(r.notes.map((n) => n.text).join(' ')).toMatch(/time budget of 5 s stopped growing terms in complexity level \d/);
     expect(r.candidates.length).toBeGreaterThan(0);
   });
   it('is deterministic for a given seed (same candidates, same front)', () => {

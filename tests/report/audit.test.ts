@@ -93,18 +93,18 @@ describe('second figure, integrated-gradients gaps and classification prediction
 
 describe('fit notes and the formula search', () => {
   it('shows dropped duplicate rows in the fit but raises no flag for them; real warnings still flag', async () => {
-    const fit = (warnings: string[]) => ({
+    const fit = (warnings: Array<{ kind: string; text: string }>) => ({
       target: 'z', n: 19990, r2: 0.99, rmse: 0.5, cvRmse: 0.5,
       terms: [{ term: 'k', coef: 2, se: 0.001, low: 1.99, high: 2.01, rational: { text: '2' } }],
       warnings,
     });
     const drop = '10 of 20000 rows dropped (10 repeats of an earlier row in every column used)';
-    const md = (await renderReport({ ...header(), fits: [fit([drop])] }, { png: false })).markdown;
+    const md = (await renderReport({ ...header(), fits: [fit([{ kind: 'rows', text: drop }])] }, { png: false })).markdown;
     expect(md).toContain(drop);
     expect(md).not.toContain('**Flag:**');
     expect(md).not.toContain('**Warning:**');
     const ill = 'the design is ill-conditioned (condition number 3.1e+09)';
-    const md2 = (await renderReport({ ...header(), fits: [fit([drop, ill])] }, { png: false })).markdown;
+    const md2 = (await renderReport({ ...header(), fits: [fit([{ kind: 'rows', text: drop }, { kind: 'warning', text: ill }])] }, { png: false })).markdown;
     const flag = md2.split('\n').find((l) => l.includes('**Flag:**'))!;
     expect(flag).toContain(ill);
     expect(flag).not.toContain('rows dropped');
@@ -114,7 +114,7 @@ describe('fit notes and the formula search', () => {
     const c = { terms: ['z'], coefs: [0.491], intercept: 0.12, heldOutRmse: 0.31, selectionRmse: 0.3, complexity: 1, rationalFormula: '1/8 + 1/2*z', rationalHeldOutRmse: 0.33 };
     const md = (await renderReport({
       ...header(),
-      search: { mode: 'exhaustive', target: 'k', candidates: [c], front: [c], nCandidateTerms: 65, nCandidatesTried: 2145, selectionRows: 600, heldOutRows: 400, notes: ['2145 subsets screened (exhaustive) …', 'greedy: none'] },
+      search: { mode: 'exhaustive', target: 'k', candidates: [c], front: [c], nCandidateTerms: 65, nCandidatesTried: 2145, selectionRows: 600, heldOutRows: 400, notes: [{ kind: 'screened', text: '2145 subsets screened (exhaustive) …' }, { kind: 'collinear', text: 'greedy: none' }] },
     }, { png: false })).markdown;
     expect(md).toContain('`k ≈ 0.12 + 0.491*z`');
     expect(md).toContain('`k ≈ 1/8 + 1/2*z`');

@@ -134,7 +134,7 @@ export function makeInput(n: number, seed = 7, evil = true): ReportInput {
           { term: 'k', coef: 2.0003, se: 0.0011, low: 1.9981, high: 2.0025, rational: { text: '2' } },
           { term: '1', coef: -0.0012, se: 0.0041, low: -0.0092, high: 0.0068, rational: { text: '0' } },
         ],
-        warnings: evil ? [`column ${EVIL} is nearly constant`] : [],
+        warnings: evil ? [{ kind: 'warning', text: `column ${EVIL} is nearly constant` }] : [],
         residuals: { byTerm: [{ term: 'k', x: rows.sig.slice() }], residual },
       },
     ],
