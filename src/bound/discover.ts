@@ -6,6 +6,7 @@ import { tightestEnvelope } from './envelope.ts';
 import type { BoundStratum, BoundWitness, DropCounts } from './find.ts';
 import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
 import { idColumns, labelsOf, lineOf } from './inputs.ts';
+import { ratioPoints, type RatioPoints } from './points.ts';
 import { ROW_KEPT, ROW_MISSING, ROW_NON_FINITE, validRows } from '../table/dataset-rows.ts';
 import { snapRational, type SmallRational } from './snap.ts';
 import { stratify, type Stratification } from './strata.ts';
@@ -89,6 +90,8 @@ export interface BoundProposal {
   trend: { kind: 'none' | 'up' | 'down'; verdict: string; along: Record<string, Trend & { strata: BoundStratum[] }> };
   /** Nonzero exponents plus the sum of their denominators (smaller is simpler). */
   complexity: number;
+  /** The ratio against the first `from` quantity on the rows used, for plotting (at most PLOT_POINTS, seeded). */
+  points: RatioPoints;
 }
 
 export interface DiscoverResult {
@@ -285,6 +288,7 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
       witnesses: Array.from(w, (i) => witness(table, idCols, i, lhs, ratio[i]!)),
       trend: { kind: trendedNames.length ? along[trendedNames[0]!]!.kind : 'none', verdict: verdictParts.join('; '), along },
       complexity: e.complexity,
+      points: ratioPoints(ratio, xs[0]!.values, rows, upper, deriveSeed(o.seed, 'bound', 'plot')),
     });
   }
   return {

@@ -5,6 +5,8 @@ import { boundArrays, fmt, type Trend } from './core.ts';
 import { affineEnvelope } from './affine.ts';
 import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
 import { idColumns, labelsOf, lineOf } from './inputs.ts';
+import { ratioPoints, type RatioPoints } from './points.ts';
+import { deriveSeed } from '../util/rng.ts';
 import { ROW_KEPT, ROW_MISSING, ROW_NON_FINITE, validRows } from '../table/dataset-rows.ts';
 import type { RowDrops } from '../table/dataset-types.ts';
 
@@ -98,6 +100,8 @@ export interface BoundCandidate {
   /** With form 'affine' (one side, by --lower) or 'two-sided' (both sides). */
   affine?: AffineBound[];
   notes: string[];
+  /** The ratio against `by` on the rows used, for plotting (at most PLOT_POINTS, sampled with a fixed seed). */
+  points: RatioPoints;
 }
 
 export interface BoundResult {
@@ -195,6 +199,7 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
       extremeStratum: core.extremeStratum,
       ...(affine.length ? { affine } : {}),
       notes: core.notes,
+      points: ratioPoints(ratio, by.values, used, upper, deriveSeed(0, 'bound', 'plot')),
     });
   }
   const dropped: DropCounts = { missing: 0, nonFinite: 0, rhsNonPositive: 0, total: 0 };

@@ -11,6 +11,8 @@ import { crossValidatedRmse, gather, predictRows, rmseOn } from './crossval.ts';
 import { completeRows, describeRow, type DroppedRows } from './rows.ts';
 import { realColumn, withDerived, type DeriveSpec } from '../table/expr/index.ts';
 import type { Note } from '../util/note.ts';
+import { PLOT_POINTS, sampleIndices } from '../util/sample.ts';
+import { deriveSeed } from '../util/rng.ts';
 
 export interface FitSpec {
   /** Expression for the target, e.g. `re(zb/za)`. */
@@ -56,6 +58,16 @@ export interface RowRef {
   labels: Record<string, string>;
 }
 
+/** A fit's residuals on (a seeded sample of) the fitted rows, with each term's value there. */
+export interface ResidualPoints {
+  /** 1-based data rows of the points. */
+  rows: number[];
+  residual: number[];
+  byTerm: Array<{ term: string; x: number[] }>;
+  /** Rows fitted in all (the sample was drawn from these). */
+  sampledFrom: number;
+}
+
 /** A fit's note: rows dropped ('rows', information) or a warning about the fit ('warning'). */
 export type FitNote = Note<'rows' | 'warning'>;
 
@@ -87,6 +99,8 @@ export interface FitResult {
   /** How the rows were split, or null when every usable row was fitted. */
   split: string | null;
   seed: number;
+  /** Residuals against each term on the fitted rows, for plotting (at most PLOT_POINTS rows, seeded sample). */
+  residualPoints: ResidualPoints;
   /** Rows dropped (kind 'rows': information) and warnings about the fit (kind 'warning'). */
   warnings: FitNote[];
   /** The fraction rule, in words. */
@@ -215,6 +229,14 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
     extra.roundedExact = { fitted: hitRate(fitted, y), heldOut: heldOutRate };
   }
   if (spec.keepResiduals) extra.residuals = { rows: Int32Array.from(trainRows), values: Float64Array.from(fit.residuals) };
+  // residuals against each term on the fitted rows, for plotting: all of them, or a seeded sample
+  const shown = sampleIndices(trainRows.length, PLOT_POINTS, deriveSeed(seed, 'fit', 'plot'));
+  const residualPoints: ResidualPoints = {
+    rows: Array.from(shown, (k) => trainRows[k]! + 1),
+    residual: Array.from(shown, (k) => fit.residuals[k]!),
+    byTerm: spec.terms.map((term, j) => ({ term, x: Array.from(shown, (k) => terms[j]!.values[trainRows[k]!]!) })),
+    sampledFrom: trainRows.length,
+  };
   return {
     ...extra,
     fractionRule: FRACTION_RULE,
@@ -243,5 +265,6 @@ export function fitRelation(table0: Table, spec: FitSpec): FitResult {
     split: spec.split ? spec.split.description ?? `${trainRows.length} rows fitted, ${testRows?.length ?? 0} held out` : null,
     seed,
     warnings,
+    residualPoints,
   };
 }

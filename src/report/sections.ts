@@ -313,7 +313,7 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
         const name = plan.add(
           `residuals-${i + 1}-${bt.term}`,
           title,
-          residualSpec(f.target, bt.term, bt.x, res.residual, set.maxPoints, deriveSeed(set.seed, 'report', 'residuals', i, k)),
+          residualSpec(f.target, bt.term, bt.x, res.residual, set.maxPoints, deriveSeed(set.seed, 'report', 'residuals', i, k), res.sampledFrom),
         );
         out.push({ kind: 'plot', name, title });
       });

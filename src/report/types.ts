@@ -83,7 +83,8 @@ export interface ReportFit {
   terms: ReportFitTerm[];
   /** Kind 'rows': rows dropped (shown, not flagged); any other kind is a warning (flagged). */
   warnings: ReportNote[];
-  residuals?: { byTerm: Array<{ term: string; x: number[] }>; residual: number[] };
+  /** Residuals against each term; `sampledFrom`: the rows fitted, when the points are a sample of them. */
+  residuals?: { byTerm: Array<{ term: string; x: number[] }>; residual: number[]; sampledFrom?: number };
 }
 
 export interface ReportCandidate {
@@ -150,7 +151,8 @@ export interface ReportBoundResult {
   strata: Array<{ low: number; high: number; n: number; constant: number }>;
   /** Trend of the per-stratum constant along `by`; slope and interval may be null when undetermined. */
   trend: { slope: number | null; low: number | null; high: number | null; kind?: 'none' | 'up' | 'down'; verdict: string } | null;
-  points?: { by: number[]; ratio: number[]; labels?: { name: string; values: string[] } };
+  /** `sampledFrom`: the rows used, when the points are a sample of them. */
+  points?: { by: number[]; ratio: number[]; labels?: { name: string; values: string[] }; sampledFrom?: number };
 }
 
 export interface ReportBound {

@@ -81,6 +81,7 @@ export function buildReportInput(
   const bounds = [...results.bounds, ...results.discoveries.map(discoveryAsBounds)];
   const group = groupingLabel(table);
   const pickLabels = (idx: Int32Array) => (group ? { labels: { name: group.name, values: Array.from(idx, (i) => group.values[i]!) } } : {});
+  const labelsOfRows = (rows: number[]) => (group ? { labels: { name: group.name, values: rows.map((r) => group.values[r - 1]!) } } : {});
   const input: ReportInput = {
     title: `surmise: what predicts ${config.target}`,
     createdAt: results.createdAt,
@@ -140,16 +141,7 @@ export function buildReportInput(
   }
   if (fits.length) {
     input.fits = fits.map((f) => {
-      const termCols = f.terms.filter((t) => t.term !== '1').map((t) => ({ term: t.term, v: realValues(table, t.term) }));
-      const y = realValues(table, f.target);
-      const resid = new Float64Array(y.length);
-      const icpt = f.terms.find((t) => t.term === '1')?.coef ?? 0;
-      for (let i = 0; i < y.length; i++) {
-        let s = icpt;
-        for (const tc of termCols) s += f.terms.find((t) => t.term === tc.term)!.coef * tc.v[i]!;
-        resid[i] = y[i]! - s;
-      }
-      const { idx } = finiteSample([resid, ...termCols.map((t) => t.v)], config.seed);
+      const p = f.residualPoints;
       return {
         target: f.target,
         n: f.n,
@@ -158,7 +150,7 @@ export function buildReportInput(
         cvRmse: f.cvRmse,
         terms: f.terms.map((t) => ({ term: t.term, coef: t.coef, se: t.se, low: t.low, high: t.high, rational: t.rational ? { text: t.rational.text } : null })),
         warnings: f.warnings,
-        residuals: { byTerm: termCols.map((t) => ({ term: t.term, x: pick(t.v, idx) })), residual: pick(resid, idx) },
+        residuals: { byTerm: p.byTerm, residual: p.residual, sampledFrom: p.sampledFrom },
       };
     });
   }
@@ -204,16 +196,10 @@ export function buildReportInput(
   }
   if (bounds.length) {
     input.bounds = bounds.map((b) => {
-      const lhs = realValues(table, b.lhs);
       return {
         lhs: b.lhs,
         ...(b.by ? { by: b.by } : {}),
         results: b.results.map((r) => {
-          const rhs = realValues(table, r.rhs);
-          const by = realValues(table, r.by);
-          const ratio = new Float64Array(lhs.length);
-          for (let i = 0; i < ratio.length; i++) ratio[i] = rhs[i]! > 0 ? lhs[i]! / rhs[i]! : NaN;
-          const { idx } = finiteSample([ratio, by], config.seed, ratio);
           const quantiles: Record<string, number> = {};
           for (const q of r.quantiles) quantiles[`${Number((q.p * 100).toPrecision(4))}%`] = q.value;
           return {
@@ -232,7 +218,7 @@ export function buildReportInput(
             trend: r.trend && r.trend.slope !== null && r.trend.low !== null && r.trend.high !== null
               ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, kind: r.trend.kind, verdict: r.trend.verdict }
               : null,
-            points: { by: pick(by, idx), ratio: pick(ratio, idx), ...pickLabels(idx) },
+            points: { by: r.points.by, ratio: r.points.ratio, sampledFrom: r.points.sampledFrom, ...labelsOfRows(r.points.rows) },
           };
         }),
       };
@@ -267,6 +253,7 @@ function discoveryAsBounds(d: DiscoverResult): BoundResult {
         trend,
         extremeStratum: null,
         notes: [],
+        points: p.points,
       };
     }),
   };

@@ -36,7 +36,8 @@ export function boundSpec(
     const keep = largestIndices(pts.ratio.slice(0, n), keepLargest);
     const idx = sampleIndices(n, maxPoints, seed, keep);
     const { rows, nonFinite } = finitePairs(pts.by, pts.ratio, idx);
-    subtitle = sampleNote(idx.length, n, idx.length < n ? `, keeping the ${keep.length} largest ratios` : '') + nonFiniteNote(nonFinite);
+    const total = Math.max(n, pts.sampledFrom ?? n);
+    subtitle = sampleNote(idx.length, total, idx.length < total ? `, keeping the ${keep.length} largest ratios` : '') + nonFiniteNote(nonFinite);
     const lab = pts.labels;
     layers.push({
       name: 'points',

@@ -4,7 +4,8 @@ import { sampleIndices } from '../sample.ts';
 
 /**
  * Residuals of a fitted relation against one of its terms (layer `points`) with the zero line
- * (layer `zero`). Above `maxPoints` rows a seeded sample.
+ * (layer `zero`). Above `maxPoints` rows a seeded sample; `sampledFrom`: the rows the points
+ * handed in were already sampled from (the note counts those).
  */
 export function residualSpec(
   target: string,
@@ -13,12 +14,13 @@ export function residualSpec(
   residual: number[],
   maxPoints: number,
   seed: number,
+  sampledFrom?: number,
 ): PlotSpec {
   const n = Math.min(x.length, residual.length);
   const idx = sampleIndices(n, maxPoints, seed);
   const { rows, nonFinite } = finitePairs(x, residual, idx);
   return {
-    ...baseSpec(`Residuals of ${target} against ${term}`, `${sampleNote(idx.length, n)}${nonFiniteNote(nonFinite)}`, 520, 300),
+    ...baseSpec(`Residuals of ${target} against ${term}`, `${sampleNote(idx.length, Math.max(n, sampledFrom ?? n))}${nonFiniteNote(nonFinite)}`, 520, 300),
     layer: [
       {
         name: 'points',
