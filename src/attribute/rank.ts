@@ -29,6 +29,7 @@ import { ATTRIBUTION_METHODS, attributionStrategy, type AttributionMethod } from
 import type { FeatureGroup, RepeatScores } from './types.ts';
 import { attributeRepeat, type ClassificationLoss } from './repeat.ts';
 import { aggregateRepeats, consensusRanking, meanPairwiseTau, type MethodRanking } from './aggregate.ts';
+import { rankPoints, type RankPoints } from './points.ts';
 import { noiseReference, planProbes, probeColumns, probeGroups, withProbes, type ProbeSpec } from './probes.ts';
 
 export { RANK_DEFAULTS } from './options.ts';
@@ -155,6 +156,8 @@ export interface RankResult {
   confusion?: { classes: number[]; counts: number[][]; repeat: string };
   /** Partial dependence of the first repeat's network on each feature it saw, over at most 500 held-out rows, in the feature's own units. */
   dependence?: Array<{ feature: string; x: number[]; mean: number[] }>;
+  /** The target against the two leading plottable groups on the rows used (at most 5,000 rows, seeded sample), for plotting. */
+  points: RankPoints;
 }
 
 export interface Ablation {
@@ -400,6 +403,7 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     split: spec,
     repeats: repeatsInfo,
     interval: { level: consensus.level, resamples: consensus.resamples, resampledRows: consensus.resampledRows },
+    points: rankPoints(ds, marked(consensusAll).map((e) => e.feature), deriveSeed(seed, 'rank', 'plot')),
   };
   if (completeness.length) result.completeness = completeness;
   if (probes.length) {

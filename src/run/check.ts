@@ -10,7 +10,7 @@ import { parseIntegerRange } from '../util/range.ts';
 import { keyPath, type RunConfig } from './config.ts';
 
 /** A target as rank reads it: a column of that exact name, else an expression. */
-export function targetExpression(table: Table, target: string): string {
+function targetExpression(table: Table, target: string): string {
   return table.columns.some((c) => c.name === target) ? formatColumnName(target) : target;
 }
 

@@ -1,36 +1,18 @@
 /**
- * The report's input from a run's results: what each stage computed, shaped for the report, and
- * the points of its plots (sampled to at most MAX_POINTS per plot).
+ * The report's input from a run's results: what each stage computed and handed on (figures,
+ * notes, plot points), shaped for the report. Nothing is re-evaluated here; the table is read
+ * only for the label column that colours the points.
  */
 import { isAbsolute, relative } from 'node:path';
 import { VERSION } from '../version.ts';
-import { realColumn, type Table } from '../table/index.ts';
-import { formatColumnName } from '../table/expr/format.ts';
+import type { Table } from '../table/index.ts';
 import type { RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
 import type { SearchResult } from '../relate/search.ts';
 import type { BoundResult } from '../bound/find.ts';
 import type { DiscoverResult } from '../bound/discover.ts';
-import { largestIndices, sampleIndices, type ReportInput } from '../report/index.ts';
-import { targetExpression } from './check.ts';
+import type { ReportInput } from '../report/index.ts';
 import type { RunResults } from './run.ts';
-
-/**
- * Points handed to the report per plot at most. The report itself bins or samples them for
- * drawing (and says so on the plot); this cap only bounds memory on tables of millions of rows.
- */
-const MAX_POINTS = 200_000;
-
-/** Values of an expression (real, NaN where missing) for a plot. */
-const realValues = (table: Table, source: string): Float64Array => realColumn(table, source, 'plotted quantity').values;
-
-/** Expression for a ranked feature group: a complex column is plotted through its real part. */
-function featureExpression(table: Table, name: string): string | null {
-  const col = table.columns.find((c) => c.name === name);
-  if (!col || col.kind === 'label') return null;
-  const q = formatColumnName(name);
-  return col.kind === 'complex' ? `abs(${q})` : q;
-}
 
 /** A path as the report shows it: relative to the working folder when inside it, else as is. */
 function shownPath(p: string): string {
@@ -52,24 +34,6 @@ function groupingLabel(table: Table): { name: string; values: string[] } | null 
   return null;
 }
 
-function pick(values: Float64Array, idx: Int32Array): number[] {
-  return Array.from(idx, (i) => values[i]!);
-}
-
-/**
- * Finite rows of all arrays, then a seeded sample of at most MAX_POINTS of them; with `keepLargest`
- * the rows with the 100 largest values of that array are always kept (the rows that set a bound).
- */
-function finiteSample(arrays: Float64Array[], seed: number, keepLargest?: Float64Array): { idx: Int32Array; from: number } {
-  const n = arrays[0]!.length;
-  const ok: number[] = [];
-  for (let i = 0; i < n; i++) if (arrays.every((a) => Number.isFinite(a[i]!))) ok.push(i);
-  if (ok.length <= MAX_POINTS) return { idx: Int32Array.from(ok), from: ok.length };
-  const keep = keepLargest ? largestIndices(Float64Array.from(ok, (i) => keepLargest[i]!), 100) : [];
-  const s = sampleIndices(ok.length, MAX_POINTS, seed, keep);
-  return { idx: Int32Array.from(s, (k) => ok[k]!), from: ok.length };
-}
-
 /** The report's input from a run's results, the table they came from and the configuration text. */
 export function buildReportInput(
   results: RunResults,
@@ -80,7 +44,6 @@ export function buildReportInput(
   // each search's proposals are shown as bounds along its first quantity
   const bounds = [...results.bounds, ...results.discoveries.map(discoveryAsBounds)];
   const group = groupingLabel(table);
-  const pickLabels = (idx: Int32Array) => (group ? { labels: { name: group.name, values: Array.from(idx, (i) => group.values[i]!) } } : {});
   const labelsOfRows = (rows: number[]) => (group ? { labels: { name: group.name, values: rows.map((r) => group.values[r - 1]!) } } : {});
   const input: ReportInput = {
     title: `surmise: what predicts ${config.target}`,
@@ -121,21 +84,18 @@ export function buildReportInput(
     const lead = rank.dependence?.find((d) => d.feature === rank.ranking[0]?.feature);
     if (lead) input.rank.dependence = lead;
     if (rank.noise) input.rank.noise = { probes: describeProbes(rank.noise.probes), reference: rank.noise.reference };
-    // target against the top feature, coloured by the second
-    const top = rank.ranking.map((r) => featureExpression(table, r.feature)).filter((e): e is string => e !== null);
-    if (top.length >= 1) {
-      const y = realValues(table, targetExpression(table, config.target));
-      const x = realValues(table, top[0]!);
-      const c = top.length >= 2 ? realValues(table, top[1]!) : null;
-      const { idx, from } = finiteSample(c ? [x, y, c] : [x, y], config.seed);
+    // target against the top feature, coloured by the second (points chosen by the rank stage)
+    const pts = rank.points;
+    const [first, second] = pts.groups;
+    if (first) {
       input.scatter = {
-        x: pick(x, idx),
-        y: pick(y, idx),
-        xName: top[0]!,
+        x: first.values,
+        y: pts.target,
+        xName: first.expression,
         yName: config.target,
-        ...(c ? { color: pick(c, idx), colorName: top[1]! } : {}),
-        ...pickLabels(idx),
-        ...(from > idx.length ? { sampledFrom: from } : {}),
+        ...(second ? { color: second.values, colorName: second.expression } : {}),
+        ...labelsOfRows(pts.rows),
+        ...(pts.sampledFrom > pts.rows.length ? { sampledFrom: pts.sampledFrom } : {}),
       };
     }
   }
