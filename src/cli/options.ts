@@ -1,38 +1,25 @@
 import { SurmiseError, didYouMean } from '../errors.ts';
-import { tooLarge, type IntegerRange } from '../util/integer.ts';
+import { parseInteger, type IntegerRange } from '../util/integer.ts';
 import { ENGINE_CHOICES, type EngineChoice } from '../learn/engines.ts';
 
-/** Parse an integer option strictly (`Number`, not `parseInt`: '12abc' is refused). */
+/** An integer option, read strictly by the shared `parseInteger` ('12abc' is refused). */
 export function parseIntOption(name: string, raw: string): number {
-  const v = Number(raw);
-  if (raw.trim() === '' || !Number.isInteger(v)) {
-    throw new SurmiseError('option.badInteger', `expected ${name} to be an integer, got '${raw}'`);
-  }
-  return v;
+  return parseInteger(name, raw);
 }
 
 /** A positive integer option, at most `max` (its documented ceiling; `option.tooLarge` above it). */
 export function parsePositiveInt(name: string, raw: string, max = Infinity): number {
-  const v = parseIntOption(name, raw);
-  if (v < 1) throw new SurmiseError('option.badInteger', `expected ${name} to be a positive integer, got ${raw}`);
-  if (v > max) throw tooLarge(name, raw, { min: 1, max });
-  return v;
+  return parseInteger(name, raw, { min: 1, max });
 }
 
 /** A non-negative integer option, at most `max` (its documented ceiling; `option.tooLarge` above it). */
 export function parseNonNegativeInt(name: string, raw: string, max = Infinity): number {
-  const v = parseIntOption(name, raw);
-  if (v < 0) throw new SurmiseError('option.badInteger', `expected ${name} to be a non-negative integer, got ${raw}`);
-  if (v > max) throw tooLarge(name, raw, { min: 0, max });
-  return v;
+  return parseInteger(name, raw, { min: 0, max });
 }
 
 /** An integer option within `range` (below: `option.badInteger`; above the ceiling: `option.tooLarge`). */
 export function parseIntegerIn(name: string, raw: string, range: IntegerRange): number {
-  const v = parseIntOption(name, raw);
-  if (v < range.min) throw new SurmiseError('option.badInteger', `expected ${name} to be an integer ≥ ${range.min}, got ${raw}`);
-  if (v > range.max) throw tooLarge(name, raw, range);
-  return v;
+  return parseInteger(name, raw, range);
 }
 
 /** " (1 to 100)" for an option's help text. */

@@ -31,3 +31,24 @@ export function tooLarge(key: string, v: number | string, range: IntegerRange, l
     { option: key, ...range },
   );
 }
+
+/** The lower end of a range in words: "a positive integer" (min 1), "a non-negative integer" (min 0), else "an integer ≥ min". */
+function integerWords(min: number): string {
+  if (min === 1) return 'a positive integer';
+  if (min === 0) return 'a non-negative integer';
+  return `an integer ≥ ${min}`;
+}
+
+/**
+ * Read an integer given as text (a command-line value) strictly — `Number`, not `parseInt`, so
+ * '12abc' is refused — and check it against `range`. Not an integer or below the range:
+ * `option.badInteger`; above the ceiling: `option.tooLarge`. `label` names it as the user wrote it.
+ * @example parseInteger('--seeds', '3', { min: 1, max: 100 }) // 3
+ */
+export function parseInteger(label: string, raw: string, range: IntegerRange = { min: -Infinity, max: Infinity }): number {
+  const v = Number(raw);
+  if (raw.trim() === '' || !Number.isInteger(v)) throw new SurmiseError('option.badInteger', `expected ${label} to be an integer, got '${raw}'`);
+  if (v < range.min) throw new SurmiseError('option.badInteger', `expected ${label} to be ${integerWords(range.min)}, got ${raw}`);
+  if (v > range.max) throw tooLarge(label, raw, range);
+  return v;
+}
