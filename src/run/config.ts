@@ -15,6 +15,7 @@ import { RELATE_LIMITS } from '../relate/limits.ts';
 import { BOUND_LIMITS } from '../bound/find.ts';
 import { DISCOVER_OPTIONS } from '../bound/discover.ts';
 import { RESIDUAL_LIMITS } from './residual.ts';
+import { INTEGER_RANGE_PATTERN } from '../util/range.ts';
 
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
 const count = (r: IntegerRange) => z.number().int().min(r.min).max(r.max);
@@ -56,7 +57,7 @@ const SearchSchema = z.strictObject({
   target: exprString,
   from: listOf(z.string().min(1), 1),
   maxTerms: count(RELATE_LIMITS.maxTerms).default(2),
-  powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
+  powers: z.string().regex(INTEGER_RANGE_PATTERN, 'expected a range such as -3..3').default('-3..3'),
   top: count(RELATE_LIMITS.top).default(10),
 });
 
@@ -68,7 +69,7 @@ const ResidualSchema = z.strictObject({
   from: listOf(z.string().min(1), 1).optional(),
   absolute: z.boolean().default(true),
   maxTerms: count(RESIDUAL_LIMITS.maxTerms).default(1),
-  powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
+  powers: z.string().regex(INTEGER_RANGE_PATTERN, 'expected a range such as -3..3').default('-3..3'),
 });
 
 const BoundSchema = z.strictObject({
