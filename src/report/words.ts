@@ -105,14 +105,14 @@ export function witnessLabels(w: ReportWitness): string {
 
 /**
  * True when a bound's per-stratum constant changes systematically along the `by` quantity: the
- * trend's interval excludes zero (either sign: growth as `by` shrinks counts too) or the verdict
- * says it grows.
+ * bound stage's `kind` ('up' or 'down') when given, else the trend's interval excludes zero (either
+ * sign: growth as `by` shrinks counts too). The verdict's words are shown, never read.
  */
 export function trendGrows(t: { slope: number | null; low: number | null; high: number | null; kind?: 'none' | 'up' | 'down'; verdict: string } | null): boolean {
   if (t === null) return false;
   if (t.kind !== undefined) return t.kind !== 'none';
   const excludesZero = (t.low !== null && Number.isFinite(t.low) && t.low > 0) || (t.high !== null && Number.isFinite(t.high) && t.high < 0);
-  return excludesZero || /\b(grow|grows|growing|increas\w*|unbounded|diverg\w*)\b/i.test(t.verdict);
+  return excludesZero;
 }
 
 /** Integrated gradients: true when on some repeat the largest row gap exceeds 10% of mean |f(x) − f(baseline)| (our threshold). */

@@ -40,14 +40,17 @@ describe('equations', () => {
 });
 
 describe('trend flags', () => {
-  it('flags an interval that excludes zero on either side, or a verdict of growth', () => {
+  it('flags the stage\'s kind up/down, else an interval that excludes zero on either side; the verdict\'s words are not read', () => {
     expect(trendGrows({ slope: 1, low: 0.5, high: 1.5, verdict: 'x' })).toBe(true);
     expect(trendGrows({ slope: -1, low: -1.5, high: -0.5, verdict: 'x' })).toBe(true);
     expect(trendGrows({ slope: 0.1, low: -0.2, high: 0.4, verdict: 'flat' })).toBe(false);
-    expect(trendGrows({ slope: 0.1, low: -0.2, high: 0.4, verdict: 'grows' })).toBe(true);
+    expect(trendGrows({ slope: 0.1, low: -0.2, high: 0.4, verdict: 'grows' })).toBe(false);
+    expect(trendGrows({ slope: 0.1, low: -0.2, high: 0.4, kind: 'up', verdict: 'x' })).toBe(true);
+    expect(trendGrows({ slope: 1, low: 0.5, high: 1.5, kind: 'none', verdict: 'grows' })).toBe(false);
     expect(trendGrows(null)).toBe(false);
     expect(trendGrows({ slope: null, low: null, high: null, verdict: 'undetermined: too few strata' })).toBe(false);
     expect(trendGrows({ slope: 0.01, low: -0.1, high: 0.12, verdict: 'bounded: no trend along gap (interval contains 0)' })).toBe(false);
-    expect(trendGrows({ slope: -0.9, low: null, high: null, verdict: 'unbounded: grows as gap decreases' })).toBe(true);
+    expect(trendGrows({ slope: -0.9, low: null, high: null, kind: 'down', verdict: 'unbounded: grows as gap decreases' })).toBe(true);
+    expect(trendGrows({ slope: -0.9, low: null, high: null, verdict: 'unbounded: grows as gap decreases' })).toBe(false);
   });
 });
