@@ -1,6 +1,6 @@
 import type { IntegerRange } from '../util/integer.ts';
 
-/** Defaults: measured on the 20,000-row demo census to finish in < 60 s on 2 cores (bench/attribute.ts). */
+/** Defaults: chosen to finish 20,000 rows in < 60 s on 2 cores (bench/attribute.ts, Friedman #1). */
 export const RANK_DEFAULTS = Object.freeze({
   seeds: 3,
   folds: 0,

@@ -10,6 +10,7 @@ import { z } from 'zod';
 import { SurmiseError, didYouMean, fileErrorReason } from '../errors.ts';
 import type { IntegerRange } from '../util/integer.ts';
 import { RANK_DEFAULTS, RANK_LIMITS } from '../attribute/options.ts';
+import { ATTRIBUTION_METHODS } from '../attribute/methods/index.ts';
 import { RELATE_LIMITS } from '../relate/limits.ts';
 import { BOUND_LIMITS } from '../bound/find.ts';
 import { DISCOVER_OPTIONS } from '../bound/discover.ts';
@@ -35,8 +36,7 @@ const NetworkSchema = z.strictObject({
 });
 
 const AttributionSchema = z.strictObject({
-  methods: listOf(z.enum(['saliency', 'smoothgrad', 'integrated', 'permutation']), 1)
-    .default(['saliency', 'smoothgrad', 'integrated', 'permutation']),
+  methods: listOf(z.enum(ATTRIBUTION_METHODS), 1).default([...ATTRIBUTION_METHODS]),
   seeds: count(RANK_LIMITS.seeds).default(RANK_DEFAULTS.seeds),
   folds: count(RANK_LIMITS.folds).default(0),
   dropTop: count(RANK_LIMITS.dropTop).default(0),
