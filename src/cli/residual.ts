@@ -60,7 +60,7 @@ export function formatResidual(r: ResidualResult, source: string): string {
   const fitted = r.fit.terms.map((t) => `${t.coef.toPrecision(6)}${t.term === '1' ? '' : `·${t.term}`}`).join(' + ');
   L.push(`surmise residual: ${r.fit.target} ≈ ${fitted} on ${r.fit.n} rows of ${source} (R² ${r.fit.r2.toFixed(6)}, RMSE ${r.fit.rmse.toPrecision(4)})`);
   L.push(`what is left over, ${r.residualName} = ${r.fit.target} − fit, ranked against ${r.features.length} remaining column${r.features.length === 1 ? '' : 's'}: ${r.features.join(', ')}`);
-  for (const n of r.notes) L.push(`note: ${n}`);
+  for (const n of r.notes) L.push(`note: ${n.text}`);
   L.push('', ...rankingBlock(`${r.residualName}`, r.ranking));
   if (r.absolute) L.push('', ...rankingBlock(`|${r.residualName}| (the size of the error, for bounds)`, r.absolute));
   L.push('');

@@ -269,7 +269,7 @@ export function residualSection(input: ReportInput): Block[] {
       ],
     });
   }
-  for (const n of r.notes) out.push({ kind: 'paragraph', parts: [n] });
+  for (const n of r.notes) out.push({ kind: 'paragraph', parts: [n.text] });
   return out;
 }
 

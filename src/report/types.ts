@@ -130,7 +130,7 @@ export interface ReportResidual {
   /** Ranking of |residual|, when run. */
   absolute?: { ranking: Interval[]; noise?: { probes: string; reference: number } };
   next: { from: string[]; formula: string; heldOutRmse: number; nextTerms: string[] } | null;
-  notes: string[];
+  notes: ReportNote[];
 }
 
 export interface ReportWitness {

@@ -13,6 +13,7 @@ import { expressionColumns, parseExpression } from '../table/expr/index.ts';
 import { rankFeatures, type RankOptions, type RankProgress, type RankResult } from '../attribute/rank.ts';
 import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
+import type { Note } from '../util/note.ts';
 
 /** Ranges of the residual ranking's own count options (the ranking's are RANK_LIMITS). */
 export const RESIDUAL_LIMITS = Object.freeze({
@@ -59,7 +60,8 @@ export interface ResidualResult {
   ranking: RankResult;
   absolute: RankResult | null;
   next: NextTerm | null;
-  notes: string[];
+  /** Rows without a residual ('rows'), no column above the noise level ('noise'). */
+  notes: Array<Note<'rows' | 'noise'>>;
 }
 
 function freeName(table: Table, base: string): string {
@@ -86,7 +88,7 @@ export async function residualRanking(table: Table, spec: ResidualSpec): Promise
   const fitFull = fitRelation(table, { target: spec.target, terms: spec.terms, intercept: spec.intercept ?? true, seed, keepResiduals: true });
   const { residuals, ...fit } = fitFull;
   const res = residuals!;
-  const notes: string[] = [];
+  const notes: ResidualResult['notes'] = [];
   const used = new Set([spec.target, ...spec.terms].flatMap((e) => expressionColumns(parseExpression(e))));
   const features =
     spec.from ??
@@ -105,7 +107,7 @@ export async function residualRanking(table: Table, spec: ResidualSpec): Promise
     ...table,
     columns: [...table.columns, realColumn(residualName, table.nRows, res.rows, res.values), realColumn(absName, table.nRows, res.rows, res.values, Math.abs)],
   };
-  if (fit.n < table.nRows) notes.push(`${table.nRows - fit.n} of ${table.nRows} rows have no residual (dropped by the fit) and are left out of the rankings`);
+  if (fit.n < table.nRows) notes.push({ kind: 'rows', text: `${table.nRows - fit.n} of ${table.nRows} rows have no residual (dropped by the fit) and are left out of the rankings` });
   const rankWith = (target: string, which: 'residual' | 'absolute residual') =>
     rankFeatures(withRes, {
       ...spec.rank,
@@ -122,7 +124,7 @@ export async function residualRanking(table: Table, spec: ResidualSpec): Promise
   const k = spec.search?.columns ?? 3;
   const above = ranking.ranking.filter((e) => e.aboveNoise);
   const lead = (above.length ? above : ranking.ranking).slice(0, k).map((e) => e.feature);
-  if (ranking.noise && above.length === 0) notes.push('no column lies above the noise level on the residual: the next-term search below ranges over the top columns anyway and is weak evidence');
+  if (ranking.noise && above.length === 0) notes.push({ kind: 'noise', text: 'no column lies above the noise level on the residual: the next-term search below ranges over the top columns anyway and is weak evidence' });
   let next: NextTerm | null = null;
   if (lead.length) {
     const search = searchRelations(withRes, {
