@@ -311,7 +311,8 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   let predictions: RankResult['predictions'];
   let confusion: RankResult['confusion'];
   let dependence: RankResult['dependence'];
-  const fits = trainRepeats(datas, plans.map((q) => q.seed), task, training, (u, m) => report('train', u, m), plans.map((q) => q.label));
+  const labels = plans.map((q) => q.label);
+  const fits = trainRepeats({ datas, seeds: plans.map((q) => q.seed), labels, task, training }, (u, m) => report('train', u, m));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
     const d = datas[r]!;
@@ -421,7 +422,8 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const keep = all.filter((j) => !gone.has(j));
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
-    const left = await skillWithout(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, training, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label));
+    const ablationSet = { datas: abl, seeds: plans.map((q) => deriveSeed(q.seed, 'ablation')), labels, task, training };
+    const left = await skillWithout(ablationSet, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`));
     result.ablation = {
       dropped: dropped.map((g) => g.name),
       features: keep.map((j) => ds.featureNames[j]!),

@@ -11,7 +11,7 @@ export { r2, rmse, mae, accuracy, balancedAccuracy } from './metrics.ts';
 export { evaluate, type Evaluation, type Predictor } from './evaluate.ts';
 export { trainMany, type TrainJob, type TrainManyOptions, type TrainManyReport } from './many.ts';
 export { planRepeats, rankSplitSpec, repeatData, type RepeatData, type RepeatPlan } from './repeats.ts';
-export { SkillTallies, skillWithout, trainingUsed, trainRepeats, type RepeatFit, type SkillSet, type TrainingSettings, type TrainingUsed } from './predictability.ts';
+export { SkillTallies, skillWithout, trainingUsed, trainRepeats, type OnUnits, type RepeatFit, type RepeatSet, type SkillSet, type TrainingSettings, type TrainingUsed } from './predictability.ts';
 export { SkillTally, secondFigure, skillOf, type Figures, type Skill } from './skill.ts';
 export { batchSizeFor } from './batch-size.ts';
 export { roundedHitRate } from './rounded.ts';

@@ -40,6 +40,18 @@ export interface TrainingSettings extends Omit<TrainingUsed, 'batchSize'> {
   integerTarget: boolean;
 }
 
+/** The repeats of one test: their data, network seeds and progress labels (one each), the task and how to train. */
+export interface RepeatSet {
+  datas: readonly RepeatData[];
+  seeds: readonly number[];
+  labels: readonly string[];
+  task: Task;
+  training: TrainingSettings;
+}
+
+/** Progress: units done (one per epoch budget: repeat r, epoch e is r·epochs + e) and a message. */
+export type OnUnits = (done: number, message: string) => void;
+
 /** One repeat's fitted network and the held-out figures of it and of the two baselines. */
 export interface RepeatFit {
   net: TrainedNetwork;
@@ -111,16 +123,9 @@ function scoreRepeat(net: TrainedNetwork, d: RepeatData, task: Task, integerTarg
  * worker threads (progress then moves per finished network); otherwise they train here one after
  * another with per-epoch progress. The networks are identical either way (many.test.ts). Yields
  * each repeat's fit in repeat order; the caller disposes of each network.
- * `onUnits(done, message)` counts one unit per epoch budget: repeat r, epoch e is r·epochs + e.
  */
-export async function* trainRepeats(
-  datas: readonly RepeatData[],
-  seeds: readonly number[],
-  task: Task,
-  s: TrainingSettings,
-  onUnits: (done: number, message: string) => void,
-  labels: readonly string[],
-): AsyncGenerator<RepeatFit> {
+export async function* trainRepeats(set: RepeatSet, onUnits: OnUnits): AsyncGenerator<RepeatFit> {
+  const { datas, seeds, labels, task, training: s } = set;
   const netOptions = (d: RepeatData, seed: number) => ({
     hidden: s.hidden,
     activation: s.activation,
@@ -156,19 +161,12 @@ export async function* trainRepeats(
 }
 
 /**
- * Ablation: retrain on the repeats `datas` (built on fewer features) and return the skill left,
+ * Ablation: retrain on the repeats of `set` (built on fewer features) and return the skill left,
  * without rounded hit rates. Each network is disposed of as soon as it is scored.
  */
-export async function skillWithout(
-  datas: readonly RepeatData[],
-  seeds: readonly number[],
-  task: Task,
-  s: TrainingSettings,
-  onUnits: (done: number, message: string) => void,
-  labels: readonly string[],
-): Promise<SkillSet> {
-  const tallies = new SkillTallies(task);
-  for await (const fit of trainRepeats(datas, seeds, task, s, onUnits, labels)) {
+export async function skillWithout(set: RepeatSet, onUnits: OnUnits): Promise<SkillSet> {
+  const tallies = new SkillTallies(set.task);
+  for await (const fit of trainRepeats(set, onUnits)) {
     fit.net.dispose();
     tallies.add(fit);
   }

@@ -26,7 +26,7 @@ describe('the predictability test', () => {
     const tallies = new SkillTallies('regression');
     const units: number[] = [];
     let r = 0;
-    for await (const fit of trainRepeats(datas, plans.map((q) => q.seed), 'regression', S, (u) => units.push(u), labels)) {
+    for await (const fit of trainRepeats({ datas, seeds: plans.map((q) => q.seed), labels, task: 'regression', training: S }, (u) => units.push(u))) {
       expect(fit.model.score).toBe(evaluate(fit.net, datas[r]!.test).score); // the network's figure is its held-out R²
       tallies.add(fit);
       fit.net.dispose();
@@ -44,7 +44,7 @@ describe('the predictability test', () => {
 
   it('ablation: without the two informative columns the ridge baseline has nothing left', async () => {
     const datas = plans.map((q) => repeatData(ds, q, [2]));
-    const left = await skillWithout(datas, plans.map((q) => q.seed), 'regression', S, () => {}, labels);
+    const left = await skillWithout({ datas, seeds: plans.map((q) => q.seed), labels, task: 'regression', training: S }, () => {});
     expect(left.ridge.score).toBeLessThan(0.05);
     expect(left.model.roundedExact).toBeUndefined();
   });
