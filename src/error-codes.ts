@@ -1,6 +1,6 @@
 /**
  * Every error code surmise raises, with what it means. `SurmiseError`'s code is typed against this
- * list, so a code raised anywhere is listed here; tests/errors/codes.test.ts checks the converse
+ * list, so a code raised anywhere is listed here; tests/error-codes.test.ts checks the converse
  * (every code listed is raised somewhere). One failure has one code wherever it is raised: a bad
  * option value is `option.badValue` in the library, the CLI and the configuration alike.
  */
