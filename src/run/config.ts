@@ -13,6 +13,7 @@ import { configKeyOf, type OptionSpec, type OptionTable } from '../util/option-t
 import { RANK_LIMITS, RANK_OPTIONS } from '../attribute/options.ts';
 import { FIT_OPTIONS, SEARCH_OPTIONS } from '../relate/options.ts';
 import { BOUND_OPTIONS, DISCOVER_OPTIONS, type BoundForm } from '../bound/options.ts';
+import type { DiscoverSpec } from '../bound/discover.ts';
 import type { Activation, LossName } from '../learn/options.ts';
 import type { EngineChoice } from '../learn/engines.ts';
 import type { AttributionMethod } from '../attribute/types.ts';
@@ -215,21 +216,11 @@ export interface RunConfig {
   };
   residual?: z.infer<typeof ResidualSchema>;
   bounds: Array<{ lhs: string; rhs: string[]; by?: string; bins: number; top: number; id?: string[]; skipInvalid: boolean; lower: boolean; form: BoundForm }>;
-  discover: Array<{
-    lhs: string;
-    from: string[];
-    id?: string[];
-    skipInvalid: boolean;
-    lower: boolean;
-    maxExponent: number;
-    maxDenominator: number;
-    proposals: number;
-    top: number;
-    bins: number;
-    seed?: number;
-    heldOut: number;
-    exceedances?: number;
-  }>;
+  discover: Array<
+    { lhs: string; from: string[]; id?: string[]; seed?: number; exceedances?: number } & Required<
+      Pick<DiscoverSpec, 'skipInvalid' | 'lower' | 'maxExponent' | 'maxDenominator' | 'proposals' | 'top' | 'bins' | 'heldOut'>
+    >
+  >;
   output: string;
 }
 
