@@ -25,7 +25,7 @@ for (let j = 0; j < 20; j++) {
 }
 columns.push({ name: 'xings', kind: 'integer', values: Float64Array.from({ length: n }, () => 3 + rng.int(15)), missing: new Uint8Array(n) });
 columns.push({
-  name: 'lon',
+  name: 'czb',
   kind: 'complex',
   re: Float64Array.from({ length: n }, () => rng.normal()),
   im: Float64Array.from({ length: n }, () => rng.normal()),
@@ -41,7 +41,7 @@ function time<T>(label: string, target: number, f: () => T): T {
   return r;
 }
 const ds = time('buildDataset (dedupe all, 24 features, derive 1)', 2, () =>
-  buildDataset(table, { target: 'c0', derive: [{ name: 'slope', source: 're(lon/c1)' }] }),
+  buildDataset(table, { target: 'c0', derive: [{ name: 'slope', source: 're(czb/c1)' }] }),
 );
 console.log(`  kept ${ds.drops.keptRows} of ${n}; ${ds.drops.invalidRows} invalid, ${ds.drops.duplicates} duplicates`);
 time('buildDataset (dedupe none)', 1.5, () => buildDataset(table, { target: 'c0', dedupe: 'none' }));

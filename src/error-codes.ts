@@ -154,6 +154,8 @@ export const ERROR_CODES = {
   'knots.unreadable': 'a diagram file cannot be read',
   'knots.exists': 'the knots output file already exists and replacing it was not asked for',
   'knots.unwritable': 'the knots output file cannot be written',
+  // library API
+  'api.badArgument': 'a library function got an argument of the wrong kind, or an options object with an unknown key',
   // command line only
   'cli.badFormat': 'a --format value surmise does not read',
   'cli.badKind': 'a --kind value is not NAME=KIND',

@@ -3,10 +3,7 @@
  * relate / bound → report; run ties them together; knots produces tables), and the functions a
  * Node user reaches for first are also exported by name.
  *
- * @example
- *   import { readTable, rankFeatures, fitRelation, findBound } from 'surmise';
- *   const t = await readTable('demo-data/knots.csv');
- *   const fit = fitRelation(t, { target: 'genus_bound', terms: ['crossings', 'strands'] });
+ * docs/API.md describes them, with an example a test runs.
  */
 export * as table from './table/index.ts';
 export * as learn from './learn/index.ts';
@@ -19,13 +16,9 @@ export * as knots from './knots/index.ts';
 
 export { SurmiseError, isUserError } from './errors.ts';
 export type { Table, Column, ColumnKind } from './table/types.ts';
-export { readTable, writeTable, deriveColumn, evaluateExpression, buildDataset, toDataFrame, fromDataFrame } from './table/index.ts';
-export { rankFeatures } from './attribute/rank.ts';
-export { fitRelation } from './relate/fit.ts';
-export { searchRelations } from './relate/search.ts';
-export { findBound } from './bound/find.ts';
-export { discoverBound } from './bound/discover.ts';
-export { renderReport } from './report/index.ts';
-export { executeRun, loadConfig, parseConfig, compareRuns } from './run/index.ts';
-export { generateDemoKnots } from './demo/knots.ts';
-export { runCli } from './cli/main.ts';
+// the functions by name, each with its arguments checked at entry (api/functions.ts; docs/API.md)
+export {
+  readTable, tableFromRecords, writeTable, deriveColumn, evaluateExpression, buildDataset, toDataFrame, fromDataFrame,
+  rankFeatures, fitRelation, searchRelations, findBound, discoverBound, renderReport,
+  executeRun, loadConfig, parseConfig, compareRuns, generateDemoKnots, runCli,
+} from './api/functions.ts';

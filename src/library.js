@@ -16,7 +16,7 @@ if (freshBuild(root)) {
 export const {
   table, learn, attribute, relate, bound, report, run, knots,
   SurmiseError, isUserError,
-  readTable, writeTable, deriveColumn, evaluateExpression, buildDataset, toDataFrame, fromDataFrame,
-  rankFeatures, fitRelation, searchRelations, findBound, renderReport,
-  executeRun, loadConfig, parseConfig, compareRuns, generateCensus, runCli,
+  readTable, tableFromRecords, writeTable, deriveColumn, evaluateExpression, buildDataset, toDataFrame, fromDataFrame,
+  rankFeatures, fitRelation, searchRelations, findBound, discoverBound, renderReport,
+  executeRun, loadConfig, parseConfig, compareRuns, generateDemoKnots, runCli,
 } = lib;

@@ -6,6 +6,8 @@
  * class value Σ p_k·c_k, as everywhere in the ranking.
  * @example a linear f(x) = 2·x₀ + x₁ has PD₀(v) = 2v + mean(x₁)
  */
+import type { RepeatData } from '../learn/repeats.ts';
+import { subsampleRows } from '../util/subsample.ts';
 
 /** The trained network's prediction, row-major n×p in, n values out. */
 export type Predict = (x: Float64Array, n: number) => Float64Array;
@@ -47,4 +49,23 @@ export function partialDependence(predict: Predict, x: Float64Array, n: number, 
     return s / n;
   });
   return { grid: [...grid], mean };
+}
+
+/**
+ * Partial dependence of a repeat's model on every feature it saw: at most 500 held-out rows
+ * (seeded subsample) and 25 grid values, mapped back to the feature's own units through the
+ * repeat's standardizer (x = mean + sd·z).
+ */
+export function dependenceCurves(predict: Predict, d: RepeatData, names: readonly string[], seed: number): Array<{ feature: string; x: number[]; mean: number[] }> {
+  const p = d.kept.length;
+  const rows = subsampleRows(d.test.n, 500, seed);
+  const x = new Float64Array(rows.length * p);
+  rows.forEach((i, k) => x.set(d.test.x.subarray(i * p, (i + 1) * p), k * p));
+  return d.kept.map((j, c) => {
+    const name = names[j]!;
+    const curve = partialDependence(predict, x, rows.length, p, c, dependenceGrid(x, rows.length, p, c, 25));
+    const s = d.standardizer.names.indexOf(name);
+    const unit = (z: number) => (s < 0 ? z : d.standardizer.mean[s]! + d.standardizer.std[s]! * z);
+    return { feature: name, x: curve.grid.map(unit), mean: curve.mean };
+  });
 }

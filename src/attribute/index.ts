@@ -1,4 +1,4 @@
-/** The attribution stage: saliency, SmoothGrad, integrated gradients, permutation importance, aggregation, rankFeatures. */
+/** The attribution stage: the registered methods (saliency, SmoothGrad, integrated gradients, permutation importance; methods/), aggregation, rankFeatures. */
 export { ATTRIBUTION_METHODS, type AttributionMethod, type FeatureGroup, type RepeatScores, type ScalarModel } from './types.ts';
 export { columnMeans } from './column-mean.ts';
 export { gradientSaliency } from './saliency.ts';
@@ -17,8 +17,8 @@ export {
   type AggregateOptions,
   type MethodRanking,
 } from './aggregate.ts';
+export { ATTRIBUTION_REGISTRY, attributionStrategy, type AttributionStrategy, type MethodInput, type MethodOutput, type MethodSettings } from './methods/index.ts';
 export { attributeRepeat, heldOutLoss, type AttributableModel, type ClassificationLoss, type RepeatAttribution, type RepeatSettings } from './repeat.ts';
-export { planRepeats, rankSplitSpec, repeatData, type RepeatData, type RepeatPlan } from './prepare.ts';
 export {
   rankFeatures,
   RANK_DEFAULTS,
@@ -31,4 +31,3 @@ export {
   type Skill,
 } from './rank.ts';
 export { describeProbes, noiseReference, planProbes, probeColumns, type ProbeSpec } from './probes.ts';
-export { roundedHitRate } from './rounded.ts';

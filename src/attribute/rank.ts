@@ -1,39 +1,40 @@
 /**
- * rankFeatures: which inputs predict the target. For every repeat (seed × fold) it standardizes the
- * inputs on the training rows, trains the network with early stopping on validation rows, scores it
- * and the two baselines (constant, ridge) on the held-out rows, and runs the asked attribution
- * methods on (a seeded subsample of) those held-out rows. Each method's group scores are then
+ * rankFeatures: which inputs predict the target. The learn stage's predictability test
+ * (learn/predictability.ts) plans the repeats (seed × fold), standardizes the inputs on each
+ * repeat's training rows, trains the network and scores it and the two baselines (constant, ridge)
+ * on the held-out rows; this module runs the asked attribution methods (registered in methods/)
+ * on (a seeded subsample of) those held-out rows while each network is alive. Each method's group scores are then
  * aggregated over the repeats (normalised to sum 1, mean, bootstrap interval, Kendall τ-b), and the
  * headline `ranking` is the consensus of the methods (each repeat's normalised scores averaged
  * over methods; see consensusRanking). Free of CLI concerns: the CLI and the run stage call it.
  */
 import type { StandardizerState } from '../table/standardize.ts';
-import { dependenceGrid, partialDependence } from './dependence.ts';
+import { dependenceCurves } from './dependence.ts';
 import type { Table } from '../table/types.ts';
-import { buildDataset, type Dataset, type DropReport } from '../table/dataset.ts';
+import { buildDataset, type DropReport } from '../table/dataset.ts';
 import { parseDerive } from '../table/expr/index.ts';
 import { SurmiseError } from '../errors.ts';
 import { badOption, checkOptions } from '../util/option-table.ts';
+import { subsampleRows } from '../util/subsample.ts';
 import { RANK_DEFAULTS, RANK_OPTIONS } from './options.ts';
 import type { Activation, LossName } from '../learn/options.ts';
-
-export { RANK_DEFAULTS } from './options.ts';
-import { deriveSeed, Rng } from '../util/rng.ts';
-import { trainNetwork } from '../learn/train.ts';
-import { trainMany } from '../learn/many.ts';
-import { networkFromJSON, type TrainedNetwork } from '../learn/trained.ts';
+import { deriveSeed } from '../util/rng.ts';
 import { chooseTask, type Task } from '../learn/options.ts';
 import type { EngineChoice, EngineName } from '../learn/engines.ts';
-import { fitConstant } from '../learn/constant.ts';
-import { selectRidge } from '../learn/ridge.ts';
-import { evaluate, type Evaluation } from '../learn/evaluate.ts';
-import type { TrainData } from '../learn/data.ts';
-import { ATTRIBUTION_METHODS, type AttributionMethod, type FeatureGroup, type RepeatScores } from './types.ts';
+import { confusionCounts } from '../learn/confusion.ts';
+import { planRepeats, repeatData } from '../learn/repeats.ts';
+import { SkillTallies, skillWithout, trainingUsed, trainRepeats, type RepeatFit, type TrainingSettings, type TrainingUsed } from '../learn/predictability.ts';
+import type { Skill } from '../learn/skill.ts';
+import { ATTRIBUTION_METHODS, attributionStrategy, type AttributionMethod } from './methods/index.ts';
+import type { FeatureGroup, RepeatScores } from './types.ts';
 import { attributeRepeat, type ClassificationLoss } from './repeat.ts';
 import { aggregateRepeats, consensusRanking, meanPairwiseTau, type MethodRanking } from './aggregate.ts';
-import { planRepeats, repeatData, type RepeatData } from './prepare.ts';
 import { noiseReference, planProbes, probeColumns, probeGroups, withProbes, type ProbeSpec } from './probes.ts';
-import { roundedHitRate } from './rounded.ts';
+
+export { RANK_DEFAULTS } from './options.ts';
+export type { Skill } from '../learn/skill.ts';
+export type { TrainingUsed } from '../learn/predictability.ts';
+export { batchSizeFor } from '../learn/batch-size.ts';
 
 export interface RankOptions {
   /** Target column or expression. */
@@ -101,17 +102,6 @@ export interface RankProgress {
 }
 
 
-/** The training settings every network of a ranking was trained with (batch size per repeat). */
-export interface TrainingUsed {
-  hidden: number[];
-  activation: Activation;
-  loss: LossName;
-  epochs: number;
-  patience: number;
-  learningRate: number;
-  batchSize: number[];
-}
-
 export interface RankEntry {
   feature: string;
   /** Mean normalised score (shares summing to 1 over groups). */
@@ -134,17 +124,6 @@ export interface NoiseLevel {
   /** The probes' own headline entries (shares on the real quantities' scale), best first. */
   scores: RankEntry[];
   rule: string;
-}
-
-export interface Skill {
-  metric: 'r2' | 'accuracy';
-  /** Mean over repeats, and per repeat. */
-  score: number;
-  perRepeat: number[];
-  /** The second held-out figure: RMSE (regression) or balanced accuracy (classification), mean and per repeat. */
-  secondary?: { metric: 'rmse' | 'balancedAccuracy'; score: number; perRepeat: number[] };
-  /** Integer target fitted as a regression: fraction of held-out rows the rounded prediction gets exactly right. */
-  roundedExact?: { score: number; perRepeat: number[] };
 }
 
 export interface RankResult {
@@ -189,49 +168,10 @@ export interface Ablation {
   full: Skill;
 }
 
-/** Held-out rows by actual class (rows) and predicted class (columns), classes in increasing order. */
-function confusionCounts(actual: Float64Array, predicted: Float64Array, repeat: string): NonNullable<RankResult['confusion']> {
-  const classes = [...new Set([...actual, ...predicted])].sort((a, b) => a - b);
-  const at = new Map(classes.map((c, k) => [c, k]));
-  const counts = classes.map(() => classes.map(() => 0));
-  for (let i = 0; i < actual.length; i++) counts[at.get(actual[i]!)!]![at.get(predicted[i]!)!]!++;
-  return { classes, counts, repeat };
-}
-
-/** Partial dependence on every feature of a repeat, at most 500 held-out rows and 25 grid values, mapped back to the feature's units. */
-function dependenceCurves(predict: (x: Float64Array, n: number) => Float64Array, d: RepeatData, names: readonly string[], seed: number): NonNullable<RankResult['dependence']> {
-  const p = d.kept.length;
-  const rows = subsample(d.test.n, 500, seed);
-  const x = new Float64Array(rows.length * p);
-  rows.forEach((i, k) => x.set(d.test.x.subarray(i * p, (i + 1) * p), k * p));
-  return d.kept.map((j, c) => {
-    const name = names[j]!;
-    const curve = partialDependence(predict, x, rows.length, p, c, dependenceGrid(x, rows.length, p, c, 25));
-    const s = d.standardizer.names.indexOf(name);
-    const unit = (z: number) => (s < 0 ? z : d.standardizer.mean[s]! + d.standardizer.std[s]! * z);
-    return { feature: name, x: curve.grid.map(unit), mean: curve.mean };
-  });
-}
-
 /** Every option checked once against RANK_OPTIONS; `folds: 1` is refused (no single fold). */
 function checkRankOptions(o: RankOptions): void {
   checkOptions(RANK_OPTIONS, o as unknown as Record<string, unknown>);
   if (o.folds === 1) throw badOption('folds', '0 (one random split) or at least 2', 1);
-}
-
-function skill(metric: 'r2' | 'accuracy', perRepeat: number[], second?: number[], exact?: number[]): Skill {
-  const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
-  const out: Skill = { metric, score: mean(perRepeat), perRepeat };
-  if (second && second.length === perRepeat.length) {
-    out.secondary = { metric: metric === 'r2' ? 'rmse' : 'balancedAccuracy', score: mean(second), perRepeat: second };
-  }
-  if (exact && exact.length === perRepeat.length && exact.every((v) => !Number.isNaN(v))) out.roundedExact = { score: mean(exact), perRepeat: exact };
-  return out;
-}
-
-/** The second figure of an evaluation: RMSE (regression) or balanced accuracy (classification). */
-function second(e: Evaluation): number {
-  return (e.metric === 'r2' ? e.rmse : e.balancedAccuracy) ?? Number.NaN;
 }
 
 /**
@@ -241,120 +181,6 @@ function second(e: Evaluation): number {
 function groupsOnKept(groups: readonly FeatureGroup[], kept: readonly number[]): FeatureGroup[] {
   const pos = new Map(kept.map((j, k) => [j, k]));
   return groups.map((g) => ({ name: g.name, members: g.members.filter((j) => pos.has(j)).map((j) => pos.get(j)!) }));
-}
-
-/**
- * Mini-batch size: RANK_DEFAULTS.batchSize, shrunk on small tables so an epoch has at least about
- * 8 steps (a power of two, at least 8): 90 training rows give batches of 8, 14,000 give 256.
- */
-export function batchSizeFor(nTrain: number): number {
-  const b = 2 ** Math.floor(Math.log2(Math.max(1, nTrain / 8)));
-  return Math.max(8, Math.min(RANK_DEFAULTS.batchSize, b));
-}
-
-/** Held-out scores of the network and both baselines, collected over repeats. */
-class Scores {
-  readonly net: number[] = [];
-  readonly constant: number[] = [];
-  readonly ridge: number[] = [];
-  readonly net2: number[] = [];
-  readonly constant2: number[] = [];
-  readonly ridge2: number[] = [];
-  readonly netExact: number[] = [];
-  readonly constantExact: number[] = [];
-  readonly ridgeExact: number[] = [];
-
-  add(f: Fit): void {
-    this.netExact.push(f.exact[0]);
-    this.constantExact.push(f.exact[1]);
-    this.ridgeExact.push(f.exact[2]);
-    this.net.push(f.score);
-    this.constant.push(f.constant);
-    this.ridge.push(f.ridge);
-    this.net2.push(f.score2);
-    this.constant2.push(f.constant2);
-    this.ridge2.push(f.ridge2);
-  }
-}
-
-interface Fit {
-  net: TrainedNetwork;
-  score: number;
-  constant: number;
-  ridge: number;
-  /** Second figures (RMSE or balanced accuracy) of the network and the two baselines. */
-  score2: number;
-  constant2: number;
-  ridge2: number;
-  /** Rounded-prediction hit rates of the network, constant and ridge (NaN unless an integer regression target). */
-  exact: [number, number, number];
-  epochsRun: number;
-}
-
-/**
- * Train one network per repeat. With `workers` ≥ 1 and several repeats, the learn stage's
- * trainMany spreads them over worker threads (both cores; progress then moves per finished
- * network); otherwise they train here one after another with per-epoch progress. The networks
- * are identical either way (the learn stage tests this). Yields each repeat's fitted network,
- * its held-out score and the two baselines' scores on the same split, in repeat order.
- */
-async function* trainAll(
-  datas: readonly RepeatData[],
-  seeds: readonly number[],
-  task: Task,
-  o: Omit<TrainingUsed, 'batchSize'> & { batchSize: number | null; workers: number; integerTarget: boolean; engine?: EngineChoice },
-  onUnits: (done: number, message: string) => void,
-  labels: readonly string[],
-): AsyncGenerator<Fit> {
-  const netOptions = (d: RepeatData, seed: number) => ({
-    hidden: o.hidden,
-    activation: o.activation,
-    loss: o.loss,
-    maxEpochs: o.epochs,
-    patience: o.patience,
-    batchSize: o.batchSize ?? batchSizeFor(d.train.n),
-    learningRate: o.learningRate,
-    seed,
-    task,
-    ...(o.engine ? { engine: o.engine } : {}),
-  });
-  const score = (net: TrainedNetwork, d: RepeatData): Fit => {
-    const e = evaluate(net, d.test);
-    const cm = fitConstant(d.train.y, task);
-    const rm = selectRidge(d.train, d.validation, task).model;
-    const c = evaluate(cm, d.test);
-    const rg = evaluate(rm, d.test);
-    const hit = (m: { predict(x: typeof d.test.x, n: number): Float64Array }) =>
-      o.integerTarget && task === 'regression' ? roundedHitRate(m.predict(d.test.x, d.test.n), d.test.y) : Number.NaN;
-    const exact: [number, number, number] = [hit(net), hit(cm), hit(rm)];
-    return { net, score: e.score, constant: c.score, ridge: rg.score, score2: second(e), constant2: second(c), ridge2: second(rg), exact, epochsRun: net.epochs };
-  };
-  if (o.workers >= 1 && datas.length > 1) {
-    let finished = 0;
-    const rep = await trainMany(
-      datas.map((d, r) => ({ train: d.train, validation: d.validation, options: netOptions(d, seeds[r]!) })),
-      {
-        workers: o.workers,
-        onJobDone: (i) => {
-          finished++;
-          onUnits(finished * o.epochs, `${labels[i]} trained (${finished}/${datas.length})`);
-        },
-      },
-    );
-    for (let r = 0; r < datas.length; r++) yield score(networkFromJSON(rep.states[r]!), datas[r]!); // on the engine trainMany loaded
-    return;
-  }
-  for (let r = 0; r < datas.length; r++) {
-    const d = datas[r]!;
-    const net = await trainNetwork(d.train, d.validation, netOptions(d, seeds[r]!), (e) => onUnits(r * o.epochs + e.epoch, `${labels[r]}, epoch ${e.epoch}`));
-    yield score(net, d);
-  }
-}
-
-/** Seeded subsample of at most `max` of the n held-out rows (all of them when n ≤ max), in row order. */
-function subsample(n: number, max: number, seed: number): Int32Array {
-  if (n <= max) return Int32Array.from({ length: n }, (_, i) => i);
-  return new Rng(seed).permutation(n).subarray(0, max).sort();
 }
 
 /** The first G groups of a ranking (the real quantities): order and Kendall τ-b recomputed on them alone. */
@@ -391,20 +217,10 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const folds = options.folds ?? RANK_DEFAULTS.folds;
   const hidden = [...(options.hidden ?? RANK_DEFAULTS.hidden)];
   const epochs = options.epochs ?? RANK_DEFAULTS.epochs;
-  const training = {
-    hidden,
-    epochs,
-    activation: options.activation ?? RANK_DEFAULTS.activation,
-    loss: options.loss ?? RANK_DEFAULTS.loss,
-    patience: options.patience ?? RANK_DEFAULTS.patience,
-    learningRate: options.learningRate ?? RANK_DEFAULTS.learningRate,
-    batchSize: options.batchSize ?? null,
-  };
   const methods = options.methods && options.methods.length ? [...new Set(options.methods)] : [...ATTRIBUTION_METHODS];
   const attributionRows = options.attributionRows ?? RANK_DEFAULTS.attributionRows;
   const resamples = options.resamples ?? RANK_DEFAULTS.resamples;
   const dropTop = options.dropTop ?? 0;
-  const workers = options.workers ?? RANK_DEFAULTS.workers;
   const nProbes = options.probes ?? RANK_DEFAULTS.probes;
 
   const ds = buildDataset(table, {
@@ -414,7 +230,6 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     derive: (options.derive ?? []).map((d) => parseDerive(d)),
     groups: options.groups,
   });
-  const n = ds.y.length;
   const p = ds.featureNames.length;
   if (p === 0) throw new SurmiseError('rank.noFeatures', `no numeric feature columns are left to predict '${options.target}' from`);
   const groups: FeatureGroup[] = ds.groups.map((g) => ({ name: g.name, members: [...g.members] }));
@@ -430,18 +245,28 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const G = groups.length;
   const allGroups = [...groups, ...probeGroups(probes, p)];
   const allWithProbes = Array.from({ length: p + probes.length }, (_, j) => j);
-  const integerTarget = ds.y.every((v) => Number.isInteger(v));
+  const training: TrainingSettings = {
+    hidden,
+    epochs,
+    activation: options.activation ?? RANK_DEFAULTS.activation,
+    loss: options.loss ?? RANK_DEFAULTS.loss,
+    patience: options.patience ?? RANK_DEFAULTS.patience,
+    learningRate: options.learningRate ?? RANK_DEFAULTS.learningRate,
+    batchSize: options.batchSize ?? null,
+    workers: options.workers ?? RANK_DEFAULTS.workers,
+    integerTarget: ds.y.every((v) => Number.isInteger(v)),
+    ...(options.engine ? { engine: options.engine } : {}),
+  };
   const unitsPerRepeat = epochs;
   const total = R * unitsPerRepeat * (dropTop > 0 ? 2 : 1);
   const report = (phase: RankProgress['phase'], done: number, message: string) => options.onProgress?.({ phase, done: Math.min(done, total), total, message });
 
   const byMethod = new Map<AttributionMethod, RepeatScores[]>(methods.map((m) => [m, []]));
-  const scores = new Scores();
+  const tallies = new SkillTallies(task);
   const epochsRun: number[] = [];
   let engine: EngineName | undefined;
   const completeness: RankResult['completeness'] = [];
   const repeatsInfo: RankResult['repeats'] = [];
-  const metric: 'r2' | 'accuracy' = task === 'regression' ? 'r2' : 'accuracy';
   // the probes are drawn once and kept in every repeat, like a real inert column: a chance
   // in-sample link to the target then shows in the probes as it does in the real columns
   const dsProbed = probes.length ? withProbes(ds, probes, probeColumns(ds, probes, deriveSeed(seed, 'probes'))) : ds;
@@ -449,19 +274,20 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   let predictions: RankResult['predictions'];
   let confusion: RankResult['confusion'];
   let dependence: RankResult['dependence'];
-  const fits = trainAll(datas, plans.map((q) => q.seed), task, { ...training, workers, integerTarget, engine: options.engine }, (u, m) => report('train', u, m), plans.map((q) => q.label));
+  const labels = plans.map((q) => q.label);
+  const fits = trainRepeats({ datas, seeds: plans.map((q) => q.seed), labels, task, training }, (u, m) => report('train', u, m));
   for (let r = 0; r < R; r++) {
     const plan = plans[r]!;
     const d = datas[r]!;
     const label = plan.label;
     const pk = d.kept.length;
-    const fit = (await fits.next()).value as Fit;
+    const fit = (await fits.next()).value as RepeatFit;
     try {
-      scores.add(fit);
+      tallies.add(fit);
       epochsRun.push(fit.epochsRun);
       engine ??= fit.net.engine;
       report('attribute', (r + 1) * unitsPerRepeat, `${label}: attributing`);
-      const rows = subsample(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
+      const rows = subsampleRows(d.test.n, attributionRows, deriveSeed(plan.seed, 'attribution-rows'));
       const xa = new Float64Array(rows.length * pk);
       const ya = new Float64Array(rows.length);
       rows.forEach((i, k) => {
@@ -480,14 +306,14 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
       for (const m of methods) byMethod.get(m)!.push(att.scores[m]!);
       if (r === 0) {
         const all0 = fit.net.predict(d.test.x, d.test.n);
-        const keepRows = subsample(d.test.n, 5000, deriveSeed(plan.seed, 'prediction-plot'));
+        const keepRows = subsampleRows(d.test.n, 5000, deriveSeed(plan.seed, 'prediction-plot'));
         predictions = {
           actual: Array.from(keepRows, (i) => d.test.y[i]!),
           predicted: Array.from(keepRows, (i) => all0[i]!),
           repeat: label,
           sampledFrom: d.test.n,
         };
-        if (task === 'classification') confusion = confusionCounts(d.test.y, fit.net.predictClass(d.test.x, d.test.n), label);
+        if (task === 'classification') confusion = { ...confusionCounts(d.test.y, fit.net.predictClass(d.test.x, d.test.n)), repeat: label };
         dependence = dependenceCurves((x, m) => fit.net.predict(x, m), d, ds.featureNames, deriveSeed(plan.seed, 'dependence-rows'));
       }
       if (att.completeness) completeness.push(att.completeness);
@@ -511,18 +337,19 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     return e.map((x) => ({ ...x, aboveNoise: x.low > ref, noiseReference: ref }));
   };
 
+  const skills = tallies.skills();
   const result: RankResult = {
     target: ds.targetName,
     task,
     features: [...ds.featureNames],
     groups: groups.map((g) => ({ name: g.name, members: g.members.map((j) => ds.featureNames[j]!) })),
     model: {
-      ...skill(metric, scores.net, scores.net2, scores.netExact),
-      baselines: { constant: skill(metric, scores.constant, scores.constant2, scores.constantExact), ridge: skill(metric, scores.ridge, scores.ridge2, scores.ridgeExact) },
+      ...skills.model,
+      baselines: { constant: skills.constant, ridge: skills.ridge },
       hidden,
       epochsRun,
       engine: engine!,
-      training: { ...training, hidden: [...hidden], batchSize: datas.map((d) => training.batchSize ?? batchSizeFor(d.train.n)) },
+      training: trainingUsed(training, datas),
     },
     ranking: marked(consensusAll),
     rankingMethod: methods.length > 1 ? 'consensus' : methods[0]!,
@@ -556,20 +383,17 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
     const dropped = consensus.order.slice(0, dropTop).map((k) => groups[k]!);
     const gone = new Set(dropped.flatMap((g) => g.members));
     const keep = all.filter((j) => !gone.has(j));
-    const abScores = new Scores();
     const without = dropped.map((g) => g.name).join(', ');
     const abl = plans.map((plan) => repeatData(ds, plan, keep));
-    for await (const fit of trainAll(abl, plans.map((q) => deriveSeed(q.seed, 'ablation')), task, { ...training, workers, integerTarget, engine: options.engine }, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`), plans.map((q) => q.label))) {
-      fit.net.dispose();
-      abScores.add(fit);
-    }
+    const ablationSet = { datas: abl, seeds: plans.map((q) => deriveSeed(q.seed, 'ablation')), labels, task, training };
+    const left = await skillWithout(ablationSet, (u, m) => report('ablation', R * unitsPerRepeat + u, `without ${without}: ${m}`));
     result.ablation = {
       dropped: dropped.map((g) => g.name),
       features: keep.map((j) => ds.featureNames[j]!),
-      model: skill(metric, abScores.net, abScores.net2),
-      ridge: skill(metric, abScores.ridge, abScores.ridge2),
-      constant: skill(metric, abScores.constant, abScores.constant2),
-      full: skill(metric, scores.net, scores.net2),
+      model: left.model,
+      ridge: left.ridge,
+      constant: left.constant,
+      full: tallies.skills(false).model,
     };
   }
   report('attribute', total, 'done');

@@ -33,5 +33,5 @@ export interface RepeatScores {
   n: number;
 }
 
-export type AttributionMethod = 'saliency' | 'smoothgrad' | 'integrated' | 'permutation';
-export const ATTRIBUTION_METHODS: readonly AttributionMethod[] = ['saliency', 'smoothgrad', 'integrated', 'permutation'];
+/** The registered attribution methods (methods/index.ts), re-exported where the shared types live. */
+export { ATTRIBUTION_METHODS, type AttributionMethod } from './methods/index.ts';

@@ -42,7 +42,7 @@ export function registerBound(program: Command, io: CliIO): void {
         'With --from a,b,c instead of --rhs: search rhs = a^i·b^j·c^k for the tightest bound without a trend',
     )
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
-    .requiredOption('--lhs <expr>', 'left-hand side expression, e.g. "abs(2*sig - slope)"')
+    .requiredOption('--lhs <expr>', 'left-hand side expression, e.g. "abs(3*k - z)"')
     .option('--rhs <expr>', 'right-hand side expression, > 0 on every row (repeat to compare candidates)', collect, [])
     .option('--from <exprs>', 'search the rhs among monomials of these positive quantities (comma-separated, 1 to 6)')
     .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. ratio=re(zb/za) (repeatable)', collect, [])

@@ -6,12 +6,13 @@
  *
  * At x = 1/2 (ω = −1) the matrix is 2(V + Vᵀ) and the signature is computed exactly. Elsewhere
  * the Hermitian matrix H = A + iB is embedded as the real symmetric [[A, −B], [B, A]] (each
- * eigenvalue of H appears twice) and diagonalised by cyclic Jacobi rotations (Golub & Van Loan,
- * "Matrix Computations", §8.5); eigenvalues with |λ| ≤ 1e-9·max(1, ‖H‖_F) count as zero. Near a
+ * eigenvalue of H appears twice); its inertia is counted by Householder tridiagonalisation and
+ * Sturm sequences (sturm.ts; Golub & Van Loan, "Matrix Computations", §8.3–8.4); eigenvalues with |λ| ≤ 1e-9·max(1, ‖H‖_F) count as zero. Near a
  * root of Δ the form degenerates; the result is reliable when x is farther than about 1e-6 from
  * every jump point.
  */
 import { symmetricSignature } from './exact.ts';
+import { symmetricInertiaFloat } from './sturm.ts';
 
 export const LT_ZERO_TOLERANCE = 1e-9;
 
@@ -50,7 +51,7 @@ export function symmetricEigenvalues(m: readonly (readonly number[])[]): number[
 
 /**
  * Inertia of the Hermitian form (1 − ω)V + (1 − ω̄)Vᵀ at ω = e^{2πix} (x not an integer), in
- * floating point: the real embedding's eigenvalues are halved in count, |λ| ≤ 1e-9·max(1, ‖H‖_F)
+ * floating point: the real embedding's inertia (sturm.ts) is halved in count, |λ| ≤ 1e-9·max(1, ‖H‖_F)
  * counts as zero.
  */
 export function hermitianInertia(V: readonly (readonly number[])[], x: number): { positive: number; negative: number; zero: number } {
@@ -61,27 +62,21 @@ export function hermitianInertia(V: readonly (readonly number[])[], x: number): 
   const c = 1 - Math.cos(th);
   const s = Math.sin(th);
   // H = (1 − ω)V + (1 − ω̄)Vᵀ: real part c(V + Vᵀ), imaginary part s(Vᵀ − V)
-  const big: number[][] = Array.from({ length: 2 * m }, () => new Array<number>(2 * m).fill(0));
+  const n = 2 * m;
+  const big = new Float64Array(n * n);
   let fro = 0;
   for (let i = 0; i < m; i++)
     for (let j = 0; j < m; j++) {
       const A = c * (V[i]![j]! + V[j]![i]!);
       const B = s * (V[j]![i]! - V[i]![j]!);
       fro += A * A + B * B;
-      big[i]![j] = A;
-      big[i + m]![j + m] = A;
-      big[i]![j + m] = -B;
-      big[i + m]![j] = B;
+      big[i * n + j] = A;
+      big[(i + m) * n + j + m] = A;
+      big[i * n + j + m] = -B;
+      big[(i + m) * n + j] = B;
     }
   const tol = LT_ZERO_TOLERANCE * Math.max(1, Math.sqrt(fro));
-  let positive = 0;
-  let negative = 0;
-  let zero = 0;
-  for (const l of symmetricEigenvalues(big)) {
-    if (l > tol) positive++;
-    else if (l < -tol) negative++;
-    else zero++;
-  }
+  const { positive, negative, zero } = symmetricInertiaFloat(big, n, tol);
   return { positive: positive / 2, negative: negative / 2, zero: zero / 2 };
 }
 

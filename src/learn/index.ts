@@ -1,4 +1,4 @@
-/** The learning stage: the network (engines: native ONNX runtime, tfjs wasm), baselines (constant, ridge) and metrics. */
+/** The learning stage: the network (engines: native ONNX runtime, tfjs wasm), baselines (constant, ridge), metrics and the predictability test (training repeats, skill, ablation). */
 export { ENGINES, ENGINE_CHOICES, loadEngine, engineFailure, defaultEngineChoice, type Engine, type EngineChoice, type EngineName } from './engines.ts';
 export { initBackend, ensureBackend, currentBackend, type BackendName } from './backend.ts';
 export { type TrainData } from './data.ts';
@@ -10,3 +10,9 @@ export { fitRidge, selectRidge, RIDGE_GRID, type RidgeModel, type RidgeSelection
 export { r2, rmse, mae, accuracy, balancedAccuracy } from './metrics.ts';
 export { evaluate, type Evaluation, type Predictor } from './evaluate.ts';
 export { trainMany, type TrainJob, type TrainManyOptions, type TrainManyReport } from './many.ts';
+export { planRepeats, rankSplitSpec, repeatData, type RepeatData, type RepeatPlan } from './repeats.ts';
+export { SkillTallies, skillWithout, trainingUsed, trainRepeats, type OnUnits, type RepeatFit, type RepeatSet, type SkillSet, type TrainingSettings, type TrainingUsed } from './predictability.ts';
+export { SkillTally, secondFigure, skillOf, type Figures, type Skill } from './skill.ts';
+export { batchSizeFor } from './batch-size.ts';
+export { roundedHitRate } from './rounded.ts';
+export { confusionCounts, type Confusion } from './confusion.ts';

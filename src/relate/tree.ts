@@ -11,7 +11,9 @@
  * So x^2 = 2, 1/x = 2, sqrt(x) = 2, p*q = 2, x^2/y = 4, (a + b)^2 = 4, log(a*b + 1) = 5.
  */
 
-export type UnaryFn = 'log' | 'exp' | 'sin' | 'cos' | 'abs';
+import { FN, type UnaryFn } from './terms/index.ts';
+
+export { FN, type UnaryFn };
 
 export type Tree =
   | { op: 'base'; id: number; text: string; cost: number }
@@ -69,8 +71,6 @@ export function applyNode(t: Tree, a: Float64Array, b: Float64Array | null, out:
   }
   return out;
 }
-
-export const FN: Record<UnaryFn, (x: number) => number> = { log: Math.log, exp: Math.exp, sin: Math.sin, cos: Math.cos, abs: Math.abs };
 
 /** Values of `t` on the rows `rows` of the base columns `bases[id]` (full-length arrays). */
 export function evaluateTree(t: Tree, bases: Float64Array[], rows: ArrayLike<number>): Float64Array {

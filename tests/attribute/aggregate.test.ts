@@ -87,23 +87,23 @@ describe('aggregation over repeats', () => {
 
 describe('groups', () => {
   it('a complex column’s two parts form one group named after it (project contract, DEVELOPERS.md)', () => {
-    expect(defaultGroups(['vol', 'mer.re', 'mer.im', 'x.re'])).toEqual([
-      { name: 'vol', members: [0] },
-      { name: 'mer', members: [1, 2] },
+    expect(defaultGroups(['amp', 'cza.re', 'cza.im', 'x.re'])).toEqual([
+      { name: 'amp', members: [0] },
+      { name: 'cza', members: [1, 2] },
       { name: 'x.re', members: [3] },
     ]);
   });
   it('declared groups take members by feature or column name; gradient group score = sum of members', () => {
-    const g = declareGroups(['a', 'b', 'mer.re', 'mer.im'], { ab: ['a', 'b'] });
+    const g = declareGroups(['a', 'b', 'cza.re', 'cza.im'], { ab: ['a', 'b'] });
     expect(g).toEqual([
       { name: 'ab', members: [0, 1] },
-      { name: 'mer', members: [2, 3] },
+      { name: 'cza', members: [2, 3] },
     ]);
     const s = sumOverGroups({ scores: Float64Array.from([1, 2, 3, 4]), n: 1, perRow: Float64Array.from([1, 2, 3, 4]) }, 4, g);
     expect(Array.from(s.scores)).toEqual([3, 7]);
     expect(Array.from(s.perRow!)).toEqual([3, 7]);
   });
   it('an unknown group member is refused with a suggestion', () => {
-    expect(() => declareGroups(['vol', 'inj'], { g: ['vol', 'inn'] })).toThrow(/'inn', which is not a feature \(did you mean 'inj'\?\)/);
+    expect(() => declareGroups(['amp', 'gap'], { g: ['amp', 'gab'] })).toThrow(/'gab', which is not a feature \(did you mean 'gap'\?\)/);
   });
 });

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { rankFeatures } from '../../src/attribute/rank.ts';
 import { noiseReference, planProbes, probeColumns } from '../../src/attribute/probes.ts';
-import { roundedHitRate } from '../../src/attribute/rounded.ts';
+import { roundedHitRate } from '../../src/learn/rounded.ts';
 import { tableFromColumns } from '../../src/table/columns.ts';
 import { buildDataset } from '../../src/table/dataset.ts';
 import type { Column } from '../../src/table/types.ts';

@@ -1,6 +1,6 @@
 /**
  * A realistic, invented report input for the tests (neutral names): a table of n rows where
- * z = 2k + 0.1·(b/w)·u³ (u uniform on (−1, 1)) and a "thin" sub-family has small w. Every number is computed from the generated rows, so the bound's constant, its witness and
+ * z = 3k + 0.1·(b·w)·u³ (u uniform on (−1, 1)) and a "wide" sub-family has large w. Every number is computed from the generated rows, so the bound's constant, its witness and
  * its strata are consistent with each other.
  */
 import { Rng } from '../../src/util/rng.ts';
@@ -9,53 +9,53 @@ import type { ReportInput, ReportBoundResult } from '../../src/report/types.ts';
 export const EVIL = '<img src=x onerror=alert(1)>';
 
 export interface FixtureRows {
-  sig: number[];
-  slope: number[];
-  vol: number[];
-  inj: number[];
+  k: number[];
+  z: number[];
+  b: number[];
+  w: number[];
   family: string[];
   rec: string[];
 }
 
 export function makeRows(n: number, seed: number): FixtureRows {
   const rng = new Rng(seed);
-  const r: FixtureRows = { sig: [], slope: [], vol: [], inj: [], family: [], rec: [] };
+  const r: FixtureRows = { k: [], z: [], b: [], w: [], family: [], rec: [] };
   for (let i = 0; i < n; i++) {
-    const twisted = rng.next() < 0.2;
-    const twist = 1 + rng.int(12);
-    const inj = twisted ? 1.2 / twist : rng.uniform(0.3, 1.0);
-    const vol = rng.uniform(2, 20);
-    const sig = 2 * (rng.int(11) - 5);
+    const wide = rng.next() < 0.2;
+    const m = 1 + rng.int(12);
+    const w = wide ? 0.9 * m : rng.uniform(1, 3);
+    const b = rng.uniform(2, 20);
+    const k = rng.int(11) - 5;
     const u = rng.uniform(-1, 1);
-    r.sig.push(sig);
-    r.inj.push(inj);
-    r.vol.push(vol);
-    r.slope.push(2 * sig + 0.1 * (vol / inj) * u ** 3);
-    r.family.push(twisted ? 'thin' : 'main');
+    r.k.push(k);
+    r.w.push(w);
+    r.b.push(b);
+    r.z.push(3 * k + 0.1 * b * w * u ** 3);
+    r.family.push(wide ? 'wide' : 'main');
     r.rec.push(`R${i + 1}`);
   }
   return r;
 }
 
-/** The result of the bound lhs ≤ c·rhs computed straight from the rows, strata by quantiles of inj. */
+/** The result of the bound lhs ≤ c·rhs computed straight from the rows, strata by quantiles of w. */
 export function boundResult(rows: FixtureRows, rhsName: string, rhs: number[], withEvilLabel: boolean): ReportBoundResult {
-  const n = rows.sig.length;
-  const ratio = rows.sig.map((s, i) => Math.abs(2 * s - rows.slope[i]!) / rhs[i]!);
+  const n = rows.k.length;
+  const ratio = rows.k.map((s, i) => Math.abs(3 * s - rows.z[i]!) / rhs[i]!);
   const order = ratio.map((_, i) => i).sort((a, b) => ratio[b]! - ratio[a]!);
   const witnesses = order.slice(0, 5).map((i) => ({
     row: i + 1,
-    lhs: Math.abs(2 * rows.sig[i]! - rows.slope[i]!),
+    lhs: Math.abs(3 * rows.k[i]! - rows.z[i]!),
     rhs: rhs[i]!,
     ratio: ratio[i]!,
     labels: { name: rows.rec[i]!, family: rows.family[i]!, ...(withEvilLabel ? { note: EVIL } : {}) },
   }));
-  const byOrder = rows.inj.map((_, i) => i).sort((a, b) => rows.inj[a]! - rows.inj[b]!);
+  const byOrder = rows.w.map((_, i) => i).sort((a, b) => rows.w[a]! - rows.w[b]!);
   const strata = [];
   for (let k = 0; k < 5; k++) {
     const part = byOrder.slice(Math.floor((k * n) / 5), Math.floor(((k + 1) * n) / 5));
     strata.push({
-      low: rows.inj[part[0]!]!,
-      high: rows.inj[part[part.length - 1]!]!,
+      low: rows.w[part[0]!]!,
+      high: rows.w[part[part.length - 1]!]!,
       n: part.length,
       constant: Math.max(...part.map((i) => ratio[i]!)),
     });
@@ -69,8 +69,8 @@ export function boundResult(rows: FixtureRows, rhsName: string, rhs: number[], w
   const my = ys.reduce((a, b) => a + b, 0) / ys.length;
   const slope =
     xs.reduce((a, x, k) => a + (x - mx) * (ys[k]! - my), 0) / xs.reduce((a, x) => a + (x - mx) ** 2, 0);
-  // The fixture's trend is stated along -inj (growth as inj shrinks), as a bound stage would.
-  const grows = -slope > 0 && ys[0]! > 2 * ys[ys.length - 1]!;
+  // The fixture's trend is stated along w (growth as w increases), as a bound stage would.
+  const grows = slope > 0 && ys[ys.length - 1]! > 2 * ys[0]!;
   return {
     rhs: rhsName,
     constant: sorted[n - 1]!,
@@ -78,9 +78,9 @@ export function boundResult(rows: FixtureRows, rhsName: string, rhs: number[], w
     quantiles: { '0.5': q(0.5), '0.9': q(0.9), '0.99': q(0.99), '1': sorted[n - 1]! },
     strata,
     trend: grows
-      ? { slope: -slope, low: -slope * 0.6, high: -slope * 1.4, verdict: 'grows' }
-      : { slope: -slope, low: -Math.abs(slope) - 0.01, high: Math.abs(slope) + 0.01, verdict: 'flat' },
-    points: { by: rows.inj.slice(), ratio },
+      ? { slope, low: slope * 0.6, high: slope * 1.4, verdict: 'grows' }
+      : { slope, low: -Math.abs(slope) - 0.01, high: Math.abs(slope) + 0.01, verdict: 'flat' },
+    points: { by: rows.w.slice(), ratio },
   };
 }
 
@@ -97,7 +97,7 @@ export function makeInput(n: number, seed = 7, evil = true): ReportInput {
         return { feature, score: s, low: s * 0.9, high: s * 1.1 };
       })
       .sort((a, b) => b.score - a.score);
-  const residual = rows.slope.map((s, i) => s - 2 * rows.sig[i]!);
+  const residual = rows.z.map((s, i) => s - 3 * rows.k[i]!);
   return {
     title: 'k against an invented table',
     createdAt: '2026-01-02T03:04:05Z',
@@ -120,9 +120,9 @@ export function makeInput(n: number, seed = 7, evil = true): ReportInput {
         permutation: { ranking: method(0.4), kendallTau: 0.79 },
       },
       ranking: feats.map((feature, k) => ({ feature, score: base[k]!, low: base[k]! * 0.92, high: base[k]! * 1.08 })),
-      predictions: { actual: rows.sig.slice(), predicted: rows.sig.map((s) => s + 0.8 * rng.normal()) },
+      predictions: { actual: rows.k.slice(), predicted: rows.k.map((s) => s + 0.4 * rng.normal()) },
     },
-    scatter: { x: rows.slope.slice(), y: rows.sig.slice(), color: rows.vol.slice(), xName: 'z', yName: 'k', colorName: 'b' },
+    scatter: { x: rows.z.slice(), y: rows.k.slice(), color: rows.b.slice(), xName: 'z', yName: 'k', colorName: 'b' },
     fits: [
       {
         target: 'z',
@@ -131,32 +131,32 @@ export function makeInput(n: number, seed = 7, evil = true): ReportInput {
         rmse: 0.5012,
         cvRmse: 0.5034,
         terms: [
-          { term: 'k', coef: 2.0003, se: 0.0011, low: 1.9981, high: 2.0025, rational: { text: '2' } },
+          { term: 'k', coef: 3.0003, se: 0.0011, low: 2.9981, high: 3.0025, rational: { text: '3' } },
           { term: '1', coef: -0.0012, se: 0.0041, low: -0.0092, high: 0.0068, rational: { text: '0' } },
         ],
         warnings: evil ? [`column ${EVIL} is nearly constant`] : [],
-        residuals: { byTerm: [{ term: 'k', x: rows.sig.slice() }], residual },
+        residuals: { byTerm: [{ term: 'k', x: rows.k.slice() }], residual },
       },
     ],
     search: {
       mode: 'exhaustive',
       candidates: [
-        { terms: ['k'], coefs: [2.0003], heldOutRmse: 0.503, complexity: 1 },
-        { terms: ['k', 'b'], coefs: [2.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
+        { terms: ['k'], coefs: [3.0003], heldOutRmse: 0.503, complexity: 1 },
+        { terms: ['k', 'b'], coefs: [3.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
         { terms: ['b'], coefs: [0.1], heldOutRmse: 6.1, complexity: 1 },
       ],
       front: [
-        { terms: ['k'], coefs: [2.0003], heldOutRmse: 0.503, complexity: 1 },
-        { terms: ['k', 'b'], coefs: [2.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
+        { terms: ['k'], coefs: [3.0003], heldOutRmse: 0.503, complexity: 1 },
+        { terms: ['k', 'b'], coefs: [3.0001, 0.0004], heldOutRmse: 0.5029, complexity: 2 },
       ],
     },
     bounds: [
       {
-        lhs: '|2*k - z|',
+        lhs: '|3*k - z|',
         by: 'w',
         results: [
-          boundResult(rows, 'b/w', rows.vol.map((v, i) => v / rows.inj[i]!), evil),
-          boundResult(rows, 'b', rows.vol.slice(), evil),
+          boundResult(rows, 'b*w', rows.b.map((v, i) => v * rows.w[i]!), evil),
+          boundResult(rows, 'b', rows.b.slice(), evil),
         ],
       },
     ],

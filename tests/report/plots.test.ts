@@ -59,7 +59,7 @@ describe('plot specs render to SVG with the expected marks', () => {
 
   it('predicted against actual: the points and the line y = x', async () => {
     const p = input.rank!.predictions!;
-    const svg = await specToSvg(predictionSpec('sig', p, 700, 3), 'g');
+    const svg = await specToSvg(predictionSpec('k', p, 700, 3), 'g');
     expect(countMarks(svg, 'points')).toBe(700);
     expect(countMarks(svg, 'identity')).toBe(1);
     // the identity line goes from the bottom-left to the top-right corner of the square plot
@@ -71,14 +71,14 @@ describe('plot specs render to SVG with the expected marks', () => {
 
   it('residuals: points and the zero line', async () => {
     const f = input.fits![0]!;
-    const svg = await specToSvg(residualSpec('slope', 'sig', f.residuals!.byTerm[0]!.x, f.residuals!.residual, 600, 2), 'h');
+    const svg = await specToSvg(residualSpec('z', 'k', f.residuals!.byTerm[0]!.x, f.residuals!.residual, 600, 2), 'h');
     expect(countMarks(svg, 'points')).toBe(600);
     expect(countMarks(svg, 'zero')).toBe(1);
   });
 
   it('bound: sampled ratios keep the witness, one segment per stratum, the overall constant', async () => {
     const r = input.bounds![0]!.results[0]!;
-    const spec = boundSpec('|2*sig - slope|', 'inj', r, 400, 5);
+    const spec = boundSpec('|3*k - z|', 'w', r, 400, 5);
     const svg = await specToSvg(spec, 'i');
     expect(countMarks(svg, 'points')).toBe(400);
     expect(countMarks(svg, 'strata')).toBe(r.strata.length);
@@ -92,15 +92,15 @@ describe('plot specs render to SVG with the expected marks', () => {
   it('bound: witness rows are ringed, and both axes are logarithmic when every value is positive', async () => {
     const r0 = input.bounds![0]!.results[0]!;
     const r = { ...r0, witnesses: r0.witnesses.map((w, k) => ({ ...w, by: r0.strata[0]!.low + k * 1e-3 })) };
-    const spec = boundSpec('|2*sig - slope|', 'inj', r, 400, 5);
+    const spec = boundSpec('|3*k - z|', 'w', r, 400, 5);
     const svg = await specToSvg(spec, 'w');
     expect(countMarks(svg, 'witnesses')).toBe(r.witnesses.length);
     const layers = spec.layer as Array<{ name: string; encoding: { x: { scale: { type?: string } }; y: { scale: { type?: string } } } }>;
     const positive = r.points!.by.every((v) => v > 0) && r.points!.ratio.every((v) => !Number.isFinite(v) || v > 0);
-    expect(positive).toBe(true); // the fixture: inj > 0 and ratios > 0
+    expect(positive).toBe(true); // the fixture: w > 0 and ratios > 0
     for (const l of layers.filter((x) => x.name !== 'overall')) expect([l.encoding.x.scale.type, l.encoding.y.scale.type]).toEqual(['log', 'log']);
     // a ratio ≤ 0 among the points switches the ratio axis back to linear
-    const flat = boundSpec('|2*sig - slope|', 'inj', { ...r, points: { by: r.points!.by, ratio: r.points!.ratio.map((v, i) => (i === 0 ? 0 : v)) } }, 400, 5);
+    const flat = boundSpec('|3*k - z|', 'w', { ...r, points: { by: r.points!.by, ratio: r.points!.ratio.map((v, i) => (i === 0 ? 0 : v)) } }, 400, 5);
     expect((flat.layer as typeof layers).find((l) => l.name === 'points')!.encoding.y.scale.type).toBeUndefined();
   });
 

@@ -37,10 +37,10 @@ describe('the summary', () => {
     const top = [...input.rank!.ranking].sort((a, b) => b.score - a.score)[0]!.feature;
     expect(keyed(out.html, 'top-feature')).toBe(top);
     expect(out.markdown).toContain(`matter most for \`k\`: \`${top}\``);
-    // the constant: the planted law |2k − z| = 0.1·(b/w)·|u|³ ≤ 0.1·b/w (by construction
+    // the constant: the planted law |3k − z| = 0.1·(b·w)·|u|³ ≤ 0.1·b·w (by construction
     // of the invented table), so c* is the largest ratio over the rows, and below 0.1
     const rows = makeRows(2000, 7);
-    const cStar = max(rows.sig.map((s, i) => Math.abs(2 * s - rows.slope[i]!) / (rows.vol[i]! / rows.inj[i]!)));
+    const cStar = max(rows.k.map((s, i) => Math.abs(3 * s - rows.z[i]!) / (rows.b[i]! * rows.w[i]!)));
     expect(cStar).toBeLessThanOrEqual(0.1);
     const c = formatNumber(cStar);
     expect(keyed(out.html, 'bound-0-0-constant')).toBe(c);
@@ -48,7 +48,7 @@ describe('the summary', () => {
     expect(out.markdown).toContain(`holds on every row with c = **${c}**`);
     expect(out.markdown).toContain(`Smallest constant that holds on every row: c = **${c}**`);
     // the witness row is the row attaining it
-    const wRow = rows.sig.findIndex((s, i) => Math.abs(2 * s - rows.slope[i]!) / (rows.vol[i]! / rows.inj[i]!) === cStar) + 1;
+    const wRow = rows.k.findIndex((s, i) => Math.abs(3 * s - rows.z[i]!) / (rows.b[i]! * rows.w[i]!) === cStar) + 1;
     expect(keyed(out.html, 'bound-0-0-row')).toBe(String(wRow));
     expect(out.markdown).toContain(`attained at row ${wRow} `);
   });
@@ -57,9 +57,9 @@ describe('the summary', () => {
     expect(keyed(out.html, 'network-score')).toBe('0.93');
     expect(out.markdown).toContain('k is predictable from these columns, and not only linearly');
     // the summary's best formula is the search's (smallest held-out error), not the fit the user typed
-    expect(keyed(out.html, 'best-formula')).toBe('2*k + 4e-4*b');
-    expect(out.markdown).toContain('Best formula found by the search: `2*k + 4e-4*b` (held-out RMSE 0.5029');
-    expect(out.markdown).toContain('Fit you asked for: `z ≈ 2*k - 0.0012`');
+    expect(keyed(out.html, 'best-formula')).toBe('3*k + 4e-4*b');
+    expect(out.markdown).toContain('Best formula found by the search: `3*k + 4e-4*b` (held-out RMSE 0.5029');
+    expect(out.markdown).toContain('Fit you asked for: `z ≈ 3*k - 0.0012`');
     // the headline block carries the same figures
     expect(keyed(out.html, 'headline-skill')).toBe('0.93');
     expect(out.html).toContain('<section class="headline">');
@@ -68,7 +68,7 @@ describe('the summary', () => {
   it('flags the bound whose constant grows along the sub-family and not the one that holds', () => {
     const flags = out.markdown.split('\n').filter((l) => l.startsWith('> **Flag:**'));
     expect(flags.some((l) => l.includes('c * (b)`') && l.includes('is not stable along w'))).toBe(true);
-    expect(flags.some((l) => l.includes('(b/w)'))).toBe(false);
+    expect(flags.some((l) => l.includes('(b*w)'))).toBe(false);
   });
 
   it('says once, in both files, that this is evidence and not proof', () => {

@@ -29,12 +29,12 @@ describe('equations', () => {
     expect(equation('y', t, true)).toBe('y ≈ (1/2)*x + 3');
   });
   it('handles signs, unit coefficients, zero fractions and compound terms', () => {
-    const t = [term('sig', 2.0003, '2'), term('vol/inj', -0.25, '-1/4'), term('intercept', -0.0012, '0')];
-    expect(equation('slope', t, false)).toBe('slope ≈ 2*sig - 0.25*(vol/inj) - 0.0012');
-    expect(equation('slope', t, true)).toBe('slope ≈ 2*sig - (1/4)*(vol/inj)');
+    const t = [term('k', 3.0003, '3'), term('b/w', -0.25, '-1/4'), term('intercept', -0.0012, '0')];
+    expect(equation('z', t, false)).toBe('z ≈ 3*k - 0.25*(b/w) - 0.0012');
+    expect(equation('z', t, true)).toBe('z ≈ 3*k - (1/4)*(b/w)');
     expect(equation('y', [term('x', 1, '1')], true)).toBe('y ≈ x');
     expect(equation('y', [term('x', 1, null)], true)).toBeNull();
-    expect(candidateExpression(['sig', 'vol'], [2.0001, 0.0004])).toBe('2*sig + 4e-4*vol');
+    expect(candidateExpression(['k', 'b'], [3.0001, 0.0004])).toBe('3*k + 4e-4*b');
     expect(isIntercept('(Intercept)')).toBe(true);
   });
 });
@@ -47,7 +47,7 @@ describe('trend flags', () => {
     expect(trendGrows({ slope: 0.1, low: -0.2, high: 0.4, verdict: 'grows' })).toBe(true);
     expect(trendGrows(null)).toBe(false);
     expect(trendGrows({ slope: null, low: null, high: null, verdict: 'undetermined: too few strata' })).toBe(false);
-    expect(trendGrows({ slope: 0.01, low: -0.1, high: 0.12, verdict: 'bounded: no trend along inj (interval contains 0)' })).toBe(false);
-    expect(trendGrows({ slope: -0.9, low: null, high: null, verdict: 'unbounded: grows as inj decreases' })).toBe(true);
+    expect(trendGrows({ slope: 0.01, low: -0.1, high: 0.12, verdict: 'bounded: no trend along gap (interval contains 0)' })).toBe(false);
+    expect(trendGrows({ slope: -0.9, low: null, high: null, verdict: 'unbounded: grows as gap decreases' })).toBe(true);
   });
 });

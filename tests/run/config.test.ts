@@ -37,9 +37,9 @@ describe('run configuration', () => {
   });
 
   it('reads the discover key with the bound stage\'s defaults and ranges', () => {
-    const { config } = parseConfig('table: a.csv\ntarget: y\ndiscover:\n  - lhs: y\n    from: [vol, inj]\n', 'cfg.yaml');
-    expect(config.discover[0]).toMatchObject({ lhs: 'y', from: ['vol', 'inj'], lower: false, maxExponent: 4, maxDenominator: 4, proposals: 5, top: 5, bins: 10 });
-    expect(refusal('table: a.csv\ntarget: y\ndiscover:\n  - lhs: y\n    from: vol\n    maxExponent: 40\n').message).toMatch(/^cfg\.yaml:6:18: discover\[0\]\.maxExponent: /);
+    const { config } = parseConfig('table: a.csv\ntarget: y\ndiscover:\n  - lhs: y\n    from: [amp, gap]\n', 'cfg.yaml');
+    expect(config.discover[0]).toMatchObject({ lhs: 'y', from: ['amp', 'gap'], lower: false, maxExponent: 4, maxDenominator: 4, proposals: 5, top: 5, bins: 10 });
+    expect(refusal('table: a.csv\ntarget: y\ndiscover:\n  - lhs: y\n    from: amp\n    maxExponent: 40\n').message).toMatch(/^cfg\.yaml:6:18: discover\[0\]\.maxExponent: /);
   });
 
   it('refuses an empty list where one item is needed', () => {

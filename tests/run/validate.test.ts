@@ -8,7 +8,7 @@ import { memoryIO } from '../../src/cli/io.ts';
 // A configuration is checked against the table before any training: a typo costs seconds.
 describe('configuration checked against the table before training', () => {
   const dir = mkdtempSync(join(tmpdir(), 'surmise-validate-'));
-  writeFileSync(join(dir, 't.csv'), 'x,y,inj\n1,2,0.5\n2,4,0.25\n3,6,0.125\n4,8,0.3\n');
+  writeFileSync(join(dir, 't.csv'), 'x,y,gap\n1,2,0.5\n2,4,0.25\n3,6,0.125\n4,8,0.3\n');
 
   async function refusal(yaml: string): Promise<string> {
     writeFileSync(join(dir, 'c.yaml'), yaml);
@@ -20,11 +20,11 @@ describe('configuration checked against the table before training', () => {
   }
 
   it('names the key and its line for an unknown column in a bound', async () => {
-    const err = await refusal('table: t.csv\ntarget: y\nbounds:\n  - lhs: y\n    rhs: [x/injj]\n');
+    const err = await refusal('table: t.csv\ntarget: y\nbounds:\n  - lhs: y\n    rhs: [x/gapp]\n');
     expect(err.split('\n')[0]).toBe(
-      "surmise: c.yaml:5:11: bounds[0].rhs[0]: unknown column 'injj' at position 3 of the expression (table " +
+      "surmise: c.yaml:5:11: bounds[0].rhs[0]: unknown column 'gapp' at position 3 of the expression (table " +
         join(dir, 't.csv') +
-        ") (did you mean 'inj'?)",
+        ") (did you mean 'gap'?)",
     );
     expect(err).toContain('[expr.unknownColumn]');
   });

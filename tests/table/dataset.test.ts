@@ -22,10 +22,10 @@ function knots(): Table {
     columns: [
       label('name', ['a', 'b', 'c', 'd', 'e', 'f', 'g', 'h']),
       real('xings', [3, 4, 5, 5, 6, 6, 7, 7], 'integer'),
-      real('vol', [1, 2, M, 3, NaN, 4, 4, Infinity], 'real', [2]),
-      real('inj', [0.5, 0.6, 0.7, M, 0.9, 1.0, 1.0, 1.2], 'real', [3]),
-      cplx('mer', [1, 1, 1, 1, 1, 1, 1, 1], [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.6, 0.8]),
-      cplx('lon', [2, 4, 6, 8, 10, 12, 12, 16], [3, 1, 0, 2, 1, 1, 1, 3]),
+      real('amp', [1, 2, M, 3, NaN, 4, 4, Infinity], 'real', [2]),
+      real('gap', [0.5, 0.6, 0.7, M, 0.9, 1.0, 1.0, 1.2], 'real', [3]),
+      cplx('cza', [1, 1, 1, 1, 1, 1, 1, 1], [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.6, 0.8]),
+      cplx('czb', [2, 4, 6, 8, 10, 12, 12, 16], [3, 1, 0, 2, 1, 1, 1, 3]),
       real('sig', [-2, 0, -4, 2, 0, -2, -2, 4], 'integer'),
     ],
   };
@@ -36,25 +36,25 @@ const err = caught;
 describe('buildDataset', () => {
   it('defaults: every numeric column but the target is a feature; complex columns split in one group', () => {
     const d = buildDataset(knots(), { target: 'sig' });
-    expect(d.featureNames).toEqual(['xings', 'vol', 'inj', 'mer.re', 'mer.im', 'lon.re', 'lon.im']);
+    expect(d.featureNames).toEqual(['xings', 'amp', 'gap', 'cza.re', 'cza.im', 'czb.re', 'czb.im']);
     expect(d.groups).toEqual([
       { name: 'xings', members: [0] },
-      { name: 'vol', members: [1] },
-      { name: 'inj', members: [2] },
-      { name: 'mer', members: [3, 4] },
-      { name: 'lon', members: [5, 6] },
+      { name: 'amp', members: [1] },
+      { name: 'gap', members: [2] },
+      { name: 'cza', members: [3, 4] },
+      { name: 'czb', members: [5, 6] },
     ]);
     expect(d.targetKind).toBe('integer');
   });
   it('drops rows with missing, NaN or infinite used values and counts each per column and reason', () => {
     const d = buildDataset(knots(), { target: 'sig' });
-    // by hand: row 2 vol missing, row 3 inj missing, row 4 vol nan, row 7 vol infinite;
-    // row 6 repeats row 5 in every used column except... (vol 4 = 4, inj 1 = 1, mer, lon equal, sig -2 = -2, xings 6 vs 7) → not a duplicate
+    // by hand: row 2 amp missing, row 3 gap missing, row 4 amp nan, row 7 amp infinite;
+    // row 6 repeats row 5 in every used column except... (amp 4 = 4, gap 1 = 1, cza, czb equal, sig -2 = -2, xings 6 vs 7) → not a duplicate
     expect(d.drops.dropped).toEqual([
-      { column: 'vol', reason: 'missing', rows: 1 },
-      { column: 'vol', reason: 'nan', rows: 1 },
-      { column: 'vol', reason: 'infinite', rows: 1 },
-      { column: 'inj', reason: 'missing', rows: 1 },
+      { column: 'amp', reason: 'missing', rows: 1 },
+      { column: 'amp', reason: 'nan', rows: 1 },
+      { column: 'amp', reason: 'infinite', rows: 1 },
+      { column: 'gap', reason: 'missing', rows: 1 },
     ]);
     expect(d.drops.invalidRows).toBe(4);
     expect(d.drops.duplicates).toBe(0);
@@ -75,7 +75,7 @@ describe('buildDataset', () => {
     expect(formatDropReport(d.drops)).toBe('kept 2 of 3 rows; dropped 1 row with missing or non-finite values (a: 1 nan; b: 1 infinite)');
   });
   it('drops exact duplicates of the used columns after the first, and by key when asked', () => {
-    const d = buildDataset(knots(), { target: 'sig', features: ['vol', 'inj', 'mer', 'lon'] });
+    const d = buildDataset(knots(), { target: 'sig', features: ['amp', 'gap', 'cza', 'czb'] });
     // without xings, rows 5 and 6 agree in every used column → one duplicate
     expect(d.drops.duplicates).toBe(1);
     expect(Array.from(d.rows)).toEqual([0, 1, 5]);
@@ -87,14 +87,14 @@ describe('buildDataset', () => {
     // valid rows' sig: -2, 0, -2, -2 → rows 5 and 6 repeat row 0
     expect(k2.drops.duplicates).toBe(2);
     expect(Array.from(k2.rows)).toEqual([0, 1]);
-    const none = buildDataset(knots(), { target: 'sig', features: ['vol', 'inj', 'mer', 'lon'], dedupe: 'none' });
+    const none = buildDataset(knots(), { target: 'sig', features: ['amp', 'gap', 'cza', 'czb'], dedupe: 'none' });
     expect(none.drops.duplicates).toBe(0);
     expect(none.drops.keptRows).toBe(4);
   });
   it('derives columns first; a derived target leaves its inputs out of the default features', () => {
-    const d = buildDataset(knots(), { target: 'slope', derive: [{ name: 'slope', source: 're(lon/mer)' }] });
-    expect(d.targetInputs.sort()).toEqual(['lon', 'mer', 'slope']);
-    expect(d.featureNames).toEqual(['xings', 'vol', 'inj', 'sig']);
+    const d = buildDataset(knots(), { target: 'q', derive: [{ name: 'q', source: 're(czb/cza)' }] });
+    expect(d.targetInputs.sort()).toEqual(['cza', 'czb', 'q']);
+    expect(d.featureNames).toEqual(['xings', 'amp', 'gap', 'sig']);
     // row 0: (2+3i)/(1+0.1i) = (2+3i)(1−0.1i)/1.01 = (2.3+2.8i)/1.01 → re = 2.3/1.01 (by hand)
     expect(d.y[0]).toBeCloseTo(2.3 / 1.01, 14);
     expect(d.targetKind).toBe('real');
@@ -103,21 +103,21 @@ describe('buildDataset', () => {
     const d = buildDataset(knots(), {
       target: 'abs(sig) / 2',
       features: ['xings', 'v2'],
-      derive: [{ name: 'v2', source: 'vol^2' }],
+      derive: [{ name: 'v2', source: 'amp^2' }],
     });
     expect(d.featureNames).toEqual(['xings', 'v2']);
     expect(d.targetName).toBe('abs(sig) / 2');
-    // by hand: inj is not used, so only vol's bad rows 2, 4, 7 go; kept rows 0, 1, 3, 5, 6
+    // by hand: gap is not used, so only amp's bad rows 2, 4, 7 go; kept rows 0, 1, 3, 5, 6
     expect(Array.from(d.rows)).toEqual([0, 1, 3, 5, 6]);
     expect(Array.from(d.y)).toEqual([1, 0, 1, 1, 1]);
     expect(Array.from(d.x[1]!)).toEqual([1, 4, 9, 16, 16]);
   });
   it('merges user groups with complex groups', () => {
-    const d = buildDataset(knots(), { target: 'sig', features: ['vol', 'mer', 'lon', 'inj'], groups: { cusp: ['mer', 'lon'] } });
+    const d = buildDataset(knots(), { target: 'sig', features: ['amp', 'cza', 'czb', 'gap'], groups: { cusp: ['cza', 'czb'] } });
     expect(d.groups).toEqual([
-      { name: 'vol', members: [0] },
+      { name: 'amp', members: [0] },
       { name: 'cusp', members: [1, 2, 3, 4] },
-      { name: 'inj', members: [5] },
+      { name: 'gap', members: [5] },
     ]);
   });
   it('errors name the column and suggest the nearest', () => {
@@ -125,15 +125,15 @@ describe('buildDataset', () => {
     expect(e.code).toBe('dataset.unknownColumn');
     expect(e.message).toMatch(/^target 'sigg' is not a column of the table \(did you mean 'sig'\?\)/);
     expect(err(() => buildDataset(knots(), { target: 'sig', features: ['volume'] })).code).toBe('dataset.unknownColumn');
-    expect(err(() => buildDataset(knots(), { target: 'sig', exclude: ['inj2'] })).message).toMatch(/did you mean 'inj'/);
+    expect(err(() => buildDataset(knots(), { target: 'sig', exclude: ['gap2'] })).message).toMatch(/did you mean 'gap'/);
     expect(err(() => buildDataset(knots(), { target: 'name' })).code).toBe('dataset.labelTarget');
-    expect(err(() => buildDataset(knots(), { target: 'lon' })).code).toBe('dataset.complexTarget');
-    expect(err(() => buildDataset(knots(), { target: 'sig', features: ['sig', 'vol'] })).code).toBe('dataset.targetAsFeature');
+    expect(err(() => buildDataset(knots(), { target: 'czb' })).code).toBe('dataset.complexTarget');
+    expect(err(() => buildDataset(knots(), { target: 'sig', features: ['sig', 'amp'] })).code).toBe('dataset.targetAsFeature');
     expect(err(() => buildDataset(knots(), { target: 'sig', features: ['name'] })).code).toBe('dataset.labelFeature');
-    expect(err(() => buildDataset(knots(), { target: 'sig', derive: [{ name: 'vol', source: 'inj' }] })).code).toBe('table.duplicateColumn');
+    expect(err(() => buildDataset(knots(), { target: 'sig', derive: [{ name: 'amp', source: 'gap' }] })).code).toBe('table.duplicateColumn');
     expect(err(() => buildDataset(knots(), { target: 'sig', dedupe: 'key' })).code).toBe('dataset.badSpec');
-    expect(err(() => buildDataset(knots(), { target: 'sig', groups: { g: ['vol'], h: ['vol'] } })).code).toBe('dataset.badGroup');
-    expect(err(() => buildDataset(knots(), { target: 'vol + nope' })).code).toBe('expr.unknownColumn');
+    expect(err(() => buildDataset(knots(), { target: 'sig', groups: { g: ['amp'], h: ['amp'] } })).code).toBe('dataset.badGroup');
+    expect(err(() => buildDataset(knots(), { target: 'amp + nope' })).code).toBe('expr.unknownColumn');
     const clash: Table = { source: 't', nRows: 2, columns: [cplx('z', [1, 2], [3, 4]), real('z.re', [5, 6]), real('y', [1, 2])] };
     expect(err(() => buildDataset(clash, { target: 'y' })).code).toBe('dataset.nameClash');
   });
@@ -144,11 +144,11 @@ describe('buildDataset', () => {
     expect(e.message).toMatch(/kept 0 of 2 rows; dropped 2 rows with missing or non-finite values \(a: 2 nan\)/);
   });
   it('keeps numeric columns as labels on request, and the target part of a complex column', () => {
-    const d = buildDataset(knots(), { target: 'lon.re', features: ['vol', 'lon.im'], keepLabels: ['xings'] });
+    const d = buildDataset(knots(), { target: 'czb.re', features: ['amp', 'czb.im'], keepLabels: ['xings'] });
     expect(Object.keys(d.labels)).toEqual(['name', 'xings']);
-    // by hand: vol's bad rows 2, 4, 7 go; row 6 repeats row 5 in lon.re, vol and lon.im
+    // by hand: amp's bad rows 2, 4, 7 go; row 6 repeats row 5 in czb.re, amp and czb.im
     expect(d.labels.xings).toEqual(['3', '4', '5', '6']);
-    expect(d.featureNames).toEqual(['vol', 'lon.im']);
+    expect(d.featureNames).toEqual(['amp', 'czb.im']);
     expect(Array.from(d.y)).toEqual([2, 4, 8, 12]);
     expect(d.drops.duplicates).toBe(1);
   });

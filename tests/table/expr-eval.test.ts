@@ -155,13 +155,13 @@ describe('evaluateExpression: choices for negative bases and branches', () => {
 });
 
 describe('deriveColumn', () => {
-  const t = table([real('xings', [3, 4, 5], 'integer'), real('vol', [0, 2.03, 2.83]), cplx('z', [1, 2, 3], [1, 0, -1])], 3);
+  const t = table([real('xings', [3, 4, 5], 'integer'), real('amp', [0, 2.03, 2.83]), cplx('z', [1, 2, 3], [1, 0, -1])], 3);
   it('chooses integer, real or complex by construction and by value', () => {
     expect(deriveColumn(t, 'k', 'xings^2 - 2*xings').kind).toBe('integer');
-    expect(deriveColumn(t, 'k', 'floor(vol)').kind).toBe('integer');
-    expect(deriveColumn(t, 'k', '(xings <= 4) + sign(vol)').kind).toBe('integer');
+    expect(deriveColumn(t, 'k', 'floor(amp)').kind).toBe('integer');
+    expect(deriveColumn(t, 'k', '(xings <= 4) + sign(amp)').kind).toBe('integer');
     expect(deriveColumn(t, 'k', 'xings / 1').kind).toBe('real'); // division is never integer by construction
-    expect(deriveColumn(t, 'k', 'vol * 2').kind).toBe('real');
+    expect(deriveColumn(t, 'k', 'amp * 2').kind).toBe('real');
     const c = deriveColumn(t, 'zz', 'z * conj(z) + i');
     expect(c.kind).toBe('complex');
     expect(c.name).toBe('zz');

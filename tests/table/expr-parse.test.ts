@@ -59,7 +59,7 @@ describe('parseExpression: precedence and associativity', () => {
     }
   });
   it('reads names with dots, backquoted names and the constants pi, e, i', () => {
-    expect(expressionColumns(parseExpression('lon.re + `my col` * `a``b` + pi + e + i'))).toEqual(['lon.re', 'my col', 'a`b']);
+    expect(expressionColumns(parseExpression('czb.re + `my col` * `a``b` + pi + e + i'))).toEqual(['czb.re', 'my col', 'a`b']);
     expect(parseExpression('`pi`')).toMatchObject({ type: 'column', name: 'pi' });
     expect(parseExpression('pi')).toMatchObject({ type: 'constant', name: 'pi' });
   });
@@ -70,17 +70,17 @@ describe('parseExpression: precedence and associativity', () => {
 
 describe('parseExpression: errors', () => {
   it('shows the expression with a caret under the offending place (the documented example)', () => {
-    expect(messageOf(() => parseExpression('vol * * inj'))).toBe(
-      "cannot read expression at position 7: expected a value after '*'\n  vol * * inj\n        ^",
+    expect(messageOf(() => parseExpression('amp * * gap'))).toBe(
+      "cannot read expression at position 7: expected a value after '*'\n  amp * * gap\n        ^",
     );
-    expect(codeOf(() => parseExpression('vol * * inj'))).toBe('expr.parse');
+    expect(codeOf(() => parseExpression('amp * * gap'))).toBe('expr.parse');
   });
   it('names the problem for each kind of malformed input', () => {
     const cases: Array<[string, string, RegExp]> = [
       ['', 'expr.parse', /expression is empty/],
-      ['vol +', 'expr.parse', /position 6: expected a value after '\+' \(the expression ends there\)/],
-      ['(vol', 'expr.parse', /expected '\)' to close the '\(' at position 1/],
-      ['vol)', 'expr.parse', /position 4: unmatched '\)'/],
+      ['amp +', 'expr.parse', /position 6: expected a value after '\+' \(the expression ends there\)/],
+      ['(amp', 'expr.parse', /expected '\)' to close the '\(' at position 1/],
+      ['amp)', 'expr.parse', /position 4: unmatched '\)'/],
       ['2x', 'expr.parse', /write 2 \* x for a product/],
       ['x = 3', 'expr.parse', /write '==' to compare/],
       ['a < b < c', 'expr.parse', /cannot be chained/],
@@ -100,7 +100,7 @@ describe('parseExpression: errors', () => {
     }
   });
   it('keeps the first line of every message readable on its own', () => {
-    const first = messageOf(() => parseExpression('vol * (inj')).split('\n')[0]!;
+    const first = messageOf(() => parseExpression('amp * (gap')).split('\n')[0]!;
     expect(first).toMatch(/^cannot read expression at position \d+: /);
   });
   it('rejects absurd nesting with a parse error, not a stack overflow', () => {
@@ -131,13 +131,13 @@ describe('formatExpression', () => {
     expect(formatExpression(parseExpression('a-(b-c)'))).toBe('a - (b - c)');
     expect(formatExpression(parseExpression('(2^3)^2'))).toBe('(2^3)^2');
     expect(formatExpression(parseExpression('`my col`+`pi`'))).toBe('`my col` + `pi`');
-    expect(formatExpression(parseExpression('re( lon/mer )<=0.5'))).toBe('re(lon / mer) <= 0.5');
+    expect(formatExpression(parseExpression('re( czb/cza )<=0.5'))).toBe('re(czb / cza) <= 0.5');
   });
 
   // Random trees: parse(format(e)) must be structurally e (a round-trip property, common practice).
   const leaf: fc.Arbitrary<Expr> = fc.oneof(
     fc.double({ min: 0, max: 1e6, noNaN: true }).map((value) => ({ type: 'number', value, pos: 0, end: 0 }) as Expr),
-    fc.constantFrom('x', 'lon.re', 'my col', 'pi', 'a`b', '_k2').map((name) => ({ type: 'column', name, pos: 0, end: 0 }) as Expr),
+    fc.constantFrom('x', 'czb.re', 'my col', 'pi', 'a`b', '_k2').map((name) => ({ type: 'column', name, pos: 0, end: 0 }) as Expr),
     fc.constantFrom('pi', 'e', 'i').map((name) => ({ type: 'constant', name, pos: 0, end: 0 }) as Expr),
   );
   const tree = fc.letrec<{ e: Expr }>((tie) => ({
@@ -182,10 +182,10 @@ describe('parseDerive', () => {
     expect(parseDerive('`half det`=determinant / 2')).toEqual({ name: 'half det', source: 'determinant / 2' });
   });
   it('rejects malformed specifications with expr.badDerive', () => {
-    for (const s of ['slope', '=vol', 'slope=', 'x<=3', 'a==b', '2x=vol', '`open=vol']) {
+    for (const s of ['slope', '=amp', 'slope=', 'x<=3', 'a==b', '2x=amp', '`open=amp']) {
       expect(codeOf(() => parseDerive(s)), s).toBe('expr.badDerive');
     }
     expect(messageOf(() => parseDerive('slope'))).toMatch(/expected NAME=EXPRESSION, e\.g\. twice_g=2\*genus_bound/);
-    expect(codeOf(() => parseDerive('slope=vol*'))).toBe('expr.parse');
+    expect(codeOf(() => parseDerive('slope=amp*'))).toBe('expr.parse');
   });
 });

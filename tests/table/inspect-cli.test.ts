@@ -11,7 +11,7 @@ import { put, tempDir } from './helpers.ts';
 
 const dir = tempDir('inspect');
 // invented rows; rows c and d are equal in every column
-const vol = [1.5, 2.5, 4, 4, 7.25];
+const amp = [1.5, 2.5, 4, 4, 7.25];
 const cr = [3, 4, 5, 5, 6];
 const tre = [0.5, -0.5, 0, 0, 1];
 const tim = [2, 3, 2.5, 2.5, 4];
@@ -19,7 +19,7 @@ const names = ['a', 'b', 'c', 'c', 'e'];
 put(
   dir,
   'census.csv',
-  ['name,crossings,vol,tau_re,tau_im', ...names.map((n, i) => `${n},${cr[i]},${vol[i]},${tre[i]},${tim[i]}`), 'f,7,NA,1,4'].join('\n') + '\n',
+  ['name,crossings,amp,tau_re,tau_im', ...names.map((n, i) => `${n},${cr[i]},${amp[i]},${tre[i]},${tim[i]}`), 'f,7,NA,1,4'].join('\n') + '\n',
 );
 
 async function run(args: string[]) {
@@ -40,13 +40,13 @@ describe('surmise inspect', () => {
     expect(j.columns.map((c: { name: string; kind: string }) => `${c.name}:${c.kind}`)).toEqual([
       'name:label',
       'crossings:integer',
-      'vol:real',
+      'amp:real',
       'tau:complex',
     ]);
     const v = j.columns[2];
     expect(v.missing).toBe(1);
-    expect(v.mean).toBeCloseTo(mean(vol), 14);
-    expect(v.std).toBeCloseTo(sampleStandardDeviation(vol), 14);
+    expect(v.mean).toBeCloseTo(mean(amp), 14);
+    expect(v.std).toBeCloseTo(sampleStandardDeviation(amp), 14);
     expect([v.min, v.max]).toEqual([1.5, 7.25]);
     const tau = j.columns[3];
     expect(tau.mean.re).toBeCloseTo(mean([...tre, 1]), 14);
@@ -61,7 +61,7 @@ describe('surmise inspect', () => {
     const lines = r.out.split('\n');
     expect(lines[0]).toBe('census.csv: 6 rows, 4 columns, 1 duplicate row');
     const header = lines.find((l) => l.startsWith('column'))!;
-    const volLine = lines.find((l) => l.startsWith('vol '))!;
+    const volLine = lines.find((l) => l.startsWith('amp '))!;
     // right-aligned numeric columns end at the same place as their headings
     expect(volLine.indexOf('7.25') + 4).toBe(header.indexOf('max') + 3);
     expect(r.out).toMatch(/Strongest Spearman rank correlations \(all rows\):/);
@@ -73,29 +73,29 @@ describe('surmise inspect', () => {
     const r = await run(['inspect', 'census.txt', '--format', 'tsv', '--kind', 'k=real', '--kind', 'v=label', '--json']);
     expect(r.code).toBe(0);
     expect(JSON.parse(r.out).columns.map((c: { kind: string }) => c.kind)).toEqual(['real', 'label']);
-    const bad = await run(['inspect', 'census.csv', '--kind', 'vol=integr']);
+    const bad = await run(['inspect', 'census.csv', '--kind', 'amp=integr']);
     expect(bad.code).toBe(2);
     expect(bad.err).toBe(
-      "surmise: --kind vol=integr: 'integr' is not a column kind; expected one of real, integer, complex, label (did you mean 'integer'?) [cli.badKind]\n",
+      "surmise: --kind amp=integr: 'integr' is not a column kind; expected one of real, integer, complex, label (did you mean 'integer'?) [cli.badKind]\n",
     );
   });
 
   it('--derive appends computed columns before profiling (expression language of src/table/expr)', async () => {
-    const r = await run(['inspect', 'census.csv', '--derive', 'v2=2*vol', '--derive', 'w=v2+crossings', '--json']);
+    const r = await run(['inspect', 'census.csv', '--derive', 'v2=2*amp', '--derive', 'w=v2+crossings', '--json']);
     expect(r.err).toBe('');
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
     const v2 = j.columns.find((c: { name: string }) => c.name === 'v2');
     const w = j.columns.find((c: { name: string }) => c.name === 'w');
-    expect(v2.mean).toBeCloseTo(2 * mean(vol), 13);
-    expect(w.mean).toBeCloseTo(mean(vol.map((x, i) => 2 * x + cr[i]!)), 13);
+    expect(v2.mean).toBeCloseTo(2 * mean(amp), 13);
+    expect(w.mean).toBeCloseTo(mean(amp.map((x, i) => 2 * x + cr[i]!)), 13);
     expect(v2.missing).toBe(1);
   });
 
   it('--derive naming an existing column is table.duplicateColumn; a missing column is reported by the expression layer', async () => {
-    const dup = await run(['inspect', 'census.csv', '--derive', 'vol=2']);
+    const dup = await run(['inspect', 'census.csv', '--derive', 'amp=2']);
     expect(dup.code).toBe(2);
-    expect(dup.err).toBe("surmise: --derive vol=2: a column 'vol' already exists in census.csv [table.duplicateColumn]\n");
+    expect(dup.err).toBe("surmise: --derive amp=2: a column 'amp' already exists in census.csv [table.duplicateColumn]\n");
     const unk = await run(['inspect', 'census.csv', '--derive', 'x=volume*2']);
     expect(unk.code).toBe(2);
     // the expression layer adds a caret line under the expression (its own format); no stack trace

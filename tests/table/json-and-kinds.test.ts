@@ -17,19 +17,19 @@ describe('JSON and JSON Lines', () => {
       dir,
       'knots.json',
       JSON.stringify([
-        { name: '4_1', vol: 2.0298832128193, tau: { re: 0, im: 3.4641016151377544 }, c: 4, sig: 0 },
-        { name: '5_2', vol: 2.8281220883308, tau: [-0.5, 2.5], c: 5, sig: null },
-        { name: '6_1', vol: '3.1639632288831', tau: '1.5-2j', c: 6, sig: -2 },
+        { name: '4_1', amp: 2.0298832128193, tau: { re: 0, im: 3.4641016151377544 }, c: 4, sig: 0 },
+        { name: '5_2', amp: 2.8281220883308, tau: [-0.5, 2.5], c: 5, sig: null },
+        { name: '6_1', amp: '3.1639632288831', tau: '1.5-2j', c: 6, sig: -2 },
       ]),
     );
     const t = await readTable(p);
-    expect(t.columns.map((c) => `${c.name}:${c.kind}`)).toEqual(['name:label', 'vol:real', 'tau:complex', 'c:integer', 'sig:integer']);
+    expect(t.columns.map((c) => `${c.name}:${c.kind}`)).toEqual(['name:label', 'amp:real', 'tau:complex', 'c:integer', 'sig:integer']);
     const tau = getColumn(t, 'tau') as ComplexColumn;
     expect(Array.from(tau.re)).toEqual([0, -0.5, 1.5]);
     expect(Array.from(tau.im)).toEqual([3.4641016151377544, 2.5, -2]);
     expect(Array.from(getColumn(t, 'sig').missing)).toEqual([0, 1, 0]);
     // volumes of 4_1, 5_2, 6_1 (from memory; shared reference-checks list)
-    expect((getColumn(t, 'vol') as RealColumn).values[2]).toBe(3.1639632288831);
+    expect((getColumn(t, 'amp') as RealColumn).values[2]).toBe(3.1639632288831);
     expect(t.lines).toBeUndefined();
   });
 
@@ -74,10 +74,10 @@ describe('complex pairs and kinds', () => {
   });
 
   it("complexPairs 'none' keeps the parts; an explicit rule joins any two numeric columns", async () => {
-    const p = put(dir, 'pairs2.csv', 'lon_x,lon_y,shape_re,shape_im\n1,2,3,4\n');
+    const p = put(dir, 'pairs2.csv', 'czb_x,czb_y,shape_re,shape_im\n1,2,3,4\n');
     expect((await readTable(p, { complexPairs: 'none' })).columns).toHaveLength(4);
-    const t = await readTable(p, { complexPairs: [{ name: 'lon', re: 'lon_x', im: 'lon_y' }] });
-    expect(t.columns.map((c) => c.name)).toEqual(['lon', 'shape_re', 'shape_im']);
+    const t = await readTable(p, { complexPairs: [{ name: 'czb', re: 'czb_x', im: 'czb_y' }] });
+    expect(t.columns.map((c) => c.name)).toEqual(['czb', 'shape_re', 'shape_im']);
     const err = (() => {
       try {
         joinComplexPairs(t, [{ name: 'w', re: 'shape_re', im: 'shape_imag' }]);

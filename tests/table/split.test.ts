@@ -128,7 +128,7 @@ describe('makeSplits on a dataset', () => {
   const table: Table = {
     source: 'knots.csv',
     nRows: n,
-    columns: [col('xings', xings, 'integer'), col('vol', xings.map((x, i) => x * 0.9 + i / 100)), col('sig', xings.map((x, i) => (x + i) % 5))],
+    columns: [col('xings', xings, 'integer'), col('amp', xings.map((x, i) => x * 0.9 + i / 100)), col('sig', xings.map((x, i) => (x + i) % 5))],
   };
   const ds = buildDataset(table, { target: 'sig', derive: [{ name: 'half', source: 'xings / 2' }] });
   it('splits on a condition over a table column: train where xings <= 12', () => {

@@ -22,6 +22,8 @@ import { solveShapes } from './newton.ts';
 import { cuspGeometry, type CuspGeometry } from './peripheral.ts';
 import { findGeometricSolution, SEARCH_DEFAULTS, type SearchOptions } from './search.ts';
 import { recogniseTorusBraid } from './torus.ts';
+import { braidSummands, isKnotted, simplifyBraid } from './reduce.ts';
+import { pdToBraid } from '../vogel.ts';
 import { combinatorics } from './triangulation.ts';
 import { cuspBases } from './cusp.ts';
 import { gluingEquations } from './equations.ts';
@@ -61,13 +63,21 @@ function volumeOf(re: Float64Array, im: Float64Array): number {
 export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DEFAULTS): HyperbolicInvariants {
   if (d.freeLoops > 0 || d.info.nPieces > 1)
     return { geometry: 'not hyperbolic', reason: 'split link: the diagram falls into separate pieces (an essential sphere)' };
-  if (d.braid) {
-    const tk = recogniseTorusBraid(d.braid);
-    if (tk) return { geometry: 'not hyperbolic', reason: `torus ${d.info.nComponents === 1 ? 'knot' : 'link'} T(${tk.p},${tk.q}) (Seifert fibred)` };
+  // braid words: free reduction and Markov destabilisation (same closure, fewer crossings);
+  // PD and DT codes: the braid from Vogel's algorithm, used only to recognise torus and composite knots
+  let small: Braid | undefined;
+  if (d.braid) small = simplifyBraid(d.braid);
+  else if (d.info.nCrossings <= VOGEL_LIMIT) {
+    try {
+      small = simplifyBraid(pdToBraid(d.info.crossings));
+    } catch {
+      small = undefined;
+    }
   }
-  // braid words: cancel σ_i σ_i⁻¹ pairs, cyclically (Reidemeister II; the closure is unchanged)
-  const crossings = d.braid ? braidClosurePD(reduceBraid(d.braid)).pd : d.info.crossings;
-  if (crossings.length === 0) return { geometry: 'not hyperbolic', reason: 'the braid word reduces to the empty word: an unlink' };
+  const known = small && recogniseBraid(small, d.info.nComponents);
+  if (known) return known;
+  const crossings = d.braid ? braidClosurePD(small!).pd : d.info.crossings;
+  if (crossings.length === 0) return { geometry: 'not hyperbolic', reason: 'the braid word reduces to the empty word: an unknot or unlink' };
   const k = removeKinks(crossings);
   if (k.freeLoops > 0 && d.info.nComponents > 1) return { geometry: 'not hyperbolic', reason: 'split link: a component is an unknotted loop apart from the rest' };
   if (k.pd.length === 0) return { geometry: 'not hyperbolic', reason: 'unknot (no crossings left after removing kinks)' };
@@ -88,12 +98,17 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   if (!('tri' in sol))
     return {
       geometry: 'unresolved',
-      reason: `no geometric solution of the gluing equations found (${sol.triangulations} triangulations, ${sol.solves} Newton solves); not hyperbolic, or the search was too short`,
+      reason:
+        `no geometric solution found; possibly not hyperbolic (${sol.triangulations} triangulations, ${sol.solves} solves` +
+        (sol.negativeSolutions ? `, ${sol.negativeSolutions} solutions with negatively oriented tetrahedra not carried to a geometric one)` : ')'),
     };
   const volume = volumeOf(sol.re, sol.im);
   const out: HyperbolicInvariants = { geometry: 'hyperbolic', volume, tetrahedra: sol.tri.n, residual: sol.residual };
   // cusp: on the geometric triangulation if the meridians survive, else on the unsimplified one
-  let cg = cuspGeometry(info, sol.tri, sol.cb, sol, sol.fromOctahedral);
+  const src = sol.cuspSource;
+  if (src && Math.abs(volumeOf(src.re, src.im) - volume) > 1e-9 * Math.max(1, volume))
+    return { ...out, reason: 'cusp not measured: the solution carried to the geometric one changed its volume' };
+  let cg = src ? cuspGeometry(info, src.tri, src.cb, src, src.map) : cuspGeometry(info, sol.tri, sol.cb, sol, sol.fromOctahedral);
   if (typeof cg === 'string') {
     const u = sol.unsimplified;
     const cb = combinatorics(u.tri);
@@ -117,16 +132,21 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   return out;
 }
 
-/** Free cyclic reduction of a braid word (σ_i σ_i⁻¹ → nothing, also across the closing point). */
-export function reduceBraid(b: Braid): Braid {
-  const out: number[] = [];
-  for (const g of b.word) {
-    if (out.length && out[out.length - 1] === -g) out.pop();
-    else out.push(g);
-  }
-  while (out.length >= 2 && out[0] === -out[out.length - 1]!) {
-    out.shift();
-    out.pop();
-  }
-  return { strands: b.strands, word: out };
+/** PD codes up to this many crossings are turned into braids to look for torus and composite knots. */
+const VOGEL_LIMIT = 400;
+
+/**
+ * `not hyperbolic` from a braid word with a reason, or undefined: torus links (the word is
+ * (σ1…σ_{p−1})^q up to rotation and mirror), composite knots (a middle generator occurs once and
+ * both summands are knotted, `reduce.ts`).
+ */
+function recogniseBraid(b: Braid, components: number): HyperbolicInvariants | undefined {
+  const tk = recogniseTorusBraid(b);
+  if (tk) return { geometry: 'not hyperbolic', reason: `torus ${components === 1 ? 'knot' : 'link'} T(${tk.p},${tk.q}) (Seifert fibred): the braid reduces to ${tk.p === 2 ? 'σ1' : `(σ1…σ${tk.p - 1})`}^${Math.abs(tk.q)} by free reduction and Markov moves` };
+  if (components !== 1) return undefined;
+  const parts = braidSummands(b);
+  if (parts && isKnotted(simplifyBraid(parts[0])) && isKnotted(simplifyBraid(parts[1])))
+    return { geometry: 'not hyperbolic', reason: 'composite knot (satellite): the braid is a connected sum of two knotted closures (Alexander polynomials not units)' };
+  return undefined;
 }
+

@@ -18,7 +18,11 @@ export interface NewtonResult {
   converged: boolean;
 }
 
-function residuals(sys: EquationSystem, re: Float64Array, im: Float64Array, Fr: Float64Array, Fi: Float64Array): number {
+/** Nearest value to `ref` among a + 2πk (an argument continued along the iteration). */
+const nearBranch = (a: number, ref: number): number => a + 2 * Math.PI * Math.round((ref - a) / (2 * Math.PI));
+
+/** Residuals with principal logarithms, or, given `args`, with arguments continued from them (updated). */
+function residuals(sys: EquationSystem, re: Float64Array, im: Float64Array, Fr: Float64Array, Fi: Float64Array, args?: { z: Float64Array; w: Float64Array }): number {
   const { n, rows, A, B, c } = sys;
   const lzr = new Float64Array(n);
   const lzi = new Float64Array(n);
@@ -31,6 +35,10 @@ function residuals(sys: EquationSystem, re: Float64Array, im: Float64Array, Fr: 
     const wi = -im[t]!;
     lwr[t] = 0.5 * Math.log(wr * wr + wi * wi);
     lwi[t] = Math.atan2(wi, wr);
+    if (args) {
+      lzi[t] = args.z[t] = nearBranch(lzi[t]!, args.z[t]!);
+      lwi[t] = args.w[t] = nearBranch(lwi[t]!, args.w[t]!);
+    }
   }
   let worst = 0;
   for (let r = 0; r < rows; r++) {
@@ -122,6 +130,55 @@ export function complexSolve(n: number, Mr: Float64Array, Mi: Float64Array, yr: 
   return true;
 }
 
+/** Gauss–Newton normal equations at (re, im): M = Jᴴ J, y = −Jᴴ F with J = A/z − B/(1 − z). */
+function normalEquations(sys: EquationSystem, re: Float64Array, im: Float64Array, Fr: Float64Array, Fi: Float64Array, Jr: Float64Array, Ji: Float64Array, Mr: Float64Array, Mi: Float64Array, yr: Float64Array, yi: Float64Array): void {
+  const { n, rows, A, B } = sys;
+  // J = A/z − B/(1 − z)
+  for (let t = 0; t < n; t++) {
+    const zr = re[t]!;
+    const zi = im[t]!;
+    const dz = zr * zr + zi * zi;
+    const iz_r = zr / dz;
+    const iz_i = -zi / dz;
+    const wr = 1 - zr;
+    const wi = -zi;
+    const dw = wr * wr + wi * wi;
+    const iw_r = wr / dw;
+    const iw_i = -wi / dw;
+    for (let r = 0; r < rows; r++) {
+      const a = A[r * n + t]!;
+      const b = B[r * n + t]!;
+      Jr[r * n + t] = a * iz_r - b * iw_r;
+      Ji[r * n + t] = a * iz_i - b * iw_i;
+    }
+  }
+  // normal equations M = Jᴴ J, y = −Jᴴ F
+  Mr.fill(0);
+  Mi.fill(0);
+  yr.fill(0);
+  yi.fill(0);
+  for (let r = 0; r < rows; r++) {
+    const o = r * n;
+    const fr = Fr[r]!;
+    const fi = Fi[r]!;
+    for (let p = 0; p < n; p++) {
+      const ar = Jr[o + p]!;
+      const ai = Ji[o + p]!;
+      if (ar === 0 && ai === 0) continue;
+      // conj(a) * F
+      yr[p] = yr[p]! - (ar * fr + ai * fi);
+      yi[p] = yi[p]! - (ar * fi - ai * fr);
+      for (let q = 0; q < n; q++) {
+        const br = Jr[o + q]!;
+        const bi = Ji[o + q]!;
+        if (br === 0 && bi === 0) continue;
+        Mr[p * n + q] = Mr[p * n + q]! + (ar * br + ai * bi);
+        Mi[p * n + q] = Mi[p * n + q]! + (ar * bi - ai * br);
+      }
+    }
+  }
+}
+
 /** Newton iteration from the given start (modified in place copies). */
 export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60): NewtonResult {
   const { n, rows, A, B } = sys;
@@ -142,50 +199,7 @@ export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm:
   const tFi = new Float64Array(rows);
   let it = 0;
   for (; it < maxIter && res > tol; it++) {
-    // J = A/z − B/(1 − z)
-    for (let t = 0; t < n; t++) {
-      const zr = re[t]!;
-      const zi = im[t]!;
-      const dz = zr * zr + zi * zi;
-      const iz_r = zr / dz;
-      const iz_i = -zi / dz;
-      const wr = 1 - zr;
-      const wi = -zi;
-      const dw = wr * wr + wi * wi;
-      const iw_r = wr / dw;
-      const iw_i = -wi / dw;
-      for (let r = 0; r < rows; r++) {
-        const a = A[r * n + t]!;
-        const b = B[r * n + t]!;
-        Jr[r * n + t] = a * iz_r - b * iw_r;
-        Ji[r * n + t] = a * iz_i - b * iw_i;
-      }
-    }
-    // normal equations M = Jᴴ J, y = −Jᴴ F
-    Mr.fill(0);
-    Mi.fill(0);
-    yr.fill(0);
-    yi.fill(0);
-    for (let r = 0; r < rows; r++) {
-      const o = r * n;
-      const fr = Fr[r]!;
-      const fi = Fi[r]!;
-      for (let p = 0; p < n; p++) {
-        const ar = Jr[o + p]!;
-        const ai = Ji[o + p]!;
-        if (ar === 0 && ai === 0) continue;
-        // conj(a) * F
-        yr[p] = yr[p]! - (ar * fr + ai * fi);
-        yi[p] = yi[p]! - (ar * fi - ai * fr);
-        for (let q = 0; q < n; q++) {
-          const br = Jr[o + q]!;
-          const bi = Ji[o + q]!;
-          if (br === 0 && bi === 0) continue;
-          Mr[p * n + q] = Mr[p * n + q]! + (ar * br + ai * bi);
-          Mi[p * n + q] = Mi[p * n + q]! + (ar * bi - ai * br);
-        }
-      }
-    }
+    normalEquations(sys, re, im, Fr, Fi, Jr, Ji, Mr, Mi, yr, yi);
     if (!complexSolve(n, Mr, Mi, yr, yi)) break;
     // step, halved until it stays in the upper half-plane and the residual does not grow much
     let alpha = 1;
@@ -210,6 +224,95 @@ export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm:
         }
       }
       alpha /= 2;
+    }
+    if (!accepted) break;
+  }
+  return { re, im, residual: res, iterations: it, converged: res <= tol };
+}
+
+const sumSquares = (a: Float64Array, b: Float64Array): number => {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i]! * a[i]! + b[i]! * b[i]!;
+  return s;
+};
+
+/**
+ * Levenberg–Marquardt on the same equations with no half-plane constraint (Levenberg 1944; Marquardt,
+ * SIAM J. Appl. Math. 11, 1963): shapes may cross the real axis away from 0 and 1 (negatively
+ * oriented tetrahedra). Each argument is continued along the iteration (the branch nearest its
+ * previous value), so a solution satisfies the equations in product form and in this continued log
+ * form, not necessarily with principal arguments; `flip.ts` and the final check in the half-plane
+ * decide what it is worth. Steps are accepted only when Σ|F|² decreases.
+ */
+export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 200): NewtonResult {
+  const { n, rows } = sys;
+  const re = Float64Array.from(startRe);
+  const im = Float64Array.from(startIm);
+  const args = { z: new Float64Array(n), w: new Float64Array(n) };
+  for (let t = 0; t < n; t++) {
+    args.z[t] = Math.atan2(im[t]!, re[t]!);
+    args.w[t] = Math.atan2(-im[t]!, 1 - re[t]!);
+  }
+  const trial = { z: new Float64Array(n), w: new Float64Array(n) };
+  const Fr = new Float64Array(rows);
+  const Fi = new Float64Array(rows);
+  let res = residuals(sys, re, im, Fr, Fi, args);
+  let ss = sumSquares(Fr, Fi);
+  const Jr = new Float64Array(rows * n);
+  const Ji = new Float64Array(rows * n);
+  const Mr = new Float64Array(n * n);
+  const Mi = new Float64Array(n * n);
+  const M0 = new Float64Array(n * n);
+  const M1 = new Float64Array(n * n);
+  const yr = new Float64Array(n);
+  const yi = new Float64Array(n);
+  const y0r = new Float64Array(n);
+  const y0i = new Float64Array(n);
+  const tre = new Float64Array(n);
+  const tim = new Float64Array(n);
+  const tFr = new Float64Array(rows);
+  const tFi = new Float64Array(rows);
+  let lambda = 1e-3;
+  let it = 0;
+  for (; it < maxIter && res > tol; it++) {
+    normalEquations(sys, re, im, Fr, Fi, Jr, Ji, M0, M1, y0r, y0i);
+    let accepted = false;
+    for (let h = 0; h < 12 && !accepted; h++) {
+      Mr.set(M0);
+      Mi.set(M1);
+      for (let p = 0; p < n; p++) Mr[p * n + p] = M0[p * n + p]! * (1 + lambda);
+      yr.set(y0r);
+      yi.set(y0i);
+      if (!complexSolve(n, Mr, Mi, yr, yi)) {
+        lambda *= 10;
+        continue;
+      }
+      let ok = true;
+      for (let t = 0; t < n && ok; t++) {
+        tre[t] = re[t]! + yr[t]!;
+        tim[t] = im[t]! + yi[t]!;
+        if (!Number.isFinite(tre[t]!) || !Number.isFinite(tim[t]!) || Math.hypot(tre[t]!, tim[t]!) < 1e-9 || Math.hypot(1 - tre[t]!, tim[t]!) < 1e-9) ok = false;
+      }
+      if (ok) {
+        trial.z.set(args.z);
+        trial.w.set(args.w);
+        const r2 = residuals(sys, tre, tim, tFr, tFi, trial);
+        const s2 = sumSquares(tFr, tFi);
+        if (s2 < ss || r2 < tol) {
+          re.set(tre);
+          im.set(tim);
+          Fr.set(tFr);
+          Fi.set(tFi);
+          args.z.set(trial.z);
+          args.w.set(trial.w);
+          res = r2;
+          ss = s2;
+          lambda = Math.max(lambda / 10, 1e-12);
+          accepted = true;
+          break;
+        }
+      }
+      lambda *= 10;
     }
     if (!accepted) break;
   }

@@ -4,6 +4,7 @@ import { parseDiagram } from '../../../src/knots/diagram.ts';
 import { hyperbolicInvariants } from '../../../src/knots/hyperbolic/invariants.ts';
 import { addKink, mirrorPD, relabelPD } from '../../../src/knots/generate.ts';
 import type { Crossing } from '../../../src/knots/pd.ts';
+import { twistKnotPD } from '../../../src/knots/plat.ts';
 import { Rng } from '../../../src/util/rng.ts';
 
 // Diagrams: tests/fixtures/knots-small.json (braid words and PD codes, verified by computation; see its provenance).
@@ -93,6 +94,40 @@ describe('hyperbolic invariants of small knots', () => {
       expect(Math.abs(x.naturalSlope! - a.naturalSlope!)).toBeLessThan(1e-9);
     }
   });
+  it('non-alternating braid forms of every hyperbolic knot up to 7 crossings resolve, with the volume of the PD code (to 1e-9)', () => {
+    for (const k of ['4_1', '5_2', '6_1', '6_2', '6_3', '7_2', '7_3', '7_4', '7_5', '7_6', '7_7']) {
+      const b = hyp(braid(k));
+      const p = hyp(pd(k));
+      expect(b.geometry, k).toBe('hyperbolic');
+      expect(p.geometry, k).toBe('hyperbolic');
+      expect(Math.abs(b.volume! - p.volume!), k).toBeLessThan(1e-9);
+      expect(Math.abs(Math.abs(b.naturalSlope!) - Math.abs(p.naturalSlope!)), k).toBeLessThan(1e-9);
+    }
+  });
+  it('torus knots given as PD codes (relabelled) or as rotated / conjugated braids are "not hyperbolic" (Thurston 1982: Seifert fibred)', () => {
+    for (const [pq, b] of [
+      ['T(2,5)', fx.knots['T(2,5)']!.braid],
+      ['T(3,4)', fx.knots['T(3,4)']!.braid],
+      ['T(3,5)', fx.knots['T(3,5)']!.braid],
+    ] as const) {
+      const code = relabelPD(fx.knots[pq]!.pdFromBraid, new Rng(3));
+      const h = hyp(code);
+      expect(h.geometry, pq).toBe('not hyperbolic');
+      expect(h.reason).toContain(pq);
+      // conjugated by σ1 and rotated, with a Markov stabilisation on a new strand
+      const strands = Math.max(...b) + 1;
+      const word = [1, ...b.slice(1), b[0]!, -1, strands];
+      expect(hyp(`${strands + 1}: ${word.join(' ')}`).geometry, pq).toBe('not hyperbolic');
+    }
+  });
+  it('composite knots from a braid connected sum are "not hyperbolic"; prime knots never are', () => {
+    // 3_1 # 4_1: σ1³ on strands 1–2, σ3σ4⁻¹σ3σ4⁻¹ on 3–5, joined by σ2 (Birman 1974, §2)
+    const h = hyp('1 1 1 2 3 -4 3 -4');
+    expect(h.geometry).toBe('not hyperbolic');
+    expect(h.reason).toMatch(/composite/);
+    expect(h.volume).toBeUndefined();
+    for (const k of ['4_1', '5_2', '6_1', '6_2', '6_3', '7_2', '7_3', '7_4', '7_5', '7_6', '7_7']) expect(hyp(pd(k)).geometry, k).not.toBe('not hyperbolic');
+  });
   it('torus knots are refused: never a number; braids of the form (σ1…σ_{p−1})^q are "not hyperbolic" (Thurston 1982)', () => {
     for (const code of ['1 1 1', '1 1 1 1 1', '-1 -1 -1 -1 -1 -1 -1', '1 2 1 2 1 2 1 2', '2 3 1 2 3 1 2 3 1 2 3 1 2 3 1']) {
       const h = hyp(code);
@@ -124,5 +159,30 @@ describe('hyperbolic invariants of small knots', () => {
     for (let i = 2; i < vols.length; i++) expect(vols[i]! - vols[i - 1]!).toBeLessThan(vols[i - 1]! - vols[i - 2]!);
     // the gap to the limit shrinks like 1/k² (Neumann–Zagier): the last step is tiny
     expect(vols[21]! - vols[20]!).toBeLessThan(1e-3);
+  });
+  it('twist knots K_n (plat PD codes, n = 2..40) increase to the Whitehead link volume 4 × Catalan (Thurston: hyperbolic Dehn surgery)', () => {
+    // K_n is 1/n-type surgery on one component of the Whitehead link, so vol K_n < vol W and
+    // vol K_n → vol W = 4 × Catalan = 3.663862376708876 (from memory; also the link test above)
+    const whitehead = 4 * 0.915965594177219;
+    const vols: number[] = [];
+    for (let n = 2; n <= 40; n++) {
+      const h = hyp(twistKnotPD(n));
+      expect(h.geometry, `n=${n}`).toBe('hyperbolic');
+      vols.push(h.volume!);
+    }
+    // 4_1, 5_2, 6_1 (from memory, reference checks) and 7_2 (from memory, 5 digits)
+    expect(vols[0]!).toBeCloseTo(2.029883212819307, 11);
+    expect(vols[1]!).toBeCloseTo(2.8281220883308, 10);
+    expect(vols[2]!).toBeCloseTo(3.1639632288831, 10);
+    expect(Math.abs(vols[3]! - 3.33174)).toBeLessThan(1e-5);
+    for (let i = 1; i < vols.length; i++) {
+      expect(vols[i]!, `n=${i + 2}`).toBeGreaterThan(vols[i - 1]!);
+      if (i >= 2) expect(vols[i]! - vols[i - 1]!, `n=${i + 2}`).toBeLessThan(vols[i - 1]! - vols[i - 2]!);
+    }
+    for (const v of vols) expect(v).toBeLessThan(whitehead);
+    expect(whitehead - vols[vols.length - 1]!).toBeLessThan(1e-2);
+    // the gap behaves like c/n² (Neumann–Zagier 1985): n²·gap settles
+    const c = vols.map((v, i) => (whitehead - v) * (i + 2) ** 2);
+    expect(Math.abs(c[c.length - 1]! - c[c.length - 2]!) / c[c.length - 1]!).toBeLessThan(0.02);
   });
 });

@@ -1,5 +1,5 @@
 /**
- * The repeats of a ranking (seed × fold) with their row sets, built on the table layer's splits
+ * The training repeats of a predictability test (seed × fold) with their row sets, built on the table layer's splits
  * (parseSplitSpec / makeSplits) and standardization (Standardizer, fitted on each repeat's training
  * rows only). Row indices are into the dataset's kept rows.
  */
@@ -9,7 +9,7 @@ import { makeSplits, parseSplitSpec } from '../table/split.ts';
 import { Standardizer, type StandardizerState } from '../table/standardize.ts';
 import { SurmiseError } from '../errors.ts';
 import { deriveSeed } from '../util/rng.ts';
-import type { TrainData } from '../learn/data.ts';
+import type { TrainData } from './data.ts';
 
 export interface RepeatPlan {
   /** Network seed of this repeat (derived from the user's seed). */
