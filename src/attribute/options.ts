@@ -6,14 +6,14 @@
  */
 import { defaultsOf, optionOf, type OptionTable } from '../util/option-table.ts';
 import type { IntegerRange } from '../util/integer.ts';
-import { ATTRIBUTION_METHODS } from './types.ts';
+import { ATTRIBUTION_METHODS } from './methods/index.ts';
 
 const SEED_MAX = 0xffffffff;
 
 export const RANK_OPTIONS: OptionTable = [
   { key: 'features', type: 'list', default: null, description: 'use only these features (default: every numeric column but the target)' },
   { key: 'exclude', type: 'list', default: [], description: 'leave these columns out of the features' },
-  { key: 'methods', type: 'list', min: 1, choices: ATTRIBUTION_METHODS, noun: 'an attribution method', default: ATTRIBUTION_METHODS, flag: 'method', configKey: 'attribution.methods', description: `attribution methods (${ATTRIBUTION_METHODS.join(', ')}; the CLI also takes all)` },
+  { key: 'methods', type: 'list', min: 1, choices: ATTRIBUTION_METHODS, noun: 'an attribution method', default: ATTRIBUTION_METHODS, flag: 'method', configKey: 'attribution.methods', description: `attribution methods: ${ATTRIBUTION_METHODS.join('|')}|all, or a comma list` },
   { key: 'seeds', type: 'integer', min: 1, max: 100, default: 3, configKey: 'attribution.seeds', description: 'networks per split' },
   { key: 'folds', type: 'integer', min: 0, max: 50, default: 0, configKey: 'attribution.folds', description: '0 = one random split per seed; k ≥ 2 = k-fold cross-validation (1 is refused)' },
   { key: 'split', type: 'text', default: null, description: 'random | random:TRAIN,VALIDATION,TEST | kfold:K | where:CONDITION (default random 70/15/15, or kfold:K with folds K)' },
