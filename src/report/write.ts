@@ -18,6 +18,6 @@ export async function writeReportFiles(dir: string, r: RenderedReport): Promise<
     files.push([join('plots', `${p.name}.svg`), p.svg]);
     if (p.png.length > 0) files.push([join('plots', `${p.name}.png`), p.png]);
   }
-  for (const [rel, data] of files) writeFileAtomic(join(dir, rel), data, { force: true, display: rel, codePrefix: 'report' });
+  for (const [rel, data] of files) writeFileAtomic(join(dir, rel), data, { force: true, display: rel });
   return files.map(([rel]) => rel);
 }

@@ -2,7 +2,7 @@
  * Checks of a run configuration against its table, before any training: every expression, column
  * name and option, each error naming the configuration key and its place in the file.
  */
-import { SurmiseError, didYouMean } from '../errors.ts';
+import { SurmiseError, didYouMean, wordOptionError } from '../errors.ts';
 import { evaluateExpression, type Table } from '../table/index.ts';
 import { formatColumnName } from '../table/expr/format.ts';
 import { parseSplitSpec } from '../table/split.ts';
@@ -25,7 +25,8 @@ export function inConfig<T>(path: Array<string | number>, at: (p: Array<string |
     return f();
   } catch (e) {
     if (e instanceof SurmiseError && e.exitCode === 2) {
-      throw new SurmiseError(e.code, `${at(path)}: ${keyPath(path)}: ${e.message}`, e.details);
+      const worded = wordOptionError(e, (k) => (k === e.details?.option ? keyPath(path) : k));
+      throw new SurmiseError(e.code, `${at(path)}: ${keyPath(path)}: ${worded.message}`, { ...e.details, worded: true });
     }
     throw e;
   }
@@ -36,7 +37,7 @@ export function inConfig<T>(path: Array<string | number>, at: (p: Array<string |
  * any training starts, so a typo costs seconds, not a whole run.
  */
 export function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string | number>) => string): void {
-  inConfig(['split'], at, () => parseSplitSpec(config.split));
+  if (config.split !== undefined) inConfig(['split'], at, () => parseSplitSpec(config.split!));
   const expr = (path: Array<string | number>, source: string) => inConfig(path, at, () => evaluateExpression(table, source));
   expr(['target'], targetExpression(table, config.target));
   config.fits.forEach((f, i) => {

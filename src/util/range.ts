@@ -1,4 +1,4 @@
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, type ErrorCode } from '../errors.ts';
 
 /** An integer range `lo..hi` as written in options and configuration (e.g. `-3..3`). */
 export const INTEGER_RANGE_PATTERN = /^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$/;
@@ -9,7 +9,7 @@ export const INTEGER_RANGE_PATTERN = /^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$/;
  * when given, so the library's own message names no flag or key.
  * @example parseIntegerRange('-3..3', 'relate.badPowers') // [-3, 3]
  */
-export function parseIntegerRange(text: string, code: string, where?: string): [number, number] {
+export function parseIntegerRange(text: string, code: ErrorCode, where?: string): [number, number] {
   const at = where === undefined ? '' : `${where}: `;
   const m = INTEGER_RANGE_PATTERN.exec(text);
   if (!m) throw new SurmiseError(code, `${at}expected a range of integers lo..hi, e.g. -3..3, got '${text}'`, { value: text });

@@ -234,7 +234,7 @@ describe('writeReportFiles', () => {
       const r = await renderReport(makeInput(50, 1));
       const e = await writeReportFiles(dir, r).then(() => null, (x: unknown) => x);
       expect(e).toBeInstanceOf(SurmiseError);
-      expect((e as SurmiseError).code).toBe('report.unwritable');
+      expect((e as SurmiseError).code).toBe('output.unwritable');
       expect((e as SurmiseError).message).toMatch(/cannot write report\.md/);
       expect(readdirSync(dir).filter((f) => f.includes('surmise-partial'))).toEqual([]);
     } finally {

@@ -88,7 +88,7 @@ export interface DeriveSpec {
 
 /**
  * A shallow copy of `table` with the derived columns appended in order (each may use the ones
- * before it); the table is unchanged. A name the table already has is refused (expr.deriveClash).
+ * before it); the table is unchanged. A name the table already has is refused (table.duplicateColumn).
  */
 export function withDerived(table: Table, derive: readonly DeriveSpec[] = []): Table {
   if (derive.length === 0) return table;
@@ -96,9 +96,9 @@ export function withDerived(table: Table, derive: readonly DeriveSpec[] = []): T
   for (const d of derive) {
     if (columns.some((c) => c.name === d.name)) {
       throw new SurmiseError(
-        'expr.deriveClash',
+        'table.duplicateColumn',
         `${table.source}: derived column '${d.name}' would replace the table's column of the same name; choose another name`,
-        { column: d.name },
+        { option: 'derive', column: d.name },
       );
     }
     columns.push(deriveColumn({ ...table, columns: [...columns] }, d.name, d.source));
