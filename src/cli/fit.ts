@@ -125,7 +125,7 @@ export function registerFit(program: Command, io: CliIO): void {
         split = { train: s.first, test: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
       const r = fitRelation(table, { target: o.target, terms, ...options, ...(split ? { split } : {}) });
-      if (o.json) io.stdout(toJson(r) + '\n');
+      if (o.json) io.stdout(toJson(r, 2) + '\n');
       else io.stdout(renderFit(r));
     });
 }

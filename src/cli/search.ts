@@ -18,6 +18,7 @@ import { SEARCH_OPTIONS } from '../relate/options.ts';
 import { optionOf } from '../util/option-table.ts';
 import { readDerived } from './fit.ts';
 import { parseKindOptions } from './inspect.ts';
+import { parseIntegerRange } from '../util/range.ts';
 
 interface SearchOptions {
   target: string;
@@ -48,12 +49,7 @@ export function parseLattice(text: string): 'auto' | 'off' | number {
 
 /** `--powers lo..hi` with integers, e.g. `-3..3` (the shared range reader). */
 export function parsePowers(text: string): [number, number] {
-  const m = /^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$/.exec(text);
-  if (!m) throw new SurmiseError('relate.badPowers', `--powers ${text}: expected a range of integer powers lo..hi, e.g. -3..3`, { option: 'powers' });
-  const lo = Number(m[1]);
-  const hi = Number(m[2]);
-  if (lo > hi) throw new SurmiseError('relate.badPowers', `--powers ${text}: the lower end ${lo} exceeds the upper end ${hi}`, { option: 'powers' });
-  return [lo, hi];
+  return parseIntegerRange(text, 'relate.badPowers', `--powers ${text}`, 'powers');
 }
 
 function row(c: SearchCandidate, rank: number, lattice: boolean): string[] {
