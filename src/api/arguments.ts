@@ -3,9 +3,10 @@
  * JavaScript type (a file name where a table is expected, a number where a list of column names is
  * expected) is refused with one SurmiseError, code `api.badArgument`, naming the function and the
  * argument (`rankFeatures: expected options.features to be a list of strings, got the string "a"`),
- * instead of a TypeError from deep inside a stage. Ranges and names are the stages' own checks.
+ * instead of a TypeError from deep inside a stage; an options key the function does not take is
+ * refused the same way (`options has no key 'method' (did you mean 'methods'?)`). Ranges and names are the stages' own checks.
  */
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, didYouMean } from '../errors.ts';
 
 /** A JavaScript type an argument or option must have. */
 export interface Kind {
@@ -13,12 +14,21 @@ export interface Kind {
   test: (v: unknown) => boolean;
 }
 
-/** One positional argument: its name, kind, whether it may be left out, and (for an options object) its fields. */
+/**
+ * One positional argument: its name, kind, whether it may be left out, and for an options object
+ * every key it takes (a key not listed is refused with a did-you-mean: a misspelt option is never
+ * silently ignored).
+ */
 export interface ArgSpec {
   name: string;
   kind: Kind;
   optional?: boolean;
   fields?: Record<string, Kind>;
+}
+
+/** The fields of an options object of type T: every key of T must be listed (checked by tsc). */
+export function fieldsOf<T>(fields: { [K in keyof Required<T>]: Kind }): Record<string, Kind> {
+  return fields;
 }
 
 const isPlain = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
@@ -47,6 +57,14 @@ export const KIND = {
     test: (v) => Array.isArray(v) && v.every((d) => isPlain(d) && typeof d.name === 'string' && typeof d.expression === 'string'),
   },
   dataFrame: { expected: 'a danfo.js DataFrame', test: (v) => isPlain(v) && Array.isArray(v.columns) },
+  complexPairs: {
+    expected: "'auto', 'none' or a list of { name, re, im }",
+    test: (v) => v === 'auto' || v === 'none' || (Array.isArray(v) && v.every((p) => isPlain(p) && ['name', 're', 'im'].every((k) => typeof p[k] === 'string'))),
+  },
+  derivedSources: {
+    expected: 'a list of { name, source } objects',
+    test: (v) => Array.isArray(v) && v.every((d) => isPlain(d) && typeof d.name === 'string' && typeof d.source === 'string'),
+  },
 } satisfies Record<string, Kind>;
 
 /** How a message names a value it refuses, e.g. `the string "a"`, `a number (5)`, `a danfo.js DataFrame`. */
@@ -72,7 +90,14 @@ export function checkArguments(fn: string, spec: readonly ArgSpec[], args: reado
     const v = args[k];
     if (v === undefined && s.optional) return;
     if (!s.kind.test(v)) refuse(fn, s.name, s.kind, v);
-    if (!s.fields) return;
+    if (!s.fields || !isPlain(v)) return; // a slot taking a name or an options object checks keys of the object only
+    const known = Object.keys(s.fields);
+    for (const key of Object.keys(v as object)) {
+      if (!known.includes(key)) {
+        const hint = didYouMean(key, known) || (known.length ? `; it takes ${known.join(', ')}` : '; it takes none');
+        throw new SurmiseError('api.badArgument', `${fn}: ${s.name} has no key '${key}'${hint}`, { function: fn, argument: `${s.name}.${key}` });
+      }
+    }
     for (const [key, kind] of Object.entries(s.fields)) {
       const f = (v as Record<string, unknown>)[key];
       if (f !== undefined && !kind.test(f)) refuse(fn, `${s.name}.${key}`, kind, f);

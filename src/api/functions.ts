@@ -3,7 +3,17 @@
  * entry (arguments.ts): one list, read by src/index.ts and by the test that keeps docs/API.md in
  * step with it. The stage namespaces (`table`, `relate`, …) export the unchecked stage functions.
  */
-import { KIND as K, guarded, type ArgSpec, type Kind } from './arguments.ts';
+import { KIND as K, fieldsOf, guarded, type ArgSpec, type Kind } from './arguments.ts';
+import type { ReadOptions } from '../table/read.ts';
+import type { WriteOptions } from '../table/write.ts';
+import type { DatasetSpec } from '../table/dataset-types.ts';
+import type { RankOptions } from '../attribute/rank.ts';
+import type { FitSpec } from '../relate/fit.ts';
+import type { SearchSpec } from '../relate/search.ts';
+import type { BoundSpec } from '../bound/find.ts';
+import type { DiscoverSpec } from '../bound/discover.ts';
+import type { ReportOptions } from '../report/types.ts';
+import type { RunOptions } from '../run/run.ts';
 import { readTable as readTable0 } from '../table/read.ts';
 import { tableFromRecords as tableFromRecords0 } from '../table/columns.ts';
 import { writeTable as writeTable0 } from '../table/write.ts';
@@ -24,86 +34,100 @@ import { generateDemoKnots as generateDemoKnots0 } from '../demo/knots.ts';
 import { runCli as runCli0 } from '../cli/main.ts';
 
 const table: ArgSpec = { name: 'table', kind: K.table };
-const each = (kind: Kind, keys: string[]): Record<string, Kind> => Object.fromEntries(keys.map((k) => [k, kind]));
 const formatOrOptions: Kind = { expected: 'a format name or an options object', test: (v) => K.string.test(v) || K.object.test(v) };
 const stepOrWord: Kind = { expected: "'auto', 'off' or a number", test: (v) => K.string.test(v) || K.number.test(v) };
 const opts = (name: string, fields: Record<string, Kind>, optional = false): ArgSpec => ({ name, kind: K.object, fields, optional });
 
-export const readTable = guarded('readTable', [{ name: 'path', kind: K.string }, opts('options', { format: K.string, kinds: K.object, displayName: K.string, onProgress: K.function }, true)], readTable0, true);
+export const readTable = guarded(
+  'readTable',
+  [{ name: 'path', kind: K.string }, opts('options', fieldsOf<ReadOptions>({ format: K.string, kinds: K.object, complexPairs: K.complexPairs, displayName: K.string, onProgress: K.function }), true)],
+  readTable0,
+  true,
+);
 const records: Kind = { expected: 'a list of objects (one per row)', test: (v) => Array.isArray(v) && v.every((r) => K.object.test(r)) };
-export const tableFromRecords = guarded('tableFromRecords', [{ name: 'records', kind: records }, { name: 'source', kind: K.string, optional: true }, opts('options', { kinds: K.object }, true)], tableFromRecords0);
-export const writeTable = guarded('writeTable', [table, { name: 'path', kind: K.string }, { name: 'format', kind: formatOrOptions, optional: true }, opts('options', {}, true)], writeTable0, true);
+export const tableFromRecords = guarded(
+  'tableFromRecords',
+  [{ name: 'records', kind: records }, { name: 'source', kind: K.string, optional: true }, opts('options', fieldsOf<NonNullable<Parameters<typeof tableFromRecords0>[2]>>({ kinds: K.object, complexPairs: K.complexPairs }), true)],
+  tableFromRecords0,
+);
+const writeFields = fieldsOf<WriteOptions>({ force: K.boolean });
+export const writeTable = guarded(
+  'writeTable',
+  [table, { name: 'path', kind: K.string }, { name: 'format', kind: formatOrOptions, optional: true, fields: writeFields }, opts('options', writeFields, true)],
+  writeTable0,
+  true,
+);
 export const deriveColumn = guarded('deriveColumn', [table, { name: 'name', kind: K.string }, { name: 'expression', kind: K.string }], deriveColumn0);
 export const evaluateExpression = guarded('evaluateExpression', [table, { name: 'expression', kind: K.stringOrExpression }], evaluateExpression0);
 export const buildDataset = guarded(
   'buildDataset',
-  [table, opts('spec', { target: K.string, ...each(K.strings, ['features', 'exclude', 'key', 'keepLabels']), dedupe: K.string, groups: K.groups })],
+  [table, opts('spec', fieldsOf<DatasetSpec>({ target: K.string, features: K.strings, exclude: K.strings, key: K.strings, keepLabels: K.strings, derive: K.derivedSources, dedupe: K.string, groups: K.groups }))],
   buildDataset0,
 );
 export const toDataFrame = guarded('toDataFrame', [table], toDataFrame0, true);
-export const fromDataFrame = guarded('fromDataFrame', [{ name: 'dataFrame', kind: K.dataFrame }, { name: 'source', kind: K.string, optional: true }, opts('options', { kinds: K.object }, true)], fromDataFrame0, true);
+export const fromDataFrame = guarded('fromDataFrame', [{ name: 'dataFrame', kind: K.dataFrame }, { name: 'source', kind: K.string, optional: true }, opts('options', fieldsOf<NonNullable<Parameters<typeof fromDataFrame0>[2]>>({ kinds: K.object }), true)], fromDataFrame0, true);
+const n = K.number;
+const strs = K.strings;
+const bool = K.boolean;
 export const rankFeatures = guarded(
   'rankFeatures',
   [
     table,
-    opts('options', {
-      target: K.string,
-      ...each(K.strings, ['features', 'exclude', 'derive', 'methods']),
-      groups: K.groups,
-      hidden: K.numbers,
-      ...each(K.string, ['split', 'task', 'activation', 'loss', 'engine', 'permutationLoss']),
-      ...each(K.number, ['seeds', 'folds', 'epochs', 'patience', 'batchSize', 'learningRate', 'seed', 'workers', 'dropTop', 'attributionRows', 'smoothGradSamples', 'smoothGradNoise', 'integratedSteps', 'permutationRepeats', 'resamples', 'probes']),
-      onProgress: K.function,
-    }),
+    opts('options', fieldsOf<RankOptions>({
+      target: K.string, features: strs, exclude: strs, derive: strs, groups: K.groups, methods: strs,
+      seeds: n, folds: n, split: K.string, task: K.string, hidden: K.numbers, epochs: n, activation: K.string, loss: K.string,
+      patience: n, batchSize: n, learningRate: n, seed: n, engine: K.string, workers: n, dropTop: n, attributionRows: n,
+      smoothGradSamples: n, smoothGradNoise: n, integratedSteps: n, permutationRepeats: n, permutationLoss: K.string,
+      resamples: n, probes: n, onProgress: K.function,
+    })),
   ],
   rankFeatures0,
   true,
 );
 export const fitRelation = guarded(
   'fitRelation',
-  [table, opts('spec', { target: K.string, terms: K.strings, noisyTerms: K.strings, derive: K.derivedPairs, split: K.object, ...each(K.boolean, ['intercept', 'keepDuplicates', 'keepResiduals']), ...each(K.number, ['seed', 'folds', 'level']) })],
+  [table, opts('spec', fieldsOf<FitSpec>({
+    target: K.string, terms: strs, intercept: bool, derive: K.derivedPairs, split: K.object, seed: n, folds: n, level: n,
+    keepDuplicates: bool, noisyTerms: strs, keepResiduals: bool,
+  }))],
   fitRelation0,
 );
 export const searchRelations = guarded(
   'searchRelations',
-  [
-    table,
-    opts('spec', {
-      target: K.string,
-      from: K.strings,
-      powers: K.numbers,
-      derive: K.derivedPairs,
-      split: K.object,
-      keepDuplicates: K.boolean,
-      lattice: stepOrWord,
-      ...each(K.number, ['maxTerms', 'top', 'seed', 'maxComplexity', 'beam', 'maxExhaustive', 'screenRows', 'maxCells', 'timeLimit']),
-      ...each(K.function, ['progress', 'now']),
-    }),
-  ],
+  [table, opts('spec', fieldsOf<SearchSpec>({
+    target: K.string, from: strs, maxTerms: n, powers: K.numbers, split: K.object, top: n, seed: n, derive: K.derivedPairs,
+    maxComplexity: n, beam: n, maxExhaustive: n, screenRows: n, keepDuplicates: bool, maxCells: n, timeLimit: n,
+    lattice: stepOrWord, progress: K.function, now: K.function,
+  }))],
   searchRelations0,
 );
 export const findBound = guarded(
   'findBound',
-  [table, opts('spec', { lhs: K.string, rhs: K.stringOrStrings, by: K.string, form: K.string, ...each(K.strings, ['id', 'derive']), ...each(K.number, ['bins', 'top']), ...each(K.boolean, ['skipInvalid', 'lower']) })],
+  [table, opts('spec', fieldsOf<BoundSpec>({
+    lhs: K.string, rhs: K.stringOrStrings, by: K.string, bins: n, top: n, id: strs, skipInvalid: bool, lower: bool, derive: strs, form: K.string,
+  }))],
   findBound0,
 );
 export const discoverBound = guarded(
   'discoverBound',
-  [
-    table,
-    opts('spec', {
-      lhs: K.string,
-      ...each(K.strings, ['from', 'id', 'derive']),
-      ...each(K.boolean, ['lower', 'skipInvalid']),
-      ...each(K.number, ['maxExponent', 'maxDenominator', 'proposals', 'top', 'bins', 'seed', 'heldOut', 'exceedances']),
-    }),
-  ],
+  [table, opts('spec', fieldsOf<DiscoverSpec>({
+    lhs: K.string, from: strs, lower: bool, maxExponent: n, maxDenominator: n, proposals: n, top: n, bins: n, seed: n,
+    heldOut: n, exceedances: n, id: strs, skipInvalid: bool, derive: strs,
+  }))],
   discoverBound0,
 );
-export const renderReport = guarded('renderReport', [{ name: 'input', kind: K.object }, opts('options', {}, true)], renderReport0, true);
+export const renderReport = guarded(
+  'renderReport',
+  [{ name: 'input', kind: K.object }, opts('options', fieldsOf<ReportOptions>({ seed: n, maxPoints: n, scatterMode: K.string, png: bool, pngScale: n }), true)],
+  renderReport0,
+  true,
+);
 export const executeRun = guarded(
   'executeRun',
-  [{ name: 'config', kind: K.object }, opts('options', { out: K.string, force: K.boolean, engine: K.string, ...each(K.function, ['onStage', 'onRankProgress', 'onSearchProgress']) }, true)],
+  [
+    { name: 'config', kind: K.object },
+    opts('options', fieldsOf<RunOptions>({ out: K.string, force: bool, engine: K.string, onStage: K.function, onRankProgress: K.function, onSearchProgress: K.function }), true),
+  ],
   executeRun0,
   true,
 );

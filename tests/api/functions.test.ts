@@ -2,6 +2,8 @@ import { describe, it, expect } from 'vitest';
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import * as api from '../../src/api/functions.ts';
 import * as lib from '../../src/index.ts';
 import { tableFromRecords as rawRecords } from '../../src/table/columns.ts';
@@ -41,6 +43,19 @@ describe('the library entry checks argument types', () => {
     await expect(p).rejects.toMatchObject({ code: 'api.badArgument', message: 'rankFeatures: expected options.features to be a list of strings, got the number 7' });
     await expect(api.readTable(42 as never)).rejects.toBeInstanceOf(SurmiseError);
     await expect(api.runCli('rank' as never, {} as never)).rejects.toMatchObject({ details: { function: 'runCli', argument: 'args' } });
+  });
+
+  it('an options key the function does not take is refused with a did-you-mean, never ignored', async () => {
+    await expect(api.rankFeatures(t, { target: 'y', method: ['saliency'] } as never)).rejects.toMatchObject({
+      code: 'api.badArgument',
+      message: "rankFeatures: options has no key 'method' (did you mean 'methods'?)",
+      details: { function: 'rankFeatures', argument: 'options.method' },
+    });
+    expect(caught(() => api.fitRelation(t, { target: 'y', terms: ['a'], zzz: 1 } as never)).message).toBe(
+      "fitRelation: spec has no key 'zzz'; it takes target, terms, intercept, derive, split, seed, folds, level, keepDuplicates, noisyTerms, keepResiduals",
+    );
+    // nothing is written: the check comes first (the path is in a folder that does not exist)
+    await expect(api.writeTable(t, join(tmpdir(), 'surmise-no-such-dir', 'x.csv'), { forse: true } as never)).rejects.toMatchObject({ code: 'api.badArgument', details: { argument: 'format.forse' } });
   });
 
   it('right types pass through unchanged (least squares on an exact law returns it: y = 2a + b − 1)', () => {
