@@ -74,9 +74,9 @@ for (let r = 1; r <= RUNS; r++) {
     process.exit(1);
   }
   walls.push(wall);
-  const results = JSON.parse(readFileSync(join(work, 'out', 'results.json'), 'utf8')) as { timings?: Record<string, number>; rank?: { model?: { engine?: string } } };
+  const results = JSON.parse(readFileSync(join(work, 'out', 'results.json'), 'utf8')) as { timings?: Record<string, number>; rank?: { model?: { engine?: string; epochsRun?: number[] } } };
   const stages = Object.entries(results.timings ?? {}).map(([k, v]) => `${k} ${v} s`).join(', ');
-  console.log(`run ${r}: ${wall.toFixed(1)} s wall (engine ${results.rank?.model?.engine ?? '?'}; ${stages}; load average before ${before}, after ${load()})`);
+  console.log(`run ${r}: ${wall.toFixed(1)} s wall (engine ${results.rank?.model?.engine ?? '?'}, epochs run ${results.rank?.model?.epochsRun?.join(', ') ?? '?'}; ${stages}; load average before ${before}, after ${load()})`);
 }
 console.log(`surmise run, demo configuration, ${ROWS} rows: median ${median(walls).toFixed(1)} s of ${RUNS} run(s)` + (ROWS === 1_000_000 ? `; target < 240 s: ${median(walls) < 240 ? 'met' : 'NOT met'}` : ''));
 rmSync(work, { recursive: true, force: true });
