@@ -3,12 +3,16 @@
  * exit code 2, and a message that names the file, line and column, the config key, or the
  * expression position. Our own bugs are anything else (exit code 1).
  */
+import type { ErrorCode } from './error-codes.ts';
+
+export { ERROR_CODES, isErrorCode, type ErrorCode } from './error-codes.ts';
+
 export class SurmiseError extends Error {
-  readonly code: string;
+  readonly code: ErrorCode;
   readonly exitCode: 1 | 2;
   readonly details: Record<string, unknown> | undefined;
 
-  constructor(code: string, message: string, details?: Record<string, unknown>, exitCode: 1 | 2 = 2) {
+  constructor(code: ErrorCode, message: string, details?: Record<string, unknown>, exitCode: 1 | 2 = 2) {
     super(message);
     this.name = 'SurmiseError';
     this.code = code;
@@ -82,4 +86,28 @@ export function printable(s: string, max = 60): string {
     c === '\n' ? '\\n' : c === '\t' ? '\\t' : c === '\r' ? '\\r' : `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`,
   );
   return s.length > max ? `${esc}… (${s.length.toLocaleString('en-US')} characters)` : esc;
+}
+
+/**
+ * A library error that names an option by its key (`details.option`, and `details.also` for more),
+ * reworded for the layer the user wrote it in: `word(key)` is the CLI flag (`--skip-invalid`) or
+ * the configuration key path (`bounds[0].skipInvalid`). Library messages mark an option they name
+ * mid-sentence in backquotes (`` `skipInvalid` ``) or name it as "expected KEY to be …"; both are
+ * reworded. An error without `details.option`, or whose keys `word` does not know, is returned as is.
+ */
+export function wordOptionError(e: SurmiseError, word: (key: string) => string | undefined): SurmiseError {
+  const key = e.details?.option;
+  if (typeof key !== 'string' || e.details?.worded !== undefined) return e;
+  const also = Array.isArray(e.details?.also) ? (e.details.also as unknown[]).filter((k): k is string => typeof k === 'string') : [];
+  let message = e.message;
+  for (const k of [key, ...also]) {
+    const w = word(k);
+    if (w === undefined) continue;
+    const q = k.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+    message = message.replace(new RegExp('`' + q + '`', 'g'), w).replace(new RegExp(`\\bexpected ${q} to be\\b`, 'g'), `expected ${w} to be`);
+  }
+  if (message === e.message) return e;
+  const out = new SurmiseError(e.code, message, { ...e.details, worded: true }, e.exitCode);
+  out.stack = e.stack;
+  return out;
 }

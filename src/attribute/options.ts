@@ -1,51 +1,87 @@
+/**
+ * The options of rankFeatures: one table (key, type, range, default, meaning) that the library
+ * checks its options against, the `rank` command builds its flags from and the run configuration
+ * its keys from (`configKey` is the key path there: `network.epochs`, `attribution.seeds`, `seed`).
+ * Defaults: chosen to finish 20,000 rows in < 60 s on 2 cores (bench/attribute.ts, Friedman #1).
+ */
+import { defaultsOf, optionOf, type OptionTable } from '../util/option-table.ts';
 import type { IntegerRange } from '../util/integer.ts';
+import { ATTRIBUTION_METHODS } from './methods/index.ts';
 
-/** Defaults: chosen to finish 20,000 rows in < 60 s on 2 cores (bench/attribute.ts, Friedman #1). */
+const SEED_MAX = 0xffffffff;
+
+export const RANK_OPTIONS: OptionTable = [
+  { key: 'features', type: 'list', default: null, description: 'use only these features (default: every numeric column but the target)' },
+  { key: 'exclude', type: 'list', default: [], description: 'leave these columns out of the features' },
+  { key: 'methods', type: 'list', min: 1, choices: ATTRIBUTION_METHODS, noun: 'an attribution method', default: ATTRIBUTION_METHODS, flag: 'method', configKey: 'attribution.methods', description: `attribution methods: ${ATTRIBUTION_METHODS.join('|')}|all, or a comma list` },
+  { key: 'seeds', type: 'integer', min: 1, max: 100, default: 3, configKey: 'attribution.seeds', description: 'networks per split' },
+  { key: 'folds', type: 'integer', min: 0, max: 50, default: 0, configKey: 'attribution.folds', description: '0 = one random split per seed; k ≥ 2 = k-fold cross-validation (1 is refused)' },
+  { key: 'split', type: 'text', default: null, description: 'random | random:TRAIN,VALIDATION,TEST | kfold:K | where:CONDITION (default random 70/15/15, or kfold:K with folds K)' },
+  { key: 'task', type: 'choice', choices: ['auto', 'regression', 'classification'], default: 'auto', configKey: 'network.task', description: 'regression or classification; auto chooses from the target' },
+  { key: 'hidden', type: 'integers', min: 1, max: 4096, maxItems: 16, noun: 'layer width', default: [64, 64, 64], configKey: 'network.hidden', description: 'hidden layer widths (none or an empty list: a linear model)' },
+  { key: 'epochs', type: 'integer', min: 1, max: 10_000, default: 60, configKey: 'network.epochs', description: 'most training epochs (early stopping on the validation rows)' },
+  { key: 'activation', type: 'choice', choices: ['relu', 'gelu'], default: 'relu', configKey: 'network.activation', description: 'hidden-layer activation' },
+  { key: 'loss', type: 'choice', choices: ['mse', 'huber'], default: 'mse', configKey: 'network.loss', description: 'regression loss (huber is less swayed by outlying rows)' },
+  { key: 'patience', type: 'integer', min: 0, max: 10_000, default: 8, configKey: 'network.patience', description: 'epochs without improvement on the validation rows before training stops' },
+  { key: 'batchSize', type: 'integer', min: 1, max: 1 << 20, default: null, configKey: 'network.batchSize', description: 'mini-batch size (default: chosen from the training rows)' },
+  { key: 'learningRate', type: 'number', min: 0, max: 10, openMin: true, default: 2e-3, configKey: 'network.learningRate', description: 'Adam learning rate' },
+  {
+    key: 'engine', type: 'choice', choices: ['auto', 'native', 'tfjs'], default: 'auto', configKey: 'network.engine',
+    description: 'network engine: auto (native when it loads), native or tfjs',
+    inert: 'both engines train the same network from the same seeds; they agree to rounding, not bit for bit (tests/learn/engines.test.ts)',
+  },
+  {
+    key: 'workers', type: 'integer', min: 0, max: 64, default: 0, configKey: 'network.workers',
+    description: 'worker threads for training (0 = train in this thread)',
+    inert: 'decides only where the networks train; each network keeps its own derived seed',
+  },
+  { key: 'seed', type: 'integer', min: 0, max: SEED_MAX, default: 1, description: 'the seed every other seed is derived from' },
+  { key: 'dropTop', type: 'integer', min: 0, max: 100, default: 0, configKey: 'attribution.dropTop', description: 'also retrain without the k best groups and report the skill left' },
+  { key: 'probes', type: 'integer', min: 0, max: 50, default: 6, configKey: 'attribution.probes', description: 'noise probes per repeat: half permuted copies of features, half Gaussian columns; 0 = none' },
+  { key: 'permutationLoss', type: 'choice', choices: ['error', 'cross-entropy'], default: 'error', configKey: 'attribution.permutationLoss', description: 'classification loss of permutation importance: error (drop in accuracy) or cross-entropy' },
+  { key: 'attributionRows', type: 'integer', min: 2, max: 1_000_000, default: 2000, configKey: 'attribution.rows', description: 'held-out rows attributed per repeat (a seeded subsample)' },
+  { key: 'smoothGradSamples', type: 'integer', min: 1, max: 1000, default: 16, configKey: 'attribution.smoothGradSamples', description: 'noisy copies per row for SmoothGrad' },
+  { key: 'smoothGradNoise', type: 'number', min: 0, max: 10, default: 0.15, configKey: 'attribution.smoothGradNoise', description: 'SmoothGrad noise, in standard deviations of the standardized inputs' },
+  { key: 'integratedSteps', type: 'integer', min: 1, max: 10_000, default: 32, configKey: 'attribution.integratedSteps', description: 'Riemann steps of integrated gradients' },
+  { key: 'permutationRepeats', type: 'integer', min: 1, max: 1000, default: 5, configKey: 'attribution.permutationRepeats', description: 'shuffles per feature group for permutation importance' },
+  { key: 'resamples', type: 'integer', min: 10, max: 100_000, default: 1000, configKey: 'attribution.resamples', description: 'bootstrap resamples of the intervals' },
+];
+
+/** The defaults of RANK_OPTIONS by key (`batchSize: null` = chosen from the training rows). */
 export const RANK_DEFAULTS = Object.freeze({
-  seeds: 3,
-  folds: 0,
-  hidden: [64, 64, 64] as readonly number[],
-  activation: 'relu' as const,
-  loss: 'mse' as const,
-  epochs: 60,
-  patience: 8,
+  ...(defaultsOf(RANK_OPTIONS) as {
+    seeds: number; folds: number; hidden: readonly number[]; activation: 'relu'; loss: 'mse'; epochs: number; patience: number;
+    learningRate: number; seed: number; attributionRows: number; smoothGradSamples: number; smoothGradNoise: number;
+    integratedSteps: number; permutationRepeats: number; resamples: number; workers: number; probes: number; dropTop: number;
+  }),
+  /** The largest batch batchSizeFor chooses (a smaller table gets smaller batches). */
   batchSize: 256,
-  learningRate: 2e-3,
-  seed: 1,
-  attributionRows: 2000,
-  smoothGradSamples: 16,
-  smoothGradNoise: 0.15,
-  integratedSteps: 32,
-  permutationRepeats: 5,
-  resamples: 1000,
-  workers: 0,
-  probes: 6,
 });
 
-/**
- * Ranges of rankFeatures' count options. Each ceiling keeps a run finite on a shared machine
- * (e.g. `seeds: 1e9` would train for ever); the README's option tables quote them.
- */
+const range = (key: string): IntegerRange => {
+  const o = optionOf(RANK_OPTIONS, key);
+  if (o.type !== 'integer' && o.type !== 'integers') throw new Error(`${key} is not an integer option`);
+  return { min: o.min, max: o.max };
+};
+
+/** Ranges of rankFeatures' count options, read from RANK_OPTIONS (the README's option tables quote them). */
 export const RANK_LIMITS = Object.freeze({
-  seeds: { min: 1, max: 100 },
-  folds: { min: 0, max: 50 },
-  epochs: { min: 1, max: 10_000 },
-  /** Epochs without improvement on the validation rows before training stops. */
-  patience: { min: 0, max: 10_000 },
-  /** Mini-batch size (default: chosen from the training rows, see batchSizeFor). */
-  batchSize: { min: 1, max: 1 << 20 },
+  seeds: range('seeds'),
+  folds: range('folds'),
+  epochs: range('epochs'),
+  patience: range('patience'),
+  batchSize: range('batchSize'),
   /** Width of one hidden layer. */
-  hiddenWidth: { min: 1, max: 4096 },
+  hiddenWidth: range('hidden'),
   /** Number of hidden layers. */
-  hiddenLayers: { min: 0, max: 16 },
-  dropTop: { min: 0, max: 100 },
-  workers: { min: 0, max: 64 },
-  seed: { min: 0, max: 0xffffffff },
-  attributionRows: { min: 2, max: 1_000_000 },
-  smoothGradSamples: { min: 1, max: 1000 },
-  integratedSteps: { min: 1, max: 10_000 },
-  permutationRepeats: { min: 1, max: 1000 },
-  resamples: { min: 10, max: 100_000 },
-  /** Noise probes per repeat (probes.ts): each is one more network input and attribution group. */
-  probes: { min: 0, max: 50 },
+  hiddenLayers: { min: 0, max: (optionOf(RANK_OPTIONS, 'hidden') as { maxItems: number }).maxItems },
+  dropTop: range('dropTop'),
+  workers: range('workers'),
+  seed: range('seed'),
+  attributionRows: range('attributionRows'),
+  smoothGradSamples: range('smoothGradSamples'),
+  integratedSteps: range('integratedSteps'),
+  permutationRepeats: range('permutationRepeats'),
+  resamples: range('resamples'),
+  probes: range('probes'),
 } satisfies Record<string, IntegerRange>);

@@ -14,9 +14,9 @@ import type { Table } from '../table/types.ts';
 import { buildDataset, type DropReport } from '../table/dataset.ts';
 import { parseDerive } from '../table/expr/index.ts';
 import { SurmiseError } from '../errors.ts';
-import { checkInteger, tooLarge } from '../util/integer.ts';
+import { badOption, checkOptions } from '../util/option-table.ts';
 import { subsampleRows } from '../util/subsample.ts';
-import { RANK_DEFAULTS, RANK_LIMITS } from './options.ts';
+import { RANK_DEFAULTS, RANK_OPTIONS } from './options.ts';
 import type { Activation, LossName } from '../learn/options.ts';
 import { deriveSeed } from '../util/rng.ts';
 import { chooseTask, type Task } from '../learn/options.ts';
@@ -53,7 +53,8 @@ export interface RankOptions {
   folds?: number;
   /** random | random:train,validation,test | kfold:K | where:EXPR (EXPR true → training side). Default random (70/15/15). */
   split?: string;
-  task?: Task;
+  /** 'auto' (default) chooses from the target. */
+  task?: Task | 'auto';
   /** Hidden layer widths. Default RANK_DEFAULTS.hidden. */
   hidden?: number[];
   /** Most training epochs (early stopping may end sooner). Default RANK_DEFAULTS.epochs. */
@@ -167,48 +168,10 @@ export interface Ablation {
   full: Skill;
 }
 
-function checkOptions(o: RankOptions): void {
-  const count = (name: keyof typeof RANK_LIMITS, v: number | undefined) => {
-    if (v !== undefined) checkInteger(name, v, RANK_LIMITS[name], 'rank.badOption');
-  };
-  count('seeds', o.seeds);
-  count('folds', o.folds);
-  if (o.folds === 1) throw new SurmiseError('rank.badOption', 'expected folds to be 0 (one random split) or at least 2, got 1', { option: 'folds' });
-  count('epochs', o.epochs);
-  count('patience', o.patience);
-  count('batchSize', o.batchSize);
-  if (o.learningRate !== undefined && !(typeof o.learningRate === 'number' && Number.isFinite(o.learningRate) && o.learningRate > 0 && o.learningRate <= 10)) {
-    throw new SurmiseError('rank.badOption', `expected learningRate to be a number in (0, 10], got ${String(o.learningRate)}`, { option: 'learningRate' });
-  }
-  if (o.activation !== undefined && o.activation !== 'relu' && o.activation !== 'gelu') {
-    throw new SurmiseError('rank.badOption', `expected activation to be 'relu' or 'gelu', got ${String(o.activation)}`, { option: 'activation' });
-  }
-  if (o.loss !== undefined && o.loss !== 'mse' && o.loss !== 'huber') {
-    throw new SurmiseError('rank.badOption', `expected loss to be 'mse' or 'huber', got ${String(o.loss)}`, { option: 'loss' });
-  }
-  count('seed', o.seed);
-  count('dropTop', o.dropTop);
-  count('workers', o.workers);
-  count('attributionRows', o.attributionRows);
-  count('smoothGradSamples', o.smoothGradSamples);
-  count('integratedSteps', o.integratedSteps);
-  count('permutationRepeats', o.permutationRepeats);
-  count('resamples', o.resamples);
-  count('probes', o.probes);
-  if (o.hidden && !o.hidden.every((h) => Number.isInteger(h) && h >= 1)) {
-    throw new SurmiseError('rank.badOption', `expected hidden to be positive integer layer widths, got ${o.hidden.join(',')}`, { option: 'hidden' });
-  }
-  if (o.hidden) {
-    if (o.hidden.length > RANK_LIMITS.hiddenLayers.max) throw tooLarge('hidden', o.hidden.length, RANK_LIMITS.hiddenLayers, 'the number of hidden layers');
-    for (const h of o.hidden) if (h > RANK_LIMITS.hiddenWidth.max) throw tooLarge('hidden', h, RANK_LIMITS.hiddenWidth, 'each hidden layer width');
-  }
-  if (o.smoothGradNoise !== undefined && !(Number.isFinite(o.smoothGradNoise) && o.smoothGradNoise >= 0)) {
-    throw new SurmiseError('rank.badOption', `expected smoothGradNoise to be a number ≥ 0, got ${o.smoothGradNoise}`, { option: 'smoothGradNoise' });
-  }
-  if (o.permutationLoss !== undefined && o.permutationLoss !== 'error' && o.permutationLoss !== 'cross-entropy') {
-    throw new SurmiseError('rank.badOption', `expected permutationLoss to be 'error' or 'cross-entropy', got ${String(o.permutationLoss)}`, { option: 'permutationLoss' });
-  }
-  for (const m of o.methods ?? []) attributionStrategy(m);
+/** Every option checked once against RANK_OPTIONS; `folds: 1` is refused (no single fold). */
+function checkRankOptions(o: RankOptions): void {
+  checkOptions(RANK_OPTIONS, o as unknown as Record<string, unknown>);
+  if (o.folds === 1) throw badOption('folds', '0 (one random split) or at least 2', 1);
 }
 
 /**
@@ -248,7 +211,7 @@ function entries(r: MethodRanking): RankEntry[] {
 
 /** Rank the table's features as predictors of the target; see the module comment. */
 export async function rankFeatures(table: Table, options: RankOptions): Promise<RankResult> {
-  checkOptions(options);
+  checkRankOptions(options);
   const seed = options.seed ?? RANK_DEFAULTS.seed;
   const nSeeds = options.seeds ?? RANK_DEFAULTS.seeds;
   const folds = options.folds ?? RANK_DEFAULTS.folds;
@@ -270,9 +233,9 @@ export async function rankFeatures(table: Table, options: RankOptions): Promise<
   const p = ds.featureNames.length;
   if (p === 0) throw new SurmiseError('rank.noFeatures', `no numeric feature columns are left to predict '${options.target}' from`);
   const groups: FeatureGroup[] = ds.groups.map((g) => ({ name: g.name, members: [...g.members] }));
-  const task: Task = options.task ?? chooseTask(ds.y, ds.targetKind);
+  const task: Task = options.task === undefined || options.task === 'auto' ? chooseTask(ds.y, ds.targetKind) : options.task;
   if (dropTop >= groups.length) {
-    throw new SurmiseError('rank.badOption', `dropTop ${dropTop} would drop every one of the ${groups.length} feature groups; use at most ${groups.length - 1}`, { option: 'dropTop' });
+    throw new SurmiseError('option.badValue', `\`dropTop\` ${dropTop} would drop every one of the ${groups.length} feature groups; use at most ${groups.length - 1}`, { option: 'dropTop' });
   }
 
   const { plans, spec } = planRepeats(table, ds, { seed, seeds: nSeeds, folds, split: options.split });

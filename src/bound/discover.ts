@@ -1,4 +1,6 @@
 import { SurmiseError } from '../errors.ts';
+import { checkOptions } from '../util/option-table.ts';
+import { DISCOVER_OPTIONS } from './options.ts';
 import type { Table } from '../table/types.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import { trendAlong, type Trend } from './core.ts';
@@ -37,26 +39,7 @@ export interface DiscoverSpec {
   derive?: readonly string[];
 }
 
-/** One option of discovery: its range and default (the one table the library, CLI and config read). */
-export interface DiscoverOption {
-  key: keyof DiscoverSpec;
-  integer: boolean;
-  min: number;
-  max: number;
-  default: number | null;
-  description: string;
-}
-
-export const DISCOVER_OPTIONS: readonly DiscoverOption[] = [
-  { key: 'maxExponent', integer: true, min: 1, max: 12, default: 4, description: 'largest |exponent| of a quantity' },
-  { key: 'maxDenominator', integer: true, min: 1, max: 12, default: 4, description: 'largest denominator of a snapped exponent' },
-  { key: 'proposals', integer: true, min: 1, max: 50, default: 5, description: 'proposals returned, best first' },
-  { key: 'top', integer: true, min: 1, max: 1000, default: 5, description: 'witness rows per proposal' },
-  { key: 'bins', integer: true, min: 3, max: 1000, default: 10, description: 'equal-count strata per quantity for the trends' },
-  { key: 'seed', integer: true, min: -(2 ** 31), max: 2 ** 32 - 1, default: 1, description: 'seed of the selection / held-out split' },
-  { key: 'heldOut', integer: false, min: 0.1, max: 0.9, default: 0.4, description: 'share of rows held out' },
-  { key: 'exceedances', integer: true, min: 30, max: 100000, default: null, description: 'exceedances for the tail estimate (default: a tenth of the rows, at most 1000)' },
-];
+export { DISCOVER_OPTIONS } from './options.ts';
 
 export const MAX_FROM = 6;
 
@@ -169,8 +152,8 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
     throw new SurmiseError(
       'bound.invalidRows',
       `${table.source}: ${dropped.total} of ${n} rows cannot be used to search ${o.lhs} ${upper ? '≤' : '≥'} c·Π x^k over ${o.from.join(', ')} ` +
-        `(the quantities must be > 0${upper ? '' : ' and so must lhs'}); first: ${first}. Pass --skip-invalid to drop and count them`,
-      { counts: dropped, rows: bad.map((b) => b.i + 1) },
+        `(the quantities must be > 0${upper ? '' : ' and so must lhs'}); first: ${first}. With \`skipInvalid\` they are dropped and counted instead`,
+      { counts: dropped, rows: bad.map((b) => b.i + 1), option: 'skipInvalid' },
     );
   }
   const rows = keepAll.slice(0, kept);
@@ -367,40 +350,19 @@ interface CheckedDiscover {
 
 /** Options checked once against DISCOVER_OPTIONS; errors name the option key. */
 export function checkDiscoverSpec(spec: DiscoverSpec): CheckedDiscover {
-  if (typeof spec.lhs !== 'string' || spec.lhs.trim() === '') throw new SurmiseError('bound.badOption', 'expected lhs to be an expression, got nothing', { key: 'lhs' });
+  if (typeof spec.lhs !== 'string' || spec.lhs.trim() === '') throw new SurmiseError('bound.badOption', 'expected lhs to be an expression, got nothing', { option: 'lhs' });
   const from = [...(spec.from ?? [])];
   if (from.length === 0 || from.length > MAX_FROM) {
-    throw new SurmiseError('bound.badOption', `expected from to list 1 to ${MAX_FROM} quantities, got ${from.length}`, { key: 'from' });
+    throw new SurmiseError('bound.badOption', `expected from to list 1 to ${MAX_FROM} quantities, got ${from.length}`, { option: 'from' });
   }
-  for (const f of from) if (typeof f !== 'string' || f.trim() === '') throw new SurmiseError('bound.badOption', 'expected every from quantity to be an expression, got an empty one', { key: 'from' });
+  for (const f of from) if (typeof f !== 'string' || f.trim() === '') throw new SurmiseError('bound.badOption', 'expected every from quantity to be an expression, got an empty one', { option: 'from' });
   const dup = from.find((f, i) => from.indexOf(f) !== i);
-  if (dup !== undefined) throw new SurmiseError('bound.badOption', `from lists '${dup}' twice`, { key: 'from' });
-  const num: Record<string, number | null> = {};
-  for (const opt of DISCOVER_OPTIONS) {
-    const v = spec[opt.key];
-    if (v === undefined) {
-      num[opt.key] = opt.default;
-      continue;
-    }
-    if (typeof v !== 'number' || !Number.isFinite(v) || (opt.integer && !Number.isInteger(v)) || v < opt.min || v > opt.max) {
-      throw new SurmiseError('bound.badOption', `expected ${opt.key} to be ${opt.integer ? 'an integer' : 'a number'} from ${opt.min} to ${opt.max}, got ${String(v)}`, { key: opt.key });
-    }
-    num[opt.key] = v;
-  }
+  if (dup !== undefined) throw new SurmiseError('bound.badOption', `from lists '${dup}' twice`, { option: 'from' });
+  const o = checkOptions<Omit<CheckedDiscover, 'lhs' | 'from' | 'derive'>>(DISCOVER_OPTIONS, spec as unknown as Record<string, unknown>);
   return {
     lhs: spec.lhs,
     from,
-    lower: Boolean(spec.lower),
-    maxExponent: num.maxExponent!,
-    maxDenominator: num.maxDenominator!,
-    proposals: num.proposals!,
-    top: num.top!,
-    bins: num.bins!,
-    seed: num.seed!,
-    heldOut: num.heldOut!,
-    exceedances: num.exceedances ?? null,
-    id: spec.id ? [...spec.id] : null,
-    skipInvalid: Boolean(spec.skipInvalid),
+    ...o,
     derive: [...(spec.derive ?? [])],
   };
 }

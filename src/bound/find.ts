@@ -1,4 +1,5 @@
-import { checkInteger, type IntegerRange } from '../util/integer.ts';
+import { checkOptions } from '../util/option-table.ts';
+import { BOUND_OPTIONS, type BoundForm } from './options.ts';
 import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
 import { boundArrays, fmt, type Trend } from './core.ts';
@@ -29,8 +30,7 @@ export interface BoundSpec {
   form?: BoundForm;
 }
 
-export const BOUND_FORMS = ['ratio', 'affine', 'two-sided'] as const;
-export type BoundForm = (typeof BOUND_FORMS)[number];
+export { BOUND_FORMS, BOUND_LIMITS, type BoundForm } from './options.ts';
 
 /** An affine bound with its rows closest to equality. */
 export interface AffineBound {
@@ -207,12 +207,6 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
   return { source: table.source, lhs: opts.lhs, by: opts.by, form: upper ? 'upper' : 'lower', n, dropped, results };
 }
 
-/** Ranges of findBound's count options (strata and witness rows); the ceilings keep output finite. */
-export const BOUND_LIMITS = Object.freeze({
-  bins: { min: 1, max: 1000 },
-  top: { min: 1, max: 1000 },
-} satisfies Record<string, IntegerRange>);
-
 interface CheckedSpec {
   lhs: string;
   rhs: string[];
@@ -231,26 +225,8 @@ function checkSpec(spec: BoundSpec): CheckedSpec {
   if (typeof spec.lhs !== 'string' || spec.lhs.trim() === '') throw new SurmiseError('bound.badOption', 'expected lhs to be an expression, got nothing');
   if (rhs.length === 0) throw new SurmiseError('bound.badOption', 'expected at least one rhs expression, got none');
   for (const r of rhs) if (typeof r !== 'string' || r.trim() === '') throw new SurmiseError('bound.badOption', 'expected every rhs to be an expression, got an empty one');
-  if (spec.by !== undefined && (typeof spec.by !== 'string' || spec.by.trim() === '')) throw new SurmiseError('bound.badOption', 'expected by to be an expression, got an empty one');
-  const int = (name: keyof typeof BOUND_LIMITS, v: unknown, dflt: number): number =>
-    v === undefined ? dflt : checkInteger(name, v, BOUND_LIMITS[name], 'bound.badOption');
-  return {
-    lhs: spec.lhs,
-    rhs,
-    by: spec.by ?? null,
-    bins: int('bins', spec.bins, 10),
-    top: int('top', spec.top, 5),
-    id: spec.id ? [...spec.id] : null,
-    skipInvalid: Boolean(spec.skipInvalid),
-    lower: Boolean(spec.lower),
-    form: checkForm(spec.form),
-  };
-}
-
-function checkForm(f: unknown): BoundForm {
-  if (f === undefined) return 'ratio';
-  if (typeof f === 'string' && (BOUND_FORMS as readonly string[]).includes(f)) return f as BoundForm;
-  throw new SurmiseError('bound.badOption', `expected form to be one of ${BOUND_FORMS.join(', ')}, got ${String(f)}`, { key: 'form' });
+  const o = checkOptions<Omit<CheckedSpec, 'lhs' | 'rhs'>>(BOUND_OPTIONS, spec as unknown as Record<string, unknown>);
+  return { lhs: spec.lhs, rhs, ...o };
 }
 
 function refuse(
@@ -277,7 +253,7 @@ function refuse(
   throw new SurmiseError(
     code,
     `${table.source}: ${d.total} of ${table.nRows} rows cannot be used for ${lhsSrc} ${upper ? '≤' : '≥'} c·(${rhsSrc})${bySrc ? ` along ${bySrc}` : ''} ` +
-      `(${parts.join(', ')}); first: ${first}. Pass --skip-invalid to drop and count them`,
-    { counts: d, rows: bad.map((i) => i + 1) },
+      `(${parts.join(', ')}); first: ${first}. With \`skipInvalid\` they are dropped and counted instead`,
+    { counts: d, rows: bad.map((i) => i + 1), option: 'skipInvalid' },
   );
 }

@@ -12,7 +12,7 @@ export function withDerived(table: Table, derive: readonly string[]): Table {
   for (const spec of derive) {
     const { name, source } = parseDerive(spec);
     if (t.columns.some((c) => c.name === name)) {
-      throw new SurmiseError('bound.deriveClash', `${table.source}: --derive ${spec}: the table already has a column '${name}'; choose another name`);
+      throw new SurmiseError('table.duplicateColumn', `${table.source}: \`derive\` ${spec}: the table already has a column '${name}'; choose another name`, { option: 'derive' });
     }
     const col = deriveColumn(t, name, source);
     t = { ...t, columns: [...t.columns, col] };

@@ -2,13 +2,16 @@ import type { Command } from 'commander';
 import { resolve } from 'node:path';
 import { readingProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
-import { collect, parsePositiveInt, rangeHelp } from './options.ts';
+import { addTableOptions, collect, flagFor, readTableOptions } from './options.ts';
 import { SurmiseError } from '../errors.ts';
-import { BOUND_LIMITS } from '../bound/find.ts';
 import { readTable, type TableFormat } from '../table/read.ts';
 import { writeTable } from '../table/write.ts';
-import { findBound, BOUND_FORMS, type BoundForm } from '../bound/find.ts';
-import { discoverBound, DISCOVER_OPTIONS, type DiscoverSpec } from '../bound/discover.ts';
+import { COLUMN_KINDS } from '../table/columns.ts';
+import { findBound } from '../bound/find.ts';
+import { discoverBound, type DiscoverSpec } from '../bound/discover.ts';
+import { BOUND_OPTIONS, DISCOVER_OPTIONS } from '../bound/options.ts';
+import type { OptionSpec, OptionTable } from '../util/option-table.ts';
+import { parseKindOptions } from './inspect.ts';
 import { formatBound, formatDiscovery } from '../bound/format.ts';
 import { witnessTable } from '../bound/witness-table.ts';
 
@@ -16,42 +19,22 @@ interface BoundOptions {
   lhs: string;
   rhs: string[];
   from?: string;
-  by?: string;
-  bins?: string;
-  top: string;
-  id: string[];
   derive: string[];
-  skipInvalid?: boolean;
-  lower?: boolean;
-  form: string;
-  maxExponent?: string;
-  maxDenominator?: string;
-  proposals?: string;
-  seed?: string;
-  heldOut?: string;
-  exceedances?: string;
+  kind: string[];
   witnesses?: string;
   force?: boolean;
   json?: boolean;
   format?: string;
   progress: boolean;
+  [table: string]: unknown;
 }
 
-/** CLI flag of each discovery option (the ranges come from DISCOVER_OPTIONS). */
-const DISCOVER_FLAGS: Partial<Record<keyof DiscoverSpec, keyof BoundOptions>> = {
-  maxExponent: 'maxExponent',
-  maxDenominator: 'maxDenominator',
-  proposals: 'proposals',
-  seed: 'seed',
-  heldOut: 'heldOut',
-  exceedances: 'exceedances',
-  bins: 'bins',
-};
-const flagName = (k: string) => '--' + k.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
+/** Keys of one mode's table that the other mode does not have (given in the wrong mode: a conflict). */
+const only = (a: OptionTable, b: OptionTable): OptionSpec[] => a.filter((o) => !b.some((p) => p.key === o.key));
 
 /** `surmise bound`: the tightest constant c of lhs ≤ c·rhs on a table, or a search for the rhs itself. */
 export function registerBound(program: Command, io: CliIO): void {
-  program
+  const cmd = program
     .command('bound')
     .description(
       'tightest constant c with lhs ≤ c·rhs on every row (max of lhs/rhs), the rows attaining it, quantiles of the ratio,\n' +
@@ -62,20 +45,11 @@ export function registerBound(program: Command, io: CliIO): void {
     .requiredOption('--lhs <expr>', 'left-hand side expression, e.g. "abs(3*k - z)"')
     .option('--rhs <expr>', 'right-hand side expression, > 0 on every row (repeat to compare candidates)', collect, [])
     .option('--from <exprs>', 'search the rhs among monomials of these positive quantities (comma-separated, 1 to 6)')
-    .option('--by <expr>', 'with --rhs: stratify by this expression (default: each candidate by its own rhs)')
-    .option('--bins <n>', `number of equal-count strata (default 10)${rangeHelp(BOUND_LIMITS.bins)}`)
-    .option('--top <k>', `number of witness rows shown${rangeHelp(BOUND_LIMITS.top)}`, '5')
-    .option('--id <col>', 'column shown beside witness rows (repeat or comma-separate; default: every label column)', collect, [])
     .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. ratio=re(zb/za) (repeatable)', collect, [])
-    .option('--skip-invalid', 'drop and count rows with a missing cell, a non-finite value or rhs ≤ 0 instead of refusing them')
-    .option('--lower', 'the lower form: largest c with lhs ≥ c·rhs on every row (min of lhs/rhs)')
-    .option('--form <form>', `with --rhs: ${BOUND_FORMS.join(', ')} (affine adds lhs ≤ c·rhs + d; two-sided adds both affine sides)`, 'ratio')
-    .option('--max-exponent <k>', 'with --from: largest |exponent| (default 4)')
-    .option('--max-denominator <q>', 'with --from: largest denominator of an exponent (default 4)')
-    .option('--proposals <n>', 'with --from: proposals shown, best first (default 5)')
-    .option('--seed <n>', 'with --from: seed of the selection / held-out split (default 1)')
-    .option('--held-out <share>', 'with --from: share of rows held out (default 0.4)')
-    .option('--exceedances <k>', 'with --from: exceedances for the tail estimate of the true constant (default: a tenth of the rows, at most 1000)')
+    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, []);
+  addTableOptions(cmd, BOUND_OPTIONS);
+  addTableOptions(cmd, DISCOVER_OPTIONS);
+  cmd
     .option('--witnesses <file>', 'write the witness rows with every column to this CSV/TSV/JSON file (atomically)')
     .option('--force', 'replace an existing --witnesses file')
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
@@ -86,55 +60,36 @@ export function registerBound(program: Command, io: CliIO): void {
       if (discovering === opts.rhs.length > 0) {
         throw new SurmiseError('option.conflict', discovering ? 'give either --rhs or --from, not both' : 'give a right-hand side with --rhs, or search for one with --from');
       }
-      if (discovering && (opts.by !== undefined || opts.form !== 'ratio')) {
-        throw new SurmiseError('option.conflict', `${opts.by !== undefined ? '--by' : '--form'} applies to --rhs; with --from every quantity is its own stratifying axis`);
-      }
-      if (!discovering) {
-        for (const k of Object.values(DISCOVER_FLAGS)) {
-          if (k !== 'bins' && opts[k] !== undefined) throw new SurmiseError('option.conflict', `${flagName(k)} applies to --from`);
+      // an option of the other mode's table given: say which mode it belongs to
+      const [own, other, otherMode] = discovering ? [DISCOVER_OPTIONS, BOUND_OPTIONS, '--rhs'] : [BOUND_OPTIONS, DISCOVER_OPTIONS, '--from'];
+      for (const o of only(other, own)) {
+        const flag = flagFor(cmd, o.key) ?? o.key;
+        if (opts[flag.replace(/^--/, '').replace(/-([a-z])/g, (_, c: string) => c.toUpperCase())] !== undefined) {
+          throw new SurmiseError('option.conflict', `${flag} applies to ${otherMode}${discovering ? '; with --from every quantity is its own stratifying axis' : ''}`, { option: o.key });
         }
       }
-      const top = parsePositiveInt('--top', opts.top, BOUND_LIMITS.top.max);
-      const id = opts.id.flatMap((s) => s.split(',')).map((s) => s.trim()).filter((s) => s.length > 0);
+      const given = readTableOptions(own, opts);
+      const kinds = parseKindOptions(opts.kind);
       const witnessPath = opts.witnesses !== undefined ? resolve(io.cwd, opts.witnesses) : null;
       const reading = readingProgress(io, file, opts.progress);
       const table = await readTable(resolve(io.cwd, file), {
         displayName: file,
         ...(opts.format !== undefined ? { format: opts.format as TableFormat } : {}),
+        ...(Object.keys(kinds).length ? { kinds } : {}),
         onProgress: reading.onProgress,
       }).finally(() => reading.stop());
-      const common = { top, ...(id.length > 0 ? { id } : {}), derive: opts.derive, skipInvalid: Boolean(opts.skipInvalid), lower: Boolean(opts.lower) };
+      const common = { ...given, derive: opts.derive };
       let text: string;
       let json: unknown;
       let groups: Array<{ rhs: string; witnesses: Array<{ row: number; ratio: number; lhs: number; rhs: number }> }>;
       if (discovering) {
         const spec: DiscoverSpec = { lhs: opts.lhs, from: opts.from!.split(',').map((s) => s.trim()).filter((s) => s.length > 0), ...common };
-        for (const opt of DISCOVER_OPTIONS) {
-          const flag = DISCOVER_FLAGS[opt.key];
-          const raw = flag ? (opts[flag] as string | undefined) : undefined;
-          if (raw === undefined) continue;
-          const v = Number(raw);
-          if (raw.trim() === '' || !Number.isFinite(v) || (opt.integer && !Number.isInteger(v)) || v < opt.min || v > opt.max) {
-            throw new SurmiseError('option.badValue', `expected ${flagName(flag!)} to be ${opt.integer ? 'an integer' : 'a number'} from ${opt.min} to ${opt.max}, got '${raw}'`);
-          }
-          (spec as unknown as Record<string, number>)[opt.key] = v;
-        }
         const res = discoverBound(table, spec);
         text = formatDiscovery(res);
         json = res;
         groups = res.proposals.map((p) => ({ rhs: p.rhs, witnesses: p.witnesses }));
       } else {
-        if (!(BOUND_FORMS as readonly string[]).includes(opts.form)) {
-          throw new SurmiseError('option.badValue', `expected --form to be one of ${BOUND_FORMS.join(', ')}, got '${opts.form}'`);
-        }
-        const res = findBound(table, {
-          lhs: opts.lhs,
-          rhs: opts.rhs,
-          ...(opts.by !== undefined ? { by: opts.by } : {}),
-          ...(opts.bins !== undefined ? { bins: parsePositiveInt('--bins', opts.bins, BOUND_LIMITS.bins.max) } : {}),
-          form: opts.form as BoundForm,
-          ...common,
-        });
+        const res = findBound(table, { lhs: opts.lhs, rhs: opts.rhs, ...common });
         text = formatBound(res);
         json = res;
         groups = res.results.map((r) => ({ rhs: r.rhs, witnesses: r.witnesses }));

@@ -6,13 +6,16 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
-import { collect, rangeHelp } from './options.ts';
-import { tooLarge } from '../util/integer.ts';
-import { RELATE_LIMITS } from '../relate/limits.ts';
+import { addTableOptions, collect, readTableOptions } from './options.ts';
+import { FIT_OPTIONS } from '../relate/options.ts';
+import { optionOf } from '../util/option-table.ts';
 import { SurmiseError } from '../errors.ts';
 import { readTable } from '../table/read.ts';
+import { COLUMN_KINDS } from '../table/columns.ts';
+import type { ColumnKind, Table } from '../table/types.ts';
 import { parseDerive } from '../table/expr/derive.ts';
-import { fitRelation, type FitResult } from '../relate/fit.ts';
+import { fitRelation, type FitResult, type FitSpec } from '../relate/fit.ts';
+import { parseKindOptions } from './inspect.ts';
 import { splitRows } from '../relate/split-option.ts';
 import { withDerived } from '../relate/rows.ts';
 import { alignTable, num, toJson } from '../relate/text.ts';
@@ -20,25 +23,11 @@ import { alignTable, num, toJson } from '../relate/text.ts';
 export interface FitOptions {
   target: string;
   terms: string;
-  intercept: boolean;
-  split?: string;
   derive: string[];
-  seed: string;
-  folds: string;
-  level: string;
+  kind: string[];
   format?: string;
   json?: boolean;
-  keepDuplicates?: boolean;
-  noisy?: string;
-}
-
-/** An integer option ≥ `min` (else `relate.badOption` naming it) and at most its ceiling `max` (else `option.tooLarge`). */
-export function intOption(name: string, text: string, min: number, max = Infinity): number {
-  const v = Number(text);
-  if (text.trim() === '' || !Number.isInteger(v) || v < min)
-    throw new SurmiseError('relate.badOption', `expected ${name} to be an integer ≥ ${min}, got '${text}'`);
-  if (v > max) throw tooLarge(name, text, { min, max });
-  return v;
+  [table: string]: unknown;
 }
 
 /** Split the --terms list at ';' (commas belong to function calls such as atan2(y, x)). */
@@ -112,41 +101,43 @@ export function renderFit(r: FitResult): string {
 }
 
 export function registerFit(program: Command, io: CliIO): void {
-  program
+  const cmd = program
     .command('fit')
     .description('least squares of a target expression on given terms, with intervals and simplest rational constants')
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
     .requiredOption('--target <expr>', 'expression to predict, e.g. "re(zb/za)"')
     .requiredOption('--terms <list>', 'terms separated by ";", e.g. "sig; ux/uy^3"')
-    .option('--no-intercept', 'fit without the constant term (R² is then uncentred)')
-    .option('--split <spec>', 'fit on one part and report the error on another: random:TRAIN,VALIDATION,TEST (fit on train, measure on test) or where:CONDITION')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
-    .option('--seed <n>', 'seed for the split and the cross-validation folds', '0')
-    .option('--folds <k>', `cross-validation folds${rangeHelp(RELATE_LIMITS.folds)}`, '5')
-    .option('--level <p>', 'confidence level of the intervals', '0.95')
+    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[]);
+  addTableOptions(cmd, FIT_OPTIONS);
+  cmd
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
-    .option('--noisy <terms>', 'terms measured with error, separated by ";" (their slopes are attenuated; errors-in-variables)')
-    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column used (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .action(async (file: string, o: FitOptions) => {
-      const seed = intOption('--seed', o.seed, 0);
-      const folds = intOption('--folds', o.folds, RELATE_LIMITS.folds.min, RELATE_LIMITS.folds.max);
-      const level = Number(o.level);
-      if (!(level > 0 && level < 1)) throw new SurmiseError('relate.badOption', `expected --level to lie strictly between 0 and 1, got '${o.level}'`);
+      const given = readTableOptions(FIT_OPTIONS, o) as { split?: string } & Omit<FitSpec, 'target' | 'terms' | 'split'>;
       const terms = splitTerms(o.terms);
-      const derive = o.derive.map((d) => {
-        const p = parseDerive(d);
-        return { name: p.name, expression: p.source };
-      });
-      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
-      const table = withDerived(table0, derive);
-      let split: { train: Int32Array; test: Int32Array; description: string } | undefined;
-      if (o.split !== undefined) {
-        const s = splitRows(table, o.split, seed);
+      const kinds = parseKindOptions(o.kind);
+      const table = await readDerived(io, file, o.derive, o.format, kinds);
+      const { split: spec, ...options } = given;
+      let split: FitSpec['split'];
+      if (spec !== undefined) {
+        const s = splitRows(table, spec, options.seed ?? FIT_DEFAULT_SEED);
         split = { train: s.first, test: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
-      const r = fitRelation(table, { target: o.target, terms, intercept: o.intercept, seed, folds, level, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}), ...(o.noisy !== undefined ? { noisyTerms: splitTerms(o.noisy) } : {}) });
+      const r = fitRelation(table, { target: o.target, terms, ...options, ...(split ? { split } : {}) });
       if (o.json) io.stdout(toJson(r) + '\n');
       else io.stdout(renderFit(r));
     });
+}
+
+const FIT_DEFAULT_SEED = optionOf(FIT_OPTIONS, 'seed').default as number;
+
+/** Read a table for fit or search, with declared kinds and `--derive` columns added. */
+export async function readDerived(io: CliIO, file: string, derives: string[], format: string | undefined, kinds: Record<string, ColumnKind>): Promise<Table> {
+  const derive = derives.map((d) => {
+    const p = parseDerive(d);
+    return { name: p.name, expression: p.source };
+  });
+  const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(format ? { format: format as 'csv' } : {}), ...(Object.keys(kinds).length ? { kinds } : {}) });
+  return withDerived(table0, derive);
 }

@@ -4,7 +4,8 @@
  * into one line on stderr and an exit code (2 for the user's input, 1 for our bugs).
  */
 import { Command, CommanderError } from 'commander';
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, wordOptionError } from '../errors.ts';
+import { flagFor } from './options.ts';
 import { type CliIO, processIO } from './io.ts';
 import { commandRegistrations } from './commands.ts';
 import { VERSION } from '../version.ts';
@@ -24,6 +25,9 @@ export function buildProgram(io: CliIO): Command {
     .configureOutput({ writeOut: (s) => io.stdout(s), writeErr: (s) => io.stderr(s) })
     .showHelpAfterError('(run with --help for usage)');
   for (const register of commandRegistrations) register(program, io);
+  program.hook('preAction', (_program, action) => {
+    running.set(program, action);
+  });
   for (const c of program.commands) {
     c.addHelpText('after', examplesHelp(c.name()));
     showDefaultsAsValues(c);
@@ -36,6 +40,9 @@ export function buildProgram(io: CliIO): Command {
   }
   return program;
 }
+
+/** The command being run, to word a library error's option key as that command's flag. */
+const running = new WeakMap<Command, Command>();
 
 /** `(default: 3)` rather than `(default: "3")`: a default given as text is shown as the value it stands for. */
 function showDefaultsAsValues(c: Command): void {
@@ -59,8 +66,10 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
       return 2;
     }
     if (e instanceof SurmiseError) {
-      io.stderr(`surmise: ${e.message} [${e.code}]\n`);
-      return e.exitCode;
+      const action = running.get(program);
+      const worded = action ? wordOptionError(e, (key) => flagFor(action, key)) : e;
+      io.stderr(`surmise: ${worded.message} [${worded.code}]\n`);
+      return worded.exitCode;
     }
     const err = e as Error;
     io.stderr(`surmise: internal error: ${err?.message ?? String(e)}\n${err?.stack ?? ''}\n`);

@@ -11,44 +11,28 @@ import type { CliIO } from './io.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
 import { formatDropReport } from '../table/dataset.ts';
-import { rankFeatures, RANK_DEFAULTS, type RankResult, type RankEntry } from '../attribute/rank.ts';
-import { ATTRIBUTION_METHODS, type AttributionMethod } from '../attribute/types.ts';
+import { rankFeatures, type RankOptions, type RankResult, type RankEntry } from '../attribute/rank.ts';
+import type { AttributionMethod } from '../attribute/types.ts';
 import { describeProbes } from '../attribute/probes.ts';
-import { collect, parseEngine, parseNonNegativeInt, parsePositiveInt, parseIntOption, rangeHelp } from './options.ts';
-import { RANK_LIMITS } from '../attribute/options.ts';
-import { tooLarge } from '../util/integer.ts';
+import { addTableOptions, collect, parseTableOption, readTableOptions } from './options.ts';
+import { RANK_OPTIONS } from '../attribute/options.ts';
+import { optionOf } from '../util/option-table.ts';
+import { COLUMN_KINDS } from '../table/columns.ts';
+import { parseKindOptions } from './inspect.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
 
 interface RankCliOptions {
   target: string;
-  engine: string;
-  features?: string;
-  exclude?: string;
   derive: string[];
   group: string[];
-  method: string;
-  seeds: string;
-  folds: string;
-  split?: string;
-  task?: string;
-  hidden: string;
-  epochs: string;
-  activation: string;
-  loss: string;
-  patience: string;
-  batchSize?: string;
-  learningRate: string;
-  seed: string;
-  dropTop: string;
-  workers: string;
-  permutationLoss: string;
-  probes: string;
+  kind: string[];
   format?: string;
   json?: boolean;
   out?: string;
   force?: boolean;
   progress: boolean;
+  [table: string]: unknown;
 }
 
 /** "a, b,c" → ['a', 'b', 'c']; an empty entry is refused naming the option. */
@@ -58,19 +42,9 @@ export function parseNameList(option: string, raw: string): string[] {
   return parts;
 }
 
-/** --method: one of the methods, `all`, or a comma list of methods. */
+/** --method: one of the methods, `all`, or a comma list of methods (RANK_OPTIONS.methods). */
 export function parseMethods(raw: string): AttributionMethod[] {
-  const parts = parseNameList('--method', raw);
-  if (parts.length === 1 && parts[0] === 'all') return [...ATTRIBUTION_METHODS];
-  for (const m of parts) {
-    if (!ATTRIBUTION_METHODS.includes(m as AttributionMethod)) {
-      throw new SurmiseError(
-        'option.badMethod',
-        `--method ${raw}: '${m}' is not an attribution method; expected ${ATTRIBUTION_METHODS.join(', ')} or all${didYouMean(m, [...ATTRIBUTION_METHODS, 'all'])}`,
-      );
-    }
-  }
-  return [...new Set(parts)] as AttributionMethod[];
+  return parseTableOption(optionOf(RANK_OPTIONS, 'methods'), raw) as AttributionMethod[];
 }
 
 /** --group NAME=a,b (repeatable) → { NAME: [a, b] }. */
@@ -86,26 +60,9 @@ export function parseGroups(specs: string[]): Record<string, string[]> {
   return out;
 }
 
-function parseChoice<T extends string>(flag: string, raw: string, choices: readonly T[]): T {
-  if (!(choices as readonly string[]).includes(raw)) {
-    throw new SurmiseError('option.badChoice', `${flag} ${raw}: expected ${choices.join(' or ')}${didYouMean(raw, choices)}`);
-  }
-  return raw as T;
-}
-
-function parseLearningRate(raw: string): number {
-  const v = Number(raw);
-  if (raw.trim() === '' || !Number.isFinite(v) || v <= 0 || v > 10) {
-    throw new SurmiseError('option.badNumber', `expected --learning-rate to be a number in (0, 10], got '${raw}'`);
-  }
-  return v;
-}
-
+/** --hidden: layer widths, or none (RANK_OPTIONS.hidden). */
 export function parseHidden(raw: string): number[] {
-  if (raw.trim() === '' || raw.trim() === 'none') return [];
-  const widths = raw.split(',').map((s) => parsePositiveInt('--hidden (each layer width)', s.trim(), RANK_LIMITS.hiddenWidth.max));
-  if (widths.length > RANK_LIMITS.hiddenLayers.max) throw tooLarge('--hidden', widths.length, RANK_LIMITS.hiddenLayers, '--hidden (number of layers)');
-  return widths;
+  return parseTableOption(optionOf(RANK_OPTIONS, 'hidden'), raw) as number[];
 }
 
 const fmt = (x: number | null | undefined, digits = 3): string =>
@@ -213,33 +170,16 @@ export function formatRank(r: RankResult, source: string): string {
 }
 
 export function registerRank(program: Command, io: CliIO): void {
-  program
+  const cmd = program
     .command('rank')
     .description('rank the features of a table as predictors of a target: network skill against baselines, attribution with intervals')
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
     .requiredOption('--target <col>', 'the column (or expression) to predict, e.g. sig')
-    .option('--features <a,b,c>', 'use only these features (default: every numeric column but the target)')
-    .option('--exclude <a,b>', 'leave these columns out of the features')
     .option('--derive <name=expr>', 'add a computed column first (repeatable), e.g. ratio=re(zb/za)', collect, [])
     .option('--group <name=a,b>', 'score these features as one group (repeatable); a complex column is always one group', collect, [])
-    .option('--method <m>', `attribution method: ${ATTRIBUTION_METHODS.join('|')}|all, or a comma list`, 'all')
-    .option('--seeds <n>', `networks per split${rangeHelp(RANK_LIMITS.seeds)}`, String(RANK_DEFAULTS.seeds))
-    .option('--folds <k>', `0 = one random split per seed; k ≥ 2 = k-fold cross-validation (at most ${RANK_LIMITS.folds.max})`, String(RANK_DEFAULTS.folds))
-    .option('--split <spec>', 'random | random:TRAIN,VALIDATION,TEST | kfold:K | where:CONDITION (condition true = training side)')
-    .option('--task <task>', 'regression | classification (default: chosen from the target)')
-    .option('--hidden <widths>', `hidden layer widths (at most ${RANK_LIMITS.hiddenLayers.max} layers of width ${RANK_LIMITS.hiddenWidth.max})`, RANK_DEFAULTS.hidden.join(','))
-    .option('--epochs <n>', `most training epochs (early stopping on the validation rows)${rangeHelp(RANK_LIMITS.epochs)}`, String(RANK_DEFAULTS.epochs))
-    .option('--activation <f>', 'hidden-layer activation: relu | gelu', RANK_DEFAULTS.activation)
-    .option('--loss <loss>', 'regression loss: mse | huber', RANK_DEFAULTS.loss)
-    .option('--patience <n>', `epochs without improvement on the validation rows before stopping${rangeHelp(RANK_LIMITS.patience)}`, String(RANK_DEFAULTS.patience))
-    .option('--batch-size <n>', `mini-batch size${rangeHelp(RANK_LIMITS.batchSize)} (default: chosen from the training rows)`)
-    .option('--learning-rate <x>', 'Adam learning rate', String(RANK_DEFAULTS.learningRate))
-    .option('--seed <s>', 'the seed every other seed is derived from', String(RANK_DEFAULTS.seed))
-    .option('--drop-top <k>', `also retrain without the k best groups and report the skill left${rangeHelp(RANK_LIMITS.dropTop)}`, '0')
-    .option('--permutation-loss <loss>', 'classification loss for permutation importance: error (drop in accuracy) | cross-entropy', 'error')
-    .option('--workers <n>', `worker threads for training (0 = train in this thread)${rangeHelp(RANK_LIMITS.workers)}`, String(RANK_DEFAULTS.workers))
-    .option('--probes <n>', `noise probes per repeat: half permuted copies of features, half Gaussian columns; 0 = none${rangeHelp(RANK_LIMITS.probes)}`, String(RANK_DEFAULTS.probes))
-    .option('--engine <engine>', 'network engine: auto (native when it loads) | native | tfjs', 'auto')
+    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, []);
+  addTableOptions(cmd, RANK_OPTIONS);
+  cmd
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
     .option('--out <dir>', 'also write rank.json into this folder')
@@ -250,41 +190,14 @@ export function registerRank(program: Command, io: CliIO): void {
       if (o.format !== undefined && !TABLE_FORMATS.includes(o.format as TableFormat)) {
         throw new SurmiseError('cli.badFormat', `--format ${o.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(o.format, TABLE_FORMATS)}`);
       }
-      if (o.task !== undefined && o.task !== 'regression' && o.task !== 'classification') {
-        throw new SurmiseError('option.badTask', `--task ${o.task}: expected regression or classification${didYouMean(o.task, ['regression', 'classification'])}`);
-      }
-      if (o.permutationLoss !== 'error' && o.permutationLoss !== 'cross-entropy') {
-        throw new SurmiseError('option.badLoss', `--permutation-loss ${o.permutationLoss}: expected error or cross-entropy${didYouMean(o.permutationLoss, ['error', 'cross-entropy'])}`);
-      }
-      const folds = parseNonNegativeInt('--folds', o.folds, RANK_LIMITS.folds.max);
-      if (folds === 1) throw new SurmiseError('option.badInteger', 'expected --folds to be 0 (one random split) or at least 2, got 1');
-      const seed = parseIntOption('--seed', o.seed);
-      if (seed < 0 || seed > 0xffffffff) throw new SurmiseError('option.badInteger', `expected --seed to be an integer in [0, 4294967295], got ${o.seed}`);
+      const kinds = parseKindOptions(o.kind);
       const options = {
         target: o.target,
-        ...(o.features !== undefined ? { features: parseNameList('--features', o.features) } : {}),
-        ...(o.exclude !== undefined ? { exclude: parseNameList('--exclude', o.exclude) } : {}),
         derive: o.derive,
         ...(o.group.length ? { groups: parseGroups(o.group) } : {}),
-        methods: parseMethods(o.method),
-        seeds: parsePositiveInt('--seeds', o.seeds, RANK_LIMITS.seeds.max),
-        folds,
-        ...(o.split !== undefined ? { split: o.split } : {}),
-        ...(o.task !== undefined ? { task: o.task as 'regression' | 'classification' } : {}),
-        hidden: parseHidden(o.hidden),
-        epochs: parsePositiveInt('--epochs', o.epochs, RANK_LIMITS.epochs.max),
-        activation: parseChoice('--activation', o.activation, ['relu', 'gelu'] as const),
-        loss: parseChoice('--loss', o.loss, ['mse', 'huber'] as const),
-        patience: parseNonNegativeInt('--patience', o.patience, RANK_LIMITS.patience.max),
-        ...(o.batchSize !== undefined ? { batchSize: parsePositiveInt('--batch-size', o.batchSize, RANK_LIMITS.batchSize.max) } : {}),
-        learningRate: parseLearningRate(o.learningRate),
-        seed,
-        dropTop: parseNonNegativeInt('--drop-top', o.dropTop, RANK_LIMITS.dropTop.max),
-        workers: parseNonNegativeInt('--workers', o.workers, RANK_LIMITS.workers.max),
-        probes: parseProbes(o.probes),
-        engine: parseEngine(o.engine),
-        permutationLoss: o.permutationLoss as 'error' | 'cross-entropy',
+        ...(readTableOptions(RANK_OPTIONS, o) as Omit<RankOptions, 'target'>),
       };
+      if (options.folds === 1) throw new SurmiseError('option.badValue', 'expected --folds to be 0 (one random split) or at least 2, got 1', { option: 'folds' });
       let outFile: string | undefined;
       if (o.out !== undefined) {
         const dir = resolve(io.cwd, o.out);
@@ -297,7 +210,7 @@ export function registerRank(program: Command, io: CliIO): void {
         // refuse before the work, not after it
         writeFileAtomicCheck(outFile, o.out, Boolean(o.force));
       }
-      const table = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}) });
+      const table = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}), ...(Object.keys(kinds).length ? { kinds } : {}) });
       const progress = makeProgress(io, 'rank', o.progress);
       let result: RankResult;
       try {
@@ -312,14 +225,14 @@ export function registerRank(program: Command, io: CliIO): void {
     });
 }
 
-/** --probes: an integer in RANK_LIMITS.probes. */
+/** --probes: an integer in RANK_OPTIONS.probes. */
 export function parseProbes(raw: string): number {
-  return parseNonNegativeInt('--probes', raw, RANK_LIMITS.probes.max);
+  return parseTableOption(optionOf(RANK_OPTIONS, 'probes'), raw) as number;
 }
 
 /** Refuse an existing rank.json without --force before any work is done (the final write checks again). */
 function writeFileAtomicCheck(path: string, shown: string, force: boolean): void {
   if (!force && existsSync(path)) {
-    throw new SurmiseError('output.exists', `${join(shown, 'rank.json')} already exists; pass --force to replace it`);
+    throw new SurmiseError('output.exists', `${join(shown, 'rank.json')} already exists; pass --force to replace it`, { option: 'force' });
   }
 }

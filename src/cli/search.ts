@@ -7,41 +7,33 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { makeProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
-import { collect } from './options.ts';
+import { addTableOptions, collect, readTableOptions } from './options.ts';
 import { SurmiseError } from '../errors.ts';
-import { readTable } from '../table/read.ts';
-import { parseDerive } from '../table/expr/derive.ts';
-import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
+import { COLUMN_KINDS } from '../table/columns.ts';
+import { searchRelations, type SearchCandidate, type SearchResult, type SearchSpec } from '../relate/search.ts';
 import { splitRows } from '../relate/split-option.ts';
-import { withDerived } from '../relate/rows.ts';
 import { alignTable, num, toJson } from '../relate/text.ts';
-import { intOption } from './fit.ts';
-import { rangeHelp } from './options.ts';
-import { RELATE_LIMITS } from '../relate/limits.ts';
+import { SEARCH_OPTIONS } from '../relate/options.ts';
+import { optionOf } from '../util/option-table.ts';
+import { readDerived } from './fit.ts';
+import { parseKindOptions } from './inspect.ts';
 
 interface SearchOptions {
   target: string;
   from: string;
-  maxTerms: string;
-  powers: string;
-  split?: string;
-  top: string;
-  seed: string;
   derive: string[];
+  kind: string[];
   format?: string;
   json?: boolean;
   progress: boolean;
-  keepDuplicates?: boolean;
-  time: string;
-  lattice: string;
-  maxComplexity: string;
+  [table: string]: unknown;
 }
 
 /** `--time 60s` (also `90`, `2m`, `1.5m`): seconds, within (0, 86400]. */
 export function parseDuration(text: string): number {
   const m = /^\s*(\d+(?:\.\d+)?)\s*(s|m|min)?\s*$/.exec(text);
   const v = m ? Number(m[1]) * (m[2] && m[2] !== 's' ? 60 : 1) : NaN;
-  if (!(v > 0 && v <= 86_400)) throw new SurmiseError('relate.badOption', `--time ${text}: expected a duration such as 60s or 2m, at most 24 hours`);
+  if (!(v > 0 && v <= 86_400)) throw new SurmiseError('option.badValue', `--time ${text}: expected a duration such as 60s or 2m, at most 24 hours`, { option: 'timeLimit' });
   return v;
 }
 
@@ -49,17 +41,17 @@ export function parseDuration(text: string): number {
 export function parseLattice(text: string): 'auto' | 'off' | number {
   if (text === 'auto' || text === 'off') return text;
   const v = Number(text);
-  if (text.trim() === '' || !(Number.isFinite(v) && v > 0)) throw new SurmiseError('relate.badOption', `--lattice ${text}: expected auto, off or a positive step such as 2`);
+  if (text.trim() === '' || !(Number.isFinite(v) && v > 0)) throw new SurmiseError('option.badValue', `--lattice ${text}: expected auto, off or a positive step such as 2`, { option: 'lattice' });
   return v;
 }
 
 /** `lo..hi` with integers, e.g. `-3..3`. */
 export function parsePowers(text: string): [number, number] {
   const m = /^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$/.exec(text);
-  if (!m) throw new SurmiseError('relate.badPowers', `--powers ${text}: expected a range of integer powers lo..hi, e.g. -3..3`);
+  if (!m) throw new SurmiseError('relate.badPowers', `--powers ${text}: expected a range of integer powers lo..hi, e.g. -3..3`, { option: 'powers' });
   const lo = Number(m[1]);
   const hi = Number(m[2]);
-  if (lo > hi) throw new SurmiseError('relate.badPowers', `--powers ${text}: the lower end ${lo} exceeds the upper end ${hi}`);
+  if (lo > hi) throw new SurmiseError('relate.badPowers', `--powers ${text}: the lower end ${lo} exceeds the upper end ${hi}`, { option: 'powers' });
   return [lo, hi];
 }
 
@@ -108,53 +100,37 @@ export function renderSearch(r: SearchResult): string {
 }
 
 export function registerSearch(program: Command, io: CliIO): void {
-  program
+  const cmd = program
     .command('search')
     .description('search formulas target ≈ c0 + Σ c·term over terms built from chosen columns; chosen on one part of the rows, measured on another')
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
     .requiredOption('--target <expr>', 'expression to predict')
     .requiredOption('--from <columns>', 'columns to build terms from, comma-separated')
-    .option('--max-terms <k>', `largest number of terms besides the intercept${rangeHelp(RELATE_LIMITS.maxTerms)}`, '2')
-    .option('--powers <lo..hi>', 'integer powers in the grammar', '-3..3')
-    .option('--max-complexity <c>', `largest complexity of one term${rangeHelp(RELATE_LIMITS.maxComplexity)}`, '7')
-    .option('--time <duration>', 'time budget for growing terms, e.g. 60s or 2m', '60s')
-    .option('--lattice <step>', 'integer target: auto (detect the lattice), off, or a step; reports how often rounding the formula to it is exact', 'auto')
-    .option('--split <spec>', 'selection and held-out parts: random:TRAIN,VALIDATION,TEST (select on train, measure on test) or where:CONDITION; default a random 60/40 split')
-    .option('--top <n>', `candidates to list${rangeHelp(RELATE_LIMITS.top)}`, '10')
-    .option('--seed <n>', 'seed for the split', '0')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
+    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[]);
+  addTableOptions(cmd, SEARCH_OPTIONS);
+  cmd
     .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
-    .option('--keep-duplicates', 'keep rows that repeat an earlier row in every column used (default: drop and count them)')
     .option('--json', 'print one JSON object')
     .option('--no-progress', 'no progress output on stderr')
     .action(async (file: string, o: SearchOptions) => {
-      const seed = intOption('--seed', o.seed, 0);
-      const maxTerms = intOption('--max-terms', o.maxTerms, 1);
-      const top = intOption('--top', o.top, 1, RELATE_LIMITS.top.max);
-      const powers = parsePowers(o.powers);
-      const timeLimit = parseDuration(o.time);
-      const lattice = parseLattice(o.lattice);
-      const maxComplexity = intOption('--max-complexity', o.maxComplexity, 1, RELATE_LIMITS.maxComplexity.max);
+      const given = readTableOptions(SEARCH_OPTIONS, o, { timeLimit: parseDuration, powers: parsePowers, lattice: parseLattice }) as { split?: string } & Omit<SearchSpec, 'target' | 'from' | 'split'>;
       const from = o.from.split(',').map((s) => s.trim());
       from.forEach((c, i) => {
-        if (c === '') throw new SurmiseError('relate.badOption', `--from: column ${i + 1} of the list is empty (columns are separated by ',')`);
+        if (c === '') throw new SurmiseError('option.badList', `--from: column ${i + 1} of the list is empty (columns are separated by ',')`);
       });
-      const derive = o.derive.map((d) => {
-        const p = parseDerive(d);
-        return { name: p.name, expression: p.source };
-      });
-      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as 'csv' } : {}) });
-      const table = withDerived(table0, derive);
-      let split: { selection: Int32Array; heldOut: Int32Array; description: string } | undefined;
-      if (o.split !== undefined) {
-        const s = splitRows(table, o.split, seed);
+      const table = await readDerived(io, file, o.derive, o.format, parseKindOptions(o.kind));
+      const { split: spec, ...options } = given;
+      let split: SearchSpec['split'];
+      if (spec !== undefined) {
+        const s = splitRows(table, spec, options.seed ?? (optionOf(SEARCH_OPTIONS, 'seed').default as number));
         split = { selection: s.first, heldOut: s.second, description: s.description + (s.unused ? ` (${s.unused} rows in neither part)` : '') };
       }
       const bar = makeProgress(io, 'searching formulas', o.progress);
       const progress = (done: number, total: number): void => bar.update(done, total);
       let r: SearchResult;
       try {
-        r = searchRelations(table, { target: o.target, from, maxTerms, powers, top, seed, progress, maxComplexity, timeLimit, lattice, keepDuplicates: Boolean(o.keepDuplicates), ...(split ? { split } : {}) });
+        r = searchRelations(table, { target: o.target, from, progress, ...options, ...(split ? { split } : {}) });
       } finally {
         bar.stop();
       }

@@ -68,7 +68,7 @@ export async function readDiagramFile(path: string, opts: ReadDiagramsOptions = 
   }
   const names = t.columns.map((c) => c.name);
   if (!names.includes(column))
-    throw new SurmiseError('knots.noColumn', `${display}: no column '${column}' of codes (columns: ${names.join(', ')}); give --column`);
+    throw new SurmiseError('knots.noColumn', `${display}: no column '${column}' of codes (columns: ${names.join(', ')}); give \`column\``, { option: 'column' });
   const nameCol = opts.nameColumn ?? (names.includes('name') ? 'name' : undefined);
   if (nameCol !== undefined && !names.includes(nameCol))
     throw new SurmiseError('knots.noColumn', `${display}: no column '${nameCol}' of names (columns: ${names.join(', ')})`);
@@ -107,7 +107,7 @@ function readJsonDiagrams(path: string, display: string, column: string, nameCol
     if (rec === null || typeof rec !== 'object' || Array.isArray(rec)) throw new SurmiseError('knots.parse', `${display}: ${where} is not an object`);
     const r = rec as Record<string, unknown>;
     const c = r[column];
-    if (c === undefined || c === null) throw new SurmiseError('knots.noColumn', `${display}: ${where} has no '${column}' field (give --column)`);
+    if (c === undefined || c === null) throw new SurmiseError('knots.noColumn', `${display}: ${where} has no '${column}' field (give \`column\`)`, { option: 'column' });
     const code = typeof c === 'string' ? c : typeof c === 'number' ? String(c) : JSON.stringify(c);
     const nc = nameColumn ?? 'name';
     const nv = r[nc];

@@ -11,8 +11,8 @@ import { analysePD } from './pd.ts';
 
 /** A random braid word: each letter uniform on ±1..±(strands−1). */
 export function randomBraid(rng: Rng, strands: number, length: number): Braid {
-  if (!Number.isInteger(strands) || strands < 2) throw new SurmiseError('knots.option', `--strands must be an integer ≥ 2, got ${strands}`);
-  if (!Number.isInteger(length) || length < 1) throw new SurmiseError('knots.option', `--length must be a positive integer, got ${length}`);
+  if (!Number.isInteger(strands) || strands < 2) throw new SurmiseError('knots.option', `expected strands to be an integer ≥ 2, got ${strands}`, { option: 'strands' });
+  if (!Number.isInteger(length) || length < 1) throw new SurmiseError('knots.option', `expected length to be an integer ≥ 1, got ${length}`, { option: 'length' });
   const word: number[] = [];
   for (let k = 0; k < length; k++) {
     const g = 1 + rng.int(strands - 1);
@@ -34,7 +34,7 @@ export function torusBraid(p: number, q: number): Braid {
  * q < 0 gives its inverse.
  */
 export function fullTwists(i: number, j: number, q: number): number[] {
-  if (!(Number.isInteger(i) && Number.isInteger(j) && i >= 1 && j > i)) throw new SurmiseError('knots.option', `--on must be a range i..j of strands with 1 ≤ i < j, got ${i}..${j}`);
+  if (!(Number.isInteger(i) && Number.isInteger(j) && i >= 1 && j > i)) throw new SurmiseError('knots.option', `expected on to be a range i..j of strands with 1 ≤ i < j, got ${i}..${j}`, { option: 'on' });
   const one: number[] = [];
   for (let r = 0; r < j - i + 1; r++) for (let g = i; g < j; g++) one.push(g);
   const out: number[] = [];
@@ -45,7 +45,7 @@ export function fullTwists(i: number, j: number, q: number): number[] {
 
 /** The braid followed by q full twists on strands i..j. */
 export function twistedBraid(b: Braid, i: number, j: number, q: number): Braid {
-  if (j > b.strands) throw new SurmiseError('knots.option', `--on ${i}..${j} exceeds the braid's ${b.strands} strands`);
+  if (j > b.strands) throw new SurmiseError('knots.option', `\`on\` ${i}..${j} exceeds the braid's ${b.strands} strands`, { option: 'on' });
   return { strands: b.strands, word: [...b.word, ...fullTwists(i, j, q)] };
 }
 

@@ -6,7 +6,7 @@
  * computed here (same results).
  */
 import { Worker } from 'node:worker_threads';
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, isErrorCode } from '../errors.ts';
 import { invariantsOf } from './batch.ts';
 import { parseDiagram } from './diagram.ts';
 import type { ComputeOptions, KnotInvariants } from './invariants.ts';
@@ -116,7 +116,7 @@ function runPool(jobs: ManyJob[], n: number, results: KnotInvariants[][], progre
           progress(rows);
           if (finished === jobs.length) end(null);
           else feed(w);
-        } else end(m.code ? new SurmiseError(m.code, m.message) : new Error(`a knots worker failed: ${m.message}`));
+        } else end(isErrorCode(m.code) ? new SurmiseError(m.code, m.message) : new Error(`a knots worker failed: ${m.message}`));
       });
       w.on('error', (e) => (anyReady ? end(e) : end(null, e.message)));
     }

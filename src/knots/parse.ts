@@ -143,7 +143,8 @@ export function detectKind(text: string): DiagramKind {
     if (xs.some((x) => x % 2 !== 0)) return 'braid';
     throw new SurmiseError(
       'knots.ambiguousKind',
-      `'${t}' has only even entries: it could be a DT code or a braid word; give --kind dt or --kind braid`,
+      `'${t}' has only even entries: it could be a DT code or a braid word; give \`kind\` dt or \`kind\` braid`,
+      { option: 'kind' },
     );
   }
   parseErr(`cannot read '${t.length > 40 ? t.slice(0, 40) + '…' : t}' as a PD code, braid word or DT code`);

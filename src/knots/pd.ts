@@ -8,7 +8,7 @@
  * under-crossings; a component that never passes under (it can be lifted off: the link is split)
  * is oriented along increasing labels.
  */
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, type ErrorCode } from '../errors.ts';
 
 export type Crossing = [number, number, number, number];
 
@@ -37,7 +37,7 @@ export interface PDInfo {
   nFaces: number;
 }
 
-function fail(code: string, msg: string): never {
+function fail(code: ErrorCode, msg: string): never {
   throw new SurmiseError(code, msg);
 }
 

@@ -7,7 +7,7 @@
  * the same bit for bit either way.
  */
 import { Worker } from 'node:worker_threads';
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, isErrorCode } from '../errors.ts';
 import { availableParallelism } from 'node:os';
 import { loadEngine } from './engines.ts';
 import { checkData, type TrainData } from './data.ts';
@@ -65,7 +65,7 @@ function shareArrays(jobs: Resolved[]): Resolved[] {
 }
 
 function rebuildError(r: { code: string | null; message: string; exitCode: 1 | 2 }, index: number): Error {
-  return r.code ? new SurmiseError(r.code, r.message, { job: index }, r.exitCode) : new Error(`training job ${index + 1} failed in a worker: ${r.message}`);
+  return isErrorCode(r.code) ? new SurmiseError(r.code, r.message, { job: index }, r.exitCode) : new Error(`training job ${index + 1} failed in a worker: ${r.message}`);
 }
 
 /** Run the jobs in this thread, in order. */

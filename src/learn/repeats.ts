@@ -35,7 +35,7 @@ export function rankSplitSpec(split: string | undefined, folds: number): string 
   if (folds >= 2) {
     const s = parseSplitSpec(split);
     if (s.kind !== 'kfold' || s.k !== folds) {
-      throw new SurmiseError('split.conflict', `--folds ${folds} and --split ${split} ask for different splits; give one of them`, { option: 'split' });
+      throw new SurmiseError('split.conflict', `\`folds\` ${folds} and \`split\` ${split} ask for different splits; give one of them`, { option: 'split', also: ['folds'] });
     }
   }
   return split;
@@ -56,7 +56,7 @@ export function planRepeats(table: Table, ds: Dataset, o: { seed: number; seeds:
       if (sp.train.length < 2 || sp.validation.length < 1 || sp.test.length < 1) {
         throw new SurmiseError(
           'split.tooFewRows',
-          `--split ${spec}: ${sp.description} leaves too few rows (need at least 2 train, 1 validation, 1 test; ${ds.y.length} rows kept after the row policy)`,
+          `\`split\` ${spec}: ${sp.description} leaves too few rows (need at least 2 train, 1 validation, 1 test; ${ds.y.length} rows kept after the row policy)`,
           { option: 'split' },
         );
       }

@@ -3,6 +3,8 @@
  * with intervals, simplest rationals inside them, held-out and cross-validated error.
  */
 import { SurmiseError } from '../errors.ts';
+import { checkOptions } from '../util/option-table.ts';
+import { FIT_OPTIONS } from './options.ts';
 import type { Table } from '../table/types.ts';
 import { lstsq } from './lstsq.ts';
 import { simpleFraction, SIMPLE_DENOMINATOR, type Rational, type SimpleFraction } from './rational.ts';
@@ -21,7 +23,7 @@ export interface FitSpec {
   derive?: Array<{ name: string; expression: string }>;
   /** Row indices (0-based) of a training and a held-out part; the fit uses `train` only. */
   split?: { train: ArrayLike<number>; test: ArrayLike<number>; description?: string };
-  /** Seed of the cross-validation folds (default 0). */
+  /** Seed of the cross-validation folds (default 1, as every stage). */
   seed?: number;
   /** Number of cross-validation folds (default 5). */
   folds?: number;
@@ -106,12 +108,8 @@ function hitRate(pred: ArrayLike<number>, y: ArrayLike<number>): number {
 
 /** Fit `spec.target ≈ Σ coef · term` by least squares (Householder QR) on the table's complete rows. */
 export function fitRelation(table0: Table, spec: FitSpec): FitResult {
-  const intercept = spec.intercept ?? true;
-  const seed = spec.seed ?? 0;
-  const folds = spec.folds ?? 5;
-  const level = spec.level ?? 0.95;
+  const { intercept, seed, folds, level } = checkOptions<{ intercept: boolean; seed: number; folds: number; level: number }>(FIT_OPTIONS, spec as unknown as Record<string, unknown>);
   if (spec.terms.length === 0 && !intercept) throw new SurmiseError('relate.noTerms', 'no terms to fit: give at least one term, or keep the intercept');
-  if (!(level > 0 && level < 1)) throw new SurmiseError('relate.badLevel', `expected the confidence level to lie in (0, 1), got ${level}`);
   const seen = new Map<string, number>();
   spec.terms.forEach((t, i) => {
     const key = t.replace(/\s+/g, '');

@@ -1,13 +1,17 @@
+import { optionOf } from '../util/option-table.ts';
 import type { IntegerRange } from '../util/integer.ts';
+import { FIT_OPTIONS, SEARCH_OPTIONS } from './options.ts';
 
-/** Ranges of the relate stage's count options (fitRelation, searchRelations); the README quotes them. */
+const range = (o: ReturnType<typeof optionOf>): IntegerRange => (o.type === 'integer' ? { min: o.min, max: o.max } : { min: 0, max: 0 });
+
+/** Ranges of the relate stage's count options, read from FIT_OPTIONS and SEARCH_OPTIONS; the README quotes them. */
 export const RELATE_LIMITS = Object.freeze({
   /** Cross-validation folds of fitRelation. */
-  folds: { min: 2, max: 255 },
+  folds: range(optionOf(FIT_OPTIONS, 'folds')),
   /** Terms besides the intercept in searchRelations. */
-  maxTerms: { min: 1, max: 6 },
+  maxTerms: range(optionOf(SEARCH_OPTIONS, 'maxTerms')),
   /** Candidates searchRelations reports. */
-  top: { min: 1, max: 1000 },
+  top: range(optionOf(SEARCH_OPTIONS, 'top')),
   /** Complexity of one term in searchRelations. */
-  maxComplexity: { min: 1, max: 12 },
+  maxComplexity: range(optionOf(SEARCH_OPTIONS, 'maxComplexity')),
 } satisfies Record<string, IntegerRange>);

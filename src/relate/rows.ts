@@ -152,7 +152,7 @@ export function withDerived(table: Table, derive: Array<{ name: string; expressi
   let t = table;
   for (const d of derive) {
     if (t.columns.some((c) => c.name === d.name)) {
-      throw new SurmiseError('relate.deriveExists', `--derive ${d.name}=...: the table already has a column '${d.name}'; choose another name`);
+      throw new SurmiseError('table.duplicateColumn', `\`derive\` ${d.name}=...: the table already has a column '${d.name}'; choose another name`, { option: 'derive' });
     }
     t = { ...t, columns: [...t.columns, deriveColumn(t, d.name, d.expression)] };
   }

@@ -9,8 +9,8 @@
  * measured on the HELD-OUT rows, which took no part in any choice.
  */
 import { SurmiseError } from '../errors.ts';
-import { tooLarge } from '../util/integer.ts';
-import { RELATE_LIMITS } from './limits.ts';
+import { badOption, checkOptions } from '../util/option-table.ts';
+import { SEARCH_OPTIONS } from './options.ts';
 import type { Table } from '../table/types.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import { baseQuantities, type SkippedTerm } from './bases.ts';
@@ -39,11 +39,12 @@ export interface SearchSpec {
   split?: { selection: ArrayLike<number>; heldOut: ArrayLike<number>; description?: string };
   /** Number of candidates to report (default 10). */
   top?: number;
+  /** Seed of the split and the screening rows (default 1, as every stage). */
   seed?: number;
   derive?: Array<{ name: string; expression: string }>;
-  /** Largest complexity of one term (default 8). */
+  /** Largest complexity of one term (default 7). */
   maxComplexity?: number;
-  /** Terms of each complexity level kept to build the next (beam width, default 120). */
+  /** Terms of each complexity level kept to build the next (beam width, default 100). */
   beam?: number;
   /** At most this many subsets in the exhaustive subset search (default 1,000,000): the screened terms are cut to fit. */
   maxExhaustive?: number;
@@ -114,36 +115,20 @@ export interface SearchResult {
   notes: string[];
 }
 
-interface OptionRule { key: keyof SearchSpec; ok: (v: number) => boolean; expected: string; code: string }
-const OPTION_RULES: OptionRule[] = [
-  { key: 'maxTerms', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 6, expected: 'the maximum number of terms to be an integer from 1 to 6', code: 'relate.badMaxTerms' },
-  { key: 'top', ok: (v) => Number.isInteger(v) && v >= 1, expected: 'the number of candidates to report to be a positive integer', code: 'relate.badTop' },
-  { key: 'maxComplexity', ok: (v) => Number.isInteger(v) && v >= 1, expected: 'the largest complexity of a term to be a positive integer', code: 'relate.badOption' },
-  { key: 'beam', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 5000, expected: 'the beam width to be an integer from 1 to 5000', code: 'relate.badOption' },
-  { key: 'maxExhaustive', ok: (v) => Number.isInteger(v) && v >= 1 && v <= 50_000_000, expected: 'the subset limit to be an integer from 1 to 50,000,000', code: 'relate.badOption' },
-  { key: 'screenRows', ok: (v) => Number.isInteger(v) && v >= 50 && v <= 1_000_000, expected: 'the screening rows to be an integer from 50 to 1,000,000', code: 'relate.badOption' },
-  { key: 'maxCells', ok: (v) => Number.isInteger(v) && v >= 10_000 && v <= 2_000_000_000, expected: 'the memory bound to be an integer number of cells from 10,000 to 2,000,000,000', code: 'relate.badOption' },
-  { key: 'timeLimit', ok: (v) => Number.isFinite(v) && v > 0 && v <= 86_400, expected: 'the time budget to be a number of seconds in (0, 86400]', code: 'relate.badOption' },
-];
-
-function checkOptions(spec: SearchSpec): void {
-  for (const r of OPTION_RULES) {
-    const v = spec[r.key];
-    if (v !== undefined && !(typeof v === 'number' && r.ok(v)))
-      throw new SurmiseError(r.code, `expected ${r.expected}, got ${String(v)}`, { key: r.key });
-  }
-  for (const key of ['top', 'maxComplexity'] as const) {
-    const v = spec[key];
-    if (v !== undefined && v > RELATE_LIMITS[key].max) throw tooLarge(key, v, RELATE_LIMITS[key]);
-  }
+/** Options checked once against SEARCH_OPTIONS; the powers pair and the lattice step here. */
+function checkSearchOptions(spec: SearchSpec): SearchDefaults {
+  const o = checkOptions<SearchDefaults>(SEARCH_OPTIONS, spec as unknown as Record<string, unknown>);
   const p = spec.powers;
   if (p && !(Number.isInteger(p[0]) && Number.isInteger(p[1]) && p[0] <= p[1] && Math.max(-p[0], p[1]) <= 12 && (p[0] !== 0 || p[1] !== 0)))
-    throw new SurmiseError('relate.badPowers', `expected a power range lo..hi of integers within −12..12, not both 0, got ${p[0]}..${p[1]}`, { key: 'powers' });
+    throw new SurmiseError('relate.badPowers', `expected powers to be a range lo..hi of integers within −12..12, not both 0, got ${p[0]}..${p[1]}`, { option: 'powers' });
   const L = spec.lattice;
   if (L !== undefined && L !== 'auto' && L !== 'off' && !(typeof L === 'number' && Number.isFinite(L) && L > 0))
-    throw new SurmiseError('relate.badOption', `expected the lattice to be auto, off or a positive step, got ${String(L)}`, { key: 'lattice' });
+    throw badOption('lattice', 'auto, off or a positive step', L);
   if (spec.from.length === 0) throw new SurmiseError('relate.noColumns', 'give at least one column to build terms from');
+  return o;
 }
+
+type SearchDefaults = Required<Pick<SearchSpec, 'maxTerms' | 'top' | 'seed' | 'maxComplexity' | 'maxExhaustive' | 'maxCells' | 'timeLimit' | 'screenRows' | 'beam'>>;
 
 function coefOf(r: Rational | null, x: number): Coef {
   return r ? { num: r.num, den: r.den } : { decimal: x };
@@ -151,17 +136,10 @@ function coefOf(r: Rational | null, x: number): Coef {
 
 /** Search for formulas target ≈ c₀ + Σ cⱼ·termⱼ with at most `maxTerms` terms. */
 export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
-  checkOptions(spec);
+  const { maxTerms, top, seed, maxComplexity, maxExhaustive, maxCells, timeLimit, screenRows: screenLimit, beam: beamWidth } = checkSearchOptions(spec);
   const now = spec.now ?? (() => performance.now());
   const t0 = now();
-  const maxTerms = spec.maxTerms ?? 2;
-  const top = spec.top ?? 10;
-  const seed = spec.seed ?? 0;
   const powers = spec.powers ?? [-3, 3];
-  const maxComplexity = spec.maxComplexity ?? 7;
-  const maxExhaustive = spec.maxExhaustive ?? 1_000_000;
-  const maxCells = spec.maxCells ?? 25_000_000;
-  const timeLimit = spec.timeLimit ?? 60;
   const progress = spec.progress ?? (() => {});
   const table = withDerived(table0, spec.derive ?? []);
   const target = realExpression(table, spec.target, 'the target');
@@ -202,14 +180,14 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   const baseValues = bases.map((b) => b.values);
   const baseTrees: Tree[] = bases.map((b, id) => ({ op: 'base', id, text: b.text, cost: b.cost }));
   // screening rows: a seeded sample of the selection rows
-  const nScreen = Math.min(sel.length, spec.screenRows ?? 2000);
+  const nScreen = Math.min(sel.length, screenLimit);
   const screenRows = nScreen === sel.length ? selRows : Int32Array.from(new Rng(deriveSeed(seed, 'search', 'screen')).permutation(sel.length).slice(0, nScreen), (i) => selRows[i]!).sort();
   const yScreen = gather(target.values, screenRows);
   const yMean = yScreen.reduce((s, x) => s + x, 0) / nScreen;
   const yC = yScreen.map((x) => x - yMean);
   const screenBases = baseTrees.map((tree, id) => ({ tree, values: gather(baseValues[id]!, screenRows) }));
   const unary = unaryOps(powers);
-  const beam = Math.max(1, Math.min(spec.beam ?? 100, Math.floor(maxCells / (nScreen * (maxComplexity + 4)))));
+  const beam = Math.max(1, Math.min(beamWidth, Math.floor(maxCells / (nScreen * (maxComplexity + 4)))));
   const poolPerTarget = 30;
   const deadline = t0 + timeLimit * 1000;
   let timeCut = false;

@@ -9,11 +9,14 @@ import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNo
 import { z } from 'zod';
 import { SurmiseError, didYouMean, fileErrorReason } from '../errors.ts';
 import type { IntegerRange } from '../util/integer.ts';
-import { RANK_DEFAULTS, RANK_LIMITS } from '../attribute/options.ts';
-import { ATTRIBUTION_METHODS } from '../attribute/methods/index.ts';
-import { RELATE_LIMITS } from '../relate/limits.ts';
-import { BOUND_LIMITS } from '../bound/find.ts';
-import { DISCOVER_OPTIONS } from '../bound/discover.ts';
+import { configKeyOf, type OptionSpec, type OptionTable } from '../util/option-table.ts';
+import { RANK_LIMITS, RANK_OPTIONS } from '../attribute/options.ts';
+import { FIT_OPTIONS, SEARCH_OPTIONS } from '../relate/options.ts';
+import { BOUND_OPTIONS, DISCOVER_OPTIONS, type BoundForm } from '../bound/options.ts';
+import type { DiscoverSpec } from '../bound/discover.ts';
+import type { Activation, LossName } from '../learn/options.ts';
+import type { EngineChoice } from '../learn/engines.ts';
+import type { AttributionMethod } from '../attribute/types.ts';
 import { RESIDUAL_LIMITS } from './residual.ts';
 
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
@@ -22,42 +25,90 @@ const exprString = z.string().min(1);
 /** A list, where a single item may be written without brackets (`rhs: b` = `rhs: [b]`). */
 const listOf = <T extends z.ZodType>(item: T, min = 0) => z.preprocess((v) => (typeof v === 'string' ? [v] : v), z.array(item).min(min));
 
-const NetworkSchema = z.strictObject({
-  hidden: z.array(count(RANK_LIMITS.hiddenWidth)).min(1).max(RANK_LIMITS.hiddenLayers.max).default([...RANK_DEFAULTS.hidden]),
-  activation: z.enum(['relu', 'gelu']).default(RANK_DEFAULTS.activation),
-  loss: z.enum(['mse', 'huber']).default(RANK_DEFAULTS.loss),
-  task: z.enum(['auto', 'regression', 'classification']).default('auto'),
-  epochs: count(RANK_LIMITS.epochs).default(RANK_DEFAULTS.epochs),
-  patience: count(RANK_LIMITS.patience).default(RANK_DEFAULTS.patience),
-  /** absent: chosen from the training rows (batchSizeFor) */
-  batchSize: count(RANK_LIMITS.batchSize).optional(),
-  learningRate: z.number().positive().max(10).default(RANK_DEFAULTS.learningRate),
-  engine: z.enum(['auto', 'native', 'tfjs']).default('auto'),
-});
+/** The zod type of one table option, with the table's default (or optional when it has none). */
+function zodOf(o: OptionSpec): z.ZodType {
+  let t: z.ZodType;
+  switch (o.type) {
+    case 'integer':
+      t = count(o);
+      break;
+    case 'number': {
+      let n = z.number();
+      n = o.openMin ? n.gt(o.min) : n.min(o.min);
+      n = o.openMax ? n.lt(o.max) : n.max(o.max);
+      t = n;
+      break;
+    }
+    case 'choice':
+      t = z.enum(o.choices as [string, ...string[]]);
+      break;
+    case 'boolean':
+      t = z.boolean();
+      break;
+    case 'text':
+      t = o.pattern ? exprString.regex(o.pattern.re, `expected ${o.pattern.expected}`) : exprString;
+      break;
+    case 'list': {
+      const item = o.choices ? z.enum(o.choices as [string, ...string[]]) : z.string().min(1);
+      const list = z.array(item).min(o.min ?? 0);
+      t = z.preprocess((v) => (typeof v === 'string' ? [v] : v), o.max !== undefined ? list.max(o.max) : list);
+      break;
+    }
+    case 'integers':
+      t = z.array(count(o)).max(o.maxItems);
+      break;
+  }
+  if (o.default === null) return t.optional();
+  return t.default((Array.isArray(o.default) ? [...o.default] : o.default) as never);
+}
 
-const AttributionSchema = z.strictObject({
-  methods: listOf(z.enum(ATTRIBUTION_METHODS), 1).default([...ATTRIBUTION_METHODS]),
-  seeds: count(RANK_LIMITS.seeds).default(RANK_DEFAULTS.seeds),
-  folds: count(RANK_LIMITS.folds).default(0),
-  dropTop: count(RANK_LIMITS.dropTop).default(0),
-  /** Noise probes per repeat (attribute/probes.ts). */
-  probes: count(RANK_LIMITS.probes).default(6),
-});
+/**
+ * The keys of `table` that live in the configuration block `block` (`''`: the top level, or
+ * `network`, `attribution` for the ranking's table whose config keys are paths).
+ */
+function tableShape(table: OptionTable, block = ''): Record<string, z.ZodType> {
+  const shape: Record<string, z.ZodType> = {};
+  for (const o of table) {
+    const k = configKeyOf(o);
+    if (k === null) continue;
+    const dot = k.lastIndexOf('.');
+    if ((dot < 0 ? '' : k.slice(0, dot)) !== block) continue;
+    shape[k.slice(dot + 1)] = zodOf(o);
+  }
+  return shape;
+}
+
+/** The library options of `table` read from a configuration block (key paths resolved, absent left out). */
+export function optionsFromConfig(table: OptionTable, block: object): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const o of table) {
+    const k = configKeyOf(o);
+    if (k === null) continue;
+    let v: unknown = block;
+    for (const part of k.split('.')) v = v === null || typeof v !== 'object' ? undefined : (v as Record<string, unknown>)[part];
+    if (v !== undefined) out[o.key] = v;
+  }
+  return out;
+}
+
+const NetworkSchema = z.strictObject(tableShape(RANK_OPTIONS, 'network'));
+const AttributionSchema = z.strictObject(tableShape(RANK_OPTIONS, 'attribution'));
+
+/** A block's own seed; absent: the top-level `seed`. */
+const BLOCK_SEED = { seed: count(RANK_LIMITS.seed).optional() };
 
 const FitSchema = z.strictObject({
   target: exprString,
   terms: listOf(exprString, 1),
-  intercept: z.boolean().default(true),
-  /** Terms measured with error (errors-in-variables): the fit says their slopes are attenuated. */
-  noisy: listOf(exprString).default([]),
+  ...tableShape(FIT_OPTIONS),
+  ...BLOCK_SEED,
 });
 
 const SearchSchema = z.strictObject({
   target: exprString,
   from: listOf(z.string().min(1), 1),
-  maxTerms: count(RELATE_LIMITS.maxTerms).default(2),
-  powers: z.string().regex(/^-?\d+\.\.-?\d+$/, 'expected a range such as -3..3').default('-3..3'),
-  top: count(RELATE_LIMITS.top).default(10),
+  ...tableShape(SEARCH_OPTIONS),
+  ...BLOCK_SEED,
 });
 
 /** Residual ranking: fit, then rank the remaining columns on what the fit leaves over (run/residual.ts). */
@@ -74,24 +125,15 @@ const ResidualSchema = z.strictObject({
 const BoundSchema = z.strictObject({
   lhs: exprString,
   rhs: listOf(exprString, 1),
-  by: exprString.optional(),
-  bins: count(BOUND_LIMITS.bins).default(10),
-  top: count(BOUND_LIMITS.top).default(5),
-  skipInvalid: z.boolean().default(false),
+  ...tableShape(BOUND_OPTIONS),
 });
 
-/** Right-hand-side discovery: ranges and defaults from the bound stage's one options table. */
+/** Right-hand-side discovery: keys, ranges and defaults from the bound stage's DISCOVER_OPTIONS. */
 const DiscoverSchema = z.strictObject({
   lhs: exprString,
   from: listOf(exprString, 1),
-  lower: z.boolean().default(false),
-  skipInvalid: z.boolean().default(false),
-  ...Object.fromEntries(
-    DISCOVER_OPTIONS.filter((o) => o.key !== 'seed').map((o) => {
-      const n = (o.integer ? z.number().int() : z.number()).min(o.min).max(o.max);
-      return [o.key, o.default === null ? n.optional() : n.default(o.default)];
-    }),
-  ),
+  ...tableShape(DISCOVER_OPTIONS),
+  ...BLOCK_SEED,
 });
 
 export const RunConfigSchema = z.strictObject({
@@ -100,11 +142,8 @@ export const RunConfigSchema = z.strictObject({
   kinds: z.record(z.string(), z.enum(['real', 'integer', 'complex', 'label'])).default({}),
   derive: z.record(z.string(), exprString).default({}),
   target: exprString,
-  features: listOf(z.string().min(1)).optional(),
-  exclude: listOf(z.string().min(1)).default([]),
   groups: z.record(z.string(), z.array(z.string().min(1)).min(1)).default({}),
-  split: z.string().min(1).default('random'),
-  seed: z.number().int().default(1),
+  ...tableShape(RANK_OPTIONS),
   network: NetworkSchema.prefault({}),
   attribution: AttributionSchema.prefault({}),
   fits: z.array(FitSchema).default([]),
@@ -115,7 +154,75 @@ export const RunConfigSchema = z.strictObject({
   output: z.string().min(1).default('surmise-run'),
 });
 
-export type RunConfig = z.infer<typeof RunConfigSchema>;
+/**
+ * The validated configuration with defaults filled in. The schema above is built from the stages'
+ * options tables; this type spells its shape out for the compiler (tests/run/option-parity.test.ts
+ * checks that the parsed defaults have exactly these keys).
+ */
+export interface RunConfig {
+  table: string;
+  format?: 'csv' | 'tsv' | 'json' | 'jsonl';
+  kinds: Record<string, 'real' | 'integer' | 'complex' | 'label'>;
+  derive: Record<string, string>;
+  target: string;
+  groups: Record<string, string[]>;
+  features?: string[];
+  exclude: string[];
+  split?: string;
+  seed: number;
+  network: {
+    task: 'auto' | 'regression' | 'classification';
+    hidden: number[];
+    epochs: number;
+    activation: Activation;
+    loss: LossName;
+    patience: number;
+    batchSize?: number;
+    learningRate: number;
+    engine: EngineChoice;
+    workers: number;
+  };
+  attribution: {
+    methods: AttributionMethod[];
+    seeds: number;
+    folds: number;
+    dropTop: number;
+    probes: number;
+    permutationLoss: 'error' | 'cross-entropy';
+    rows: number;
+    smoothGradSamples: number;
+    smoothGradNoise: number;
+    integratedSteps: number;
+    permutationRepeats: number;
+    resamples: number;
+  };
+  fits: Array<{ target: string; terms: string[]; intercept: boolean; split?: string; seed?: number; folds: number; level: number; keepDuplicates: boolean; noisy: string[] }>;
+  search?: {
+    target: string;
+    from: string[];
+    maxTerms: number;
+    powers: string;
+    maxComplexity: number;
+    timeLimit: number;
+    lattice: string;
+    split?: string;
+    top: number;
+    seed?: number;
+    keepDuplicates: boolean;
+    beam: number;
+    maxExhaustive: number;
+    screenRows: number;
+    maxCells: number;
+  };
+  residual?: z.infer<typeof ResidualSchema>;
+  bounds: Array<{ lhs: string; rhs: string[]; by?: string; bins: number; top: number; id?: string[]; skipInvalid: boolean; lower: boolean; form: BoundForm }>;
+  discover: Array<
+    { lhs: string; from: string[]; id?: string[]; seed?: number; exceedances?: number } & Required<
+      Pick<DiscoverSpec, 'skipInvalid' | 'lower' | 'maxExponent' | 'maxDenominator' | 'proposals' | 'top' | 'bins' | 'heldOut'>
+    >
+  >;
+  output: string;
+}
 
 /** Keys allowed at each level, for "did you mean" on misspellings. */
 const KNOWN_KEYS: Record<string, readonly string[]> = {
@@ -263,7 +370,7 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
     }
     throw new SurmiseError('config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`);
   }
-  const config = parsed.data;
+  const config = parsed.data as unknown as RunConfig;
   const base = baseDir ?? dirname(resolve(file));
   config.table = resolve(base, config.table);
   config.output = resolve(base, config.output);

@@ -96,10 +96,10 @@ export function checkRunFolder(outDir: string, force: boolean): void {
   removeStalePartials(outDir);
   if (!existsSync(outDir)) return;
   if (!force) {
-    throw new SurmiseError('output.exists', `${outDir} already exists; pass --force to replace it, or choose another --out`);
+    throw new SurmiseError('output.exists', `${outDir} already exists; pass \`force\` to replace it, or choose another \`out\``, { option: 'force', also: ['out'] });
   }
   if (!statSync(outDir).isDirectory()) {
-    throw new SurmiseError('output.notRunFolder', `${outDir} is a file, not a run folder; choose another --out`);
+    throw new SurmiseError('output.notRunFolder', `${outDir} is a file, not a run folder; choose another \`out\``, { option: 'out' });
   }
   const entries = listEntries(outDir);
   if (entries.length === 0) return;
@@ -107,16 +107,16 @@ export function checkRunFolder(outDir: string, force: boolean): void {
   if (!m) {
     throw new SurmiseError(
       'output.notRunFolder',
-      `${outDir} is not a surmise run folder (no valid ${RUN_MARKER} marker); it holds ${listed(entries)}; nothing was replaced, choose another --out`,
-      { inTheWay: entries.slice(0, 100) },
+      `${outDir} is not a surmise run folder (no valid ${RUN_MARKER} marker); it holds ${listed(entries)}; nothing was replaced, choose another \`out\``,
+      { inTheWay: entries.slice(0, 100), option: 'out' },
     );
   }
   const inTheWay = entriesInTheWay(outDir, m);
   if (inTheWay.length > 0) {
     throw new SurmiseError(
       'output.notRunFolder',
-      `${outDir} holds files surmise did not write, which replacing it would delete: ${listed(inTheWay)}; move them or choose another --out`,
-      { inTheWay: inTheWay.slice(0, 100) },
+      `${outDir} holds files surmise did not write, which replacing it would delete: ${listed(inTheWay)}; move them or choose another \`out\``,
+      { inTheWay: inTheWay.slice(0, 100), option: 'out' },
     );
   }
 }

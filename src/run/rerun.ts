@@ -1,7 +1,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { SurmiseError } from '../errors.ts';
-import { RunConfigSchema, type LoadedConfig } from './config.ts';
+import { RunConfigSchema, type LoadedConfig, type RunConfig } from './config.ts';
 import type { RunResults } from './run.ts';
 
 /** Read a run folder's results.json (`run.notARun` when it is not one). */
@@ -33,5 +33,5 @@ export function rerunFromFolder(runDir: string, newTable: string, cwd: string): 
   if (!parsed.success) {
     throw new SurmiseError('run.badResults', `${join(runDir, 'results.json')}: the stored configuration is not valid: ${parsed.error.issues[0]?.message}`);
   }
-  return { config: parsed.data, path: join(runDir, 'results.json') };
+  return { config: parsed.data as unknown as RunConfig, path: join(runDir, 'results.json') };
 }

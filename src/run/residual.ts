@@ -81,8 +81,8 @@ function realColumn(name: string, n: number, rows: Int32Array, values: ArrayLike
 /** Fit, rank the remaining columns on the residual (and |residual|), and search the next term. */
 export async function residualRanking(table: Table, spec: ResidualSpec): Promise<ResidualResult> {
   const seed = spec.seed ?? spec.rank?.seed ?? 1;
-  if (spec.search?.maxTerms !== undefined) checkInteger('maxTerms', spec.search.maxTerms, RESIDUAL_LIMITS.maxTerms, 'residual.badOption');
-  if (spec.search?.columns !== undefined) checkInteger('columns', spec.search.columns, RESIDUAL_LIMITS.columns, 'residual.badOption');
+  if (spec.search?.maxTerms !== undefined) checkInteger('maxTerms', spec.search.maxTerms, RESIDUAL_LIMITS.maxTerms);
+  if (spec.search?.columns !== undefined) checkInteger('columns', spec.search.columns, RESIDUAL_LIMITS.columns);
   const fitFull = fitRelation(table, { target: spec.target, terms: spec.terms, intercept: spec.intercept ?? true, seed, keepResiduals: true });
   const { residuals, ...fit } = fitFull;
   const res = residuals!;

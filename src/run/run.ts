@@ -7,19 +7,24 @@ import { createHash } from 'node:crypto';
 import { createReadStream, readFileSync } from 'node:fs';
 import { isAbsolute, relative } from 'node:path';
 import { stringify } from 'yaml';
-import { SurmiseError, didYouMean } from '../errors.ts';
+import { SurmiseError, didYouMean, wordOptionError } from '../errors.ts';
 import { VERSION } from '../version.ts';
 import { deriveColumn, evaluateExpression, readTable, type Table } from '../table/index.ts';
 import { formatColumnName } from '../table/expr/format.ts';
-import { rankFeatures, type RankProgress, type RankResult } from '../attribute/rank.ts';
+import { rankFeatures, type RankOptions, type RankProgress, type RankResult } from '../attribute/rank.ts';
+import { RANK_OPTIONS } from '../attribute/options.ts';
+import { FIT_OPTIONS, SEARCH_OPTIONS } from '../relate/options.ts';
+import { BOUND_OPTIONS } from '../bound/options.ts';
+import { splitRows } from '../relate/split-option.ts';
+import { configKeyOf } from '../util/option-table.ts';
 import { describeProbes } from '../attribute/probes.ts';
 import { residualRanking, type ResidualResult } from './residual.ts';
-import { fitRelation, type FitResult } from '../relate/fit.ts';
-import { searchRelations, type SearchResult } from '../relate/search.ts';
-import { findBound, type BoundResult } from '../bound/find.ts';
+import { fitRelation, type FitResult, type FitSpec } from '../relate/fit.ts';
+import { searchRelations, type SearchResult, type SearchSpec } from '../relate/search.ts';
+import { findBound, type BoundResult, type BoundSpec } from '../bound/find.ts';
 import { discoverBound, type DiscoverResult } from '../bound/discover.ts';
 import { largestIndices, renderReport, sampleIndices, type ReportInput } from '../report/index.ts';
-import { keyPath, type RunConfig, type LoadedConfig } from './config.ts';
+import { keyPath, optionsFromConfig, type RunConfig, type LoadedConfig } from './config.ts';
 import { parseSplitSpec } from '../table/split.ts';
 import { checkRunFolder, writeRunFolder, type OutputFile } from './folder.ts';
 
@@ -345,13 +350,32 @@ function parsePowers(s: string): [number, number] {
   return [a!, b!];
 }
 
+/** The configuration key path of a ranking option (`attribution.seeds`, `network.epochs`, `seed`). */
+function rankKeyPath(key: string): string | undefined {
+  const o = RANK_OPTIONS.find((s) => s.key === key);
+  return o ? (configKeyOf(o) ?? undefined) : undefined;
+}
+
+/** Run a stage; an error naming an option key is reworded with its configuration key path (`word`). */
+function inStage<T>(word: (key: string) => string | undefined, f: () => T): T {
+  const reword = (e: unknown): unknown => (e instanceof SurmiseError ? wordOptionError(e, (k) => word(k) ?? k) : e);
+  try {
+    const r = f();
+    if (r instanceof Promise) return r.catch((e: unknown) => Promise.reject(reword(e))) as T;
+    return r;
+  } catch (e) {
+    throw reword(e);
+  }
+}
+
 /** Run `f`; a SurmiseError it throws is re-thrown naming the configuration key and its place in the file. */
 function inConfig<T>(path: Array<string | number>, at: (p: Array<string | number>) => string, f: () => T): T {
   try {
     return f();
   } catch (e) {
     if (e instanceof SurmiseError && e.exitCode === 2) {
-      throw new SurmiseError(e.code, `${at(path)}: ${keyPath(path)}: ${e.message}`, e.details);
+      const worded = wordOptionError(e, (k) => (k === e.details?.option ? keyPath(path) : k));
+      throw new SurmiseError(e.code, `${at(path)}: ${keyPath(path)}: ${worded.message}`, { ...e.details, worded: true });
     }
     throw e;
   }
@@ -362,7 +386,7 @@ function inConfig<T>(path: Array<string | number>, at: (p: Array<string | number
  * any training starts, so a typo costs seconds, not a whole run.
  */
 function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string | number>) => string): void {
-  inConfig(['split'], at, () => parseSplitSpec(config.split));
+  if (config.split !== undefined) inConfig(['split'], at, () => parseSplitSpec(config.split!));
   const expr = (path: Array<string | number>, source: string) => inConfig(path, at, () => evaluateExpression(table, source));
   expr(['target'], targetExpression(table, config.target));
   config.fits.forEach((f, i) => {
@@ -432,48 +456,49 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
 
   stage('learning and attribution');
   t0 = performance.now();
-  const rank = await rankFeatures(table, {
-    target: config.target,
-    ...(config.features ? { features: config.features } : {}),
-    exclude: config.exclude,
-    groups: config.groups,
-    methods: config.attribution.methods,
-    seeds: config.attribution.seeds,
-    folds: config.attribution.folds,
-    split: config.split,
-    ...(config.network.task !== 'auto' ? { task: config.network.task } : {}),
-    hidden: config.network.hidden,
-    epochs: config.network.epochs,
-    activation: config.network.activation,
-    loss: config.network.loss,
-    patience: config.network.patience,
-    learningRate: config.network.learningRate,
-    ...(config.network.batchSize !== undefined ? { batchSize: config.network.batchSize } : {}),
-    engine: opts.engine ?? config.network.engine,
-    seed: config.seed,
-    dropTop: config.attribution.dropTop,
-    probes: config.attribution.probes,
-    ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
-  });
+  const rankOptions = optionsFromConfig(RANK_OPTIONS, config) as Omit<RankOptions, 'target'>;
+  const rank = await inStage(rankKeyPath, () =>
+    rankFeatures(table, {
+      target: config.target,
+      groups: config.groups,
+      ...rankOptions,
+      ...(opts.engine ? { engine: opts.engine } : {}),
+      ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
+    }),
+  );
   timings.rank = seconds(t0);
 
   stage('fitting relations');
   t0 = performance.now();
-  const fits = config.fits.map((f) => fitRelation(table, { target: f.target, terms: f.terms, intercept: f.intercept, seed: config.seed, noisyTerms: f.noisy }));
+  const fits = config.fits.map((f, i) =>
+    inStage((k) => keyPath(['fits', i, k]), () => {
+      const { split, ...o } = optionsFromConfig(FIT_OPTIONS, f) as { split?: string } & Omit<FitSpec, 'target' | 'terms' | 'split'>;
+      const seed = f.seed ?? config.seed;
+      const rows = split === undefined ? undefined : splitRows(table, split, seed);
+      return fitRelation(table, { target: f.target, terms: f.terms, ...o, seed, ...(rows ? { split: { train: rows.first, test: rows.second, description: rows.description } } : {}) });
+    }),
+  );
   timings.fit = seconds(t0);
 
   let search: SearchResult | null = null;
   if (config.search) {
     stage('searching formulas');
     t0 = performance.now();
-    search = searchRelations(table, {
-      target: config.search.target,
-      from: config.search.from,
-      maxTerms: config.search.maxTerms,
-      powers: parsePowers(config.search.powers),
-      top: config.search.top,
-      seed: config.seed,
-      ...(opts.onSearchProgress ? { progress: opts.onSearchProgress } : {}),
+    const sc = config.search;
+    search = inStage((k) => keyPath(['search', k]), () => {
+      const { split, powers, lattice, ...o } = optionsFromConfig(SEARCH_OPTIONS, sc) as { split?: string; powers: string; lattice: string } & Omit<SearchSpec, 'target' | 'from' | 'split' | 'powers' | 'lattice'>;
+      const seed = sc.seed ?? config.seed;
+      const rows = split === undefined ? undefined : splitRows(table, split, seed);
+      return searchRelations(table, {
+        target: sc.target,
+        from: sc.from,
+        ...o,
+        powers: parsePowers(powers),
+        lattice: lattice === 'auto' || lattice === 'off' ? lattice : Number(lattice),
+        seed,
+        ...(rows ? { split: { selection: rows.first, heldOut: rows.second, description: rows.description } } : {}),
+        ...(opts.onSearchProgress ? { progress: opts.onSearchProgress } : {}),
+      });
     });
     timings.search = seconds(t0);
   }
@@ -489,15 +514,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
       intercept: rc.intercept,
       ...(rc.from ? { from: rc.from } : {}),
       absolute: rc.absolute,
-      rank: {
-        methods: config.attribution.methods,
-        seeds: config.attribution.seeds,
-        folds: config.attribution.folds,
-        split: config.split,
-        hidden: config.network.hidden,
-        epochs: config.network.epochs,
-        probes: config.attribution.probes,
-      },
+      rank: (({ features: _f, exclude: _e, ...o }) => o)(rankOptions),
       search: { maxTerms: rc.maxTerms, powers: parsePowers(rc.powers) },
       seed: config.seed,
       ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
@@ -507,10 +524,10 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
 
   stage('testing bounds');
   t0 = performance.now();
-  const bounds = config.bounds.map((b) =>
-    findBound(table, { lhs: b.lhs, rhs: b.rhs, ...(b.by ? { by: b.by } : {}), bins: b.bins, top: b.top, skipInvalid: b.skipInvalid }),
+  const bounds = config.bounds.map((b, i) =>
+    inStage((k) => keyPath(['bounds', i, k]), () => findBound(table, { lhs: b.lhs, rhs: b.rhs, ...(optionsFromConfig(BOUND_OPTIONS, b) as Omit<BoundSpec, 'lhs' | 'rhs'>) })),
   );
-  const discoveries = config.discover.map((d) => discoverBound(table, { ...d, seed: config.seed }));
+  const discoveries = config.discover.map((d, i) => inStage((k) => keyPath(['discover', i, k]), () => discoverBound(table, { ...d, seed: d.seed ?? config.seed })));
   timings.bound = seconds(t0);
 
   const configText = stringify({ ...config, table: config.table, output: outDir });

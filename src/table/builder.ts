@@ -235,7 +235,8 @@ export class ColumnBuilder {
           );
         throw new SurmiseError(
           'table.badNumber',
-          `${where(this.firstTextRow)}: '${clip(this.firstText)}' is not a number, but ${pct}% of the column's cells are (declare --kind ${this.name}=label to read it as text)`,
+          `${where(this.firstTextRow)}: '${clip(this.firstText)}' is not a number, but ${pct}% of the column's cells are (declare \`kinds\` ${this.name}=label to read it as text)`,
+          { option: 'kinds' },
         );
       }
       return 'label';

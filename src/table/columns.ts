@@ -90,7 +90,8 @@ function checkPairKind(kinds: Record<string, ColumnKind> | undefined, p: { name:
   if (k !== undefined && k !== 'complex' && p.name !== p.re && p.name !== p.im)
     throw new SurmiseError(
       'table.kindConflict',
-      `complex pair ${p.name}=${p.re},${p.im} makes '${p.name}' complex, but its kind is declared '${k}' (--kind ${p.name}=${k}); drop one of the two`,
+      `complex pair ${p.name}=${p.re},${p.im} makes '${p.name}' complex, but its kind is declared '${k}' (\`kinds\` ${p.name}=${k}); drop one of the two`,
+      { option: 'kinds' },
     );
 }
 
@@ -119,13 +120,15 @@ export function checkKinds(
     if (!parts)
       throw new SurmiseError(
         'table.unknownColumn',
-        `--kind ${name}=${kind}: no column '${name}' in ${source}${didYouMean(name, names)}`,
+        `\`kinds\` ${name}=${kind}: no column '${name}' in ${source}${didYouMean(name, names)}`,
+        { option: 'kinds' },
       );
     if (kind === 'complex' && rule !== 'auto')
       throw new SurmiseError(
         'table.unknownColumn',
-        `--kind ${name}=complex: no column '${name}' in ${source}: the complex-pair rule (${rule === 'none' ? 'none' : 'explicit pairs'}) does not join '${parts[0]}' and '${parts[1]}'; ` +
-          `give --complex-pairs ${name}=${parts[0]},${parts[1]} to join them`,
+        `\`kinds\` ${name}=complex: no column '${name}' in ${source}: the complex-pair rule (${rule === 'none' ? 'none' : 'explicit pairs'}) does not join '${parts[0]}' and '${parts[1]}'; ` +
+          `give \`complexPairs\` ${name}=${parts[0]},${parts[1]} to join them`,
+        { option: 'kinds', also: ['complexPairs'] },
       );
   }
 }
@@ -163,7 +166,7 @@ export function joinComplexPairs(table: Table, rule: ComplexPairs = 'auto', kind
         if (who.length > 0) {
           notes.push(
             `columns '${c.name}' and '${imName}' were kept apart: a kind is declared for ${who.map((n) => `'${n}' (${kinds![n]})`).join(' and ')} ` +
-              `(--kind ${m[1]}=complex or --complex-pairs ${m[1]}=${c.name},${imName} joins them)`,
+              `(declaring ${m[1]} complex, or the complex pair ${m[1]}=${c.name},${imName}, joins them)`,
           );
           continue;
         }

@@ -79,7 +79,7 @@ export function buildDataset(table: Table, spec: DatasetSpec): Dataset {
   for (const d of spec.derive ?? []) {
     if (columns.some((c) => c.name === d.name)) {
       throw new SurmiseError(
-        'dataset.deriveClash',
+        'table.duplicateColumn',
         `derived column '${d.name}' would replace an existing column of the same name; choose another name`,
         { column: d.name },
       );

@@ -50,14 +50,15 @@ const EXTENSIONS: Record<string, TableFormat> = {
 export function formatFromPath(path: string, override?: string, display = path): TableFormat {
   if (override !== undefined) {
     if (!TABLE_FORMATS.includes(override as TableFormat))
-      throw new SurmiseError('table.unknownFormat', `--format ${override}: expected one of ${TABLE_FORMATS.join(', ')}`);
+      throw new SurmiseError('table.unknownFormat', `\`format\` ${override}: expected one of ${TABLE_FORMATS.join(', ')}`, { option: 'format' });
     return override as TableFormat;
   }
   const f = EXTENSIONS[extname(path).toLowerCase()];
   if (!f)
     throw new SurmiseError(
       'table.unknownFormat',
-      `cannot tell the format of ${display} from its extension (${Object.keys(EXTENSIONS).join(' ')}); give --format ${TABLE_FORMATS.join('|')}`,
+      `cannot tell the format of ${display} from its extension (${Object.keys(EXTENSIONS).join(' ')}); give \`format\` ${TABLE_FORMATS.join('|')}`,
+      { option: 'format' },
     );
   return f;
 }
@@ -69,7 +70,7 @@ export async function readTable(path: string, opts: ReadOptions = {}): Promise<T
   if (opts.kinds)
     for (const [name, kind] of Object.entries(opts.kinds))
       if (!COLUMN_KINDS.includes(kind))
-        throw new SurmiseError('table.badKind', `--kind ${name}=${kind}: expected one of ${COLUMN_KINDS.join(', ')}`);
+        throw new SurmiseError('table.badKind', `\`kinds\` ${name}=${kind}: expected one of ${COLUMN_KINDS.join(', ')}`, { option: 'kinds' });
   let t: Table;
   if (format === 'csv' || format === 'tsv') t = readDelimited(path, display, format === 'csv' ? ',' : '\t', opts);
   else if (format === 'jsonl') t = readJsonLines(path, display, opts);

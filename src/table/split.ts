@@ -27,12 +27,12 @@ const sorted = (a: Int32Array): Int32Array => a.sort();
 function badSpec(spec: string, why: string): never {
   throw new SurmiseError(
     'split.badSpec',
-    `cannot read --split '${spec}': ${why}; expected random, random:TRAIN,VALIDATION,TEST (e.g. random:0.8,0.1,0.1), kfold:K (e.g. kfold:5) or where:CONDITION (e.g. where:xings <= 12)`,
-    { option: '--split', spec },
+    `cannot read \`split\` '${spec}': ${why}; expected random, random:TRAIN,VALIDATION,TEST (e.g. random:0.8,0.1,0.1), kfold:K (e.g. kfold:5) or where:CONDITION (e.g. where:xings <= 12)`,
+    { option: 'split', spec },
   );
 }
 
-/** Read the `--split` option. Default (empty or `random`): 70/15/15. */
+/** Read the `split` option. Default (empty or `random`): 70/15/15. */
 export function parseSplitSpec(spec: string): SplitSpec {
   const s = spec.trim();
   if (s === '' || s === 'random') return { kind: 'random', train: 0.7, validation: 0.15, test: 0.15 };
@@ -59,7 +59,7 @@ export function parseSplitSpec(spec: string): SplitSpec {
       parseExpression(rest);
     } catch (e) {
       if (e instanceof SurmiseError) {
-        throw new SurmiseError('split.badSpec', `in --split 'where:…': ${e.message}`, { option: '--split', spec, cause: e.code });
+        throw new SurmiseError('split.badSpec', `in \`split\` 'where:…': ${e.message}`, { option: 'split', spec, cause: e.code });
       }
       throw e;
     }
@@ -217,7 +217,7 @@ export function evaluateCondition(dataset: Dataset, table: Table, condition: str
   const r = evaluateExpression(view, expr);
   if (r.im) {
     throw new SurmiseError('split.badSpec', `the split condition '${condition}' has complex values; compare a real quantity such as re(…) or abs(…)`, {
-      option: '--split',
+      option: 'split',
     });
   }
   return r.re;

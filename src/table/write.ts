@@ -65,7 +65,7 @@ export async function writeTable(
   }
   const fmt = formatFromPath(path, format);
   if (!opts.force && existsSync(path))
-    throw new SurmiseError('table.exists', `${path} already exists; not overwriting it (use --force to replace it)`);
+    throw new SurmiseError('table.exists', `${path} already exists; not overwriting it (pass \`force\` to replace it)`, { option: 'force' });
   removeStalePartials(path);
   const tmp = beginPartial(path);
   let fd: number;

@@ -10,12 +10,12 @@ import { beginPartial, discardPartial, endPartial, removeStalePartials } from '.
 export function writeFileAtomic(
   path: string,
   data: string | Uint8Array,
-  opts: { force?: boolean; /** name in messages (default the path) */ display?: string; /** error-code prefix (default 'output') */ codePrefix?: string } = {},
+  opts: { force?: boolean; /** name in messages (default the path) */ display?: string; /** error-code prefix (default 'output') */ codePrefix?: 'output' | 'table' | 'knots' } = {},
 ): void {
   const shown = opts.display ?? path;
   const prefix = opts.codePrefix ?? 'output';
   if (!opts.force && existsSync(path)) {
-    throw new SurmiseError(`${prefix}.exists`, `${shown} already exists; pass --force to replace it`);
+    throw new SurmiseError(`${prefix}.exists`, `${shown} already exists; pass \`force\` to replace it`, { option: 'force' });
   }
   removeStalePartials(path);
   const tmp = beginPartial(path);

@@ -1,4 +1,4 @@
-import { SurmiseError } from '../errors.ts';
+import { SurmiseError, type ErrorCode } from '../errors.ts';
 
 /** The allowed values of a count option: an integer from `min` to `max` (its ceiling). */
 export interface IntegerRange {
@@ -15,7 +15,7 @@ const grouped = (x: number): string => x.toLocaleString('en-US');
  * flag or a key path. Below the range: `badCode`; above the ceiling: `option.tooLarge`.
  * @example checkInteger('seeds', 3, { min: 1, max: 100 }, 'rank.badOption') // 3
  */
-export function checkInteger(key: string, v: unknown, range: IntegerRange, badCode: string): number {
+export function checkInteger(key: string, v: unknown, range: IntegerRange, badCode: ErrorCode = 'option.badValue'): number {
   if (typeof v !== 'number' || !Number.isInteger(v) || v < range.min) {
     throw new SurmiseError(badCode, `expected ${key} to be an integer ≥ ${range.min}, got ${String(v)}`, { option: key, ...range });
   }

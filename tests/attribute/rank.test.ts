@@ -108,8 +108,8 @@ describe('rankFeatures', () => {
   it('refuses bad options with the option named', async () => {
     await expect(rankFeatures(table, { target: 'y', seeds: 0 })).rejects.toThrow(/expected seeds to be an integer ≥ 1, got 0/);
     await expect(rankFeatures(table, { target: 'y', folds: 1 })).rejects.toThrow(SurmiseError);
-    await expect(rankFeatures(table, { target: 'y', folds: 3, split: 'random' })).rejects.toThrow(/--folds 3 and --split random/);
-    await expect(rankFeatures(table, { target: 'y', methods: ['shap' as never] })).rejects.toThrow(/unknown attribution method 'shap'/);
+    await expect(rankFeatures(table, { target: 'y', folds: 3, split: 'random' })).rejects.toThrow(/`folds` 3 and `split` random/);
+    await expect(rankFeatures(table, { target: 'y', methods: ['shap' as never] })).rejects.toThrow(/'shap' in `methods` is not an attribution method/);
     await expect(rankFeatures(table, { target: 'y', dropTop: 12 })).rejects.toThrow(/would drop every one of the 12 feature groups; use at most 11/);
   });
 });

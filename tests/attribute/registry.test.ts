@@ -36,12 +36,12 @@ describe('the attribution-method registry', () => {
     expect(() => parseConfig('table: t.csv\ntarget: y\nattribution:\n  methods: [lime]\n', 'cfg.yaml')).toThrow(/cfg\.yaml:4/);
   });
 
-  it('an unknown name is refused with rank.unknownMethod by the library, naming the registered ones', async () => {
+  it('an unknown name is refused with option.badValue by the library, naming the registered ones', async () => {
     const e = caught(() => attributionStrategy('lime'));
-    expect(e.code).toBe('rank.unknownMethod');
-    expect(e.message).toBe(`unknown attribution method 'lime'; expected one of ${ATTRIBUTION_METHODS.join(', ')}`);
+    expect(e.code).toBe('option.badValue');
+    expect(e.message).toBe(`'lime' in \`methods\` is not an attribution method; expected ${ATTRIBUTION_METHODS.join(', ')}`);
     const t = tableFromRecords([{ a: 1, y: 2 }, { a: 2, y: 3 }]);
-    await expect(rankFeatures(t, { target: 'y', methods: ['lime' as never] })).rejects.toMatchObject({ code: 'rank.unknownMethod' });
+    await expect(rankFeatures(t, { target: 'y', methods: ['lime' as never] })).rejects.toMatchObject({ code: 'option.badValue' });
   });
 
   // f(x) = w·x: ∂f/∂x_j = w_j on every row, so saliency and SmoothGrad are |w_j| exactly; integrated

@@ -209,7 +209,7 @@ describe('refusals', () => {
     expect(res.used).toBe(33);
   });
   it('options are checked against their table, naming the key', () => {
-    expect(caught(() => discoverBound(t, { lhs: 'y', from: ['x'], maxExponent: 13 })).message).toBe('expected maxExponent to be an integer from 1 to 12, got 13');
+    expect(caught(() => discoverBound(t, { lhs: 'y', from: ['x'], maxExponent: 13 })).message).toBe('expected maxExponent to be at most 12 (its ceiling), got 13');
     expect(caught(() => discoverBound(t, { lhs: 'y', from: [] })).message).toBe('expected from to list 1 to 6 quantities, got 0');
     expect(caught(() => discoverBound(t, { lhs: 'y', from: ['x', 'x'] })).message).toBe("from lists 'x' twice");
   });

@@ -118,7 +118,7 @@ describe('rows that cannot be used', () => {
     expect(e.message).toBe(
       'test.csv: 5 of 8 rows cannot be used for l ≤ c·(r) (3 with rhs ≤ 0, 1 with a value that is not finite, 1 with a missing cell); ' +
         'first: row 2, line 3: lhs = 2, rhs = 0; row 3, line 4: lhs = 3, rhs = -2; row 5, line 6: lhs = 5, rhs = -1; ' +
-        'row 6, line 7: lhs = missing, rhs = 1; row 7, line 8: lhs = Infinity, rhs = 1. Pass --skip-invalid to drop and count them',
+        'row 6, line 7: lhs = missing, rhs = 1; row 7, line 8: lhs = Infinity, rhs = 1. With `skipInvalid` they are dropped and counted instead',
     );
   });
 

@@ -70,7 +70,7 @@ describe('surmise bound', () => {
     expect(err.trimEnd().split('\n')).toHaveLength(1);
     expect(err).toBe(
       'surmise: bad.csv: 2 of 4 rows cannot be used for l ≤ c·(r) (2 with rhs ≤ 0); first: row 2, line 3: lhs = 2, rhs = 0; ' +
-        'row 3, line 4: lhs = 3, rhs = -1. Pass --skip-invalid to drop and count them [bound.badRhs]\n',
+        'row 3, line 4: lhs = 3, rhs = -1. With --skip-invalid they are dropped and counted instead [bound.badRhs]\n',
     );
     const skipped = await run(['bad.csv', '--lhs', 'l', '--rhs', 'r', '--skip-invalid', '--json']);
     expect(skipped.code).toBe(0);
@@ -174,7 +174,7 @@ describe('surmise bound', () => {
     expect(stray.err).toBe('surmise: --max-exponent applies to --from [option.conflict]\n');
     const big = await run(['planted.csv', '--lhs', 'b', '--from', 'w', '--max-exponent', '99']);
     expect(big.code).toBe(2);
-    expect(big.err).toBe("surmise: expected --max-exponent to be an integer from 1 to 12, got '99' [option.badValue]\n");
+    expect(big.err).toBe('surmise: expected --max-exponent to be at most 12 (its ceiling), got 99 [option.tooLarge]\n');
   });
 
   it('--form two-sided adds both affine sides to each candidate', async () => {

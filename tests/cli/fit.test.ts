@@ -83,7 +83,7 @@ describe('surmise fit (CLI)', () => {
   it('bad options exit 2 naming the option', async () => {
     const io = memoryIO(dir);
     expect(await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'x', '--folds', '1'], io)).toBe(2);
-    expect(io.err).toMatch(/--folds to be an integer ≥ 2, got '1'/);
+    expect(io.err).toMatch(/--folds to be an integer ≥ 2, got 1 \[option\.badValue\]/);
     const io2 = memoryIO(dir);
     expect(await runCli(['fit', 'anscombe1.csv', '--target', 'y', '--terms', 'x;;x'], io2)).toBe(2);
     expect(io2.err).toMatch(/--terms: term 2 is empty/);

@@ -50,7 +50,7 @@ export const ROWS: HostileRow[] = [
   { name: 'bad split spec', args: ['fit', 'xy.csv', '--target', 'y', '--terms', 'x', '--split', 'bogus'], files: { 'xy.csv': XY }, exit: 2, code: 'split.badSpec' },
   { name: 'rhs not positive', args: ['bound', 'xy.csv', '--lhs', 'y', '--rhs', 'x-3'], files: { 'xy.csv': XY }, exit: 2, code: 'bound.badRhs' },
   { name: 'integer option with trailing text', args: ['demo-data', '--seed', '12abc'], exit: 2, code: 'option.badInteger' },
-  { name: 'too many search terms', args: ['search', 'xy.csv', '--target', 'y', '--from', 'x', '--max-terms', '9'], files: { 'xy.csv': XY }, exit: 2, code: 'relate.badMaxTerms' },
+  { name: 'too many search terms', args: ['search', 'xy.csv', '--target', 'y', '--from', 'x', '--max-terms', '9'], files: { 'xy.csv': XY }, exit: 2, code: 'option.tooLarge', says: 'at most 6' },
 
   // ---- expressions: length and depth
   { name: '3,000-term flat sum', args: ['fit', 'xy.csv', '--target', 'y', '--terms', sum(3000, '+')], files: { 'xy.csv': XY }, exit: 2, code: 'expr.tooDeep', says: 'more than 500' },

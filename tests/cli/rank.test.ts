@@ -93,15 +93,15 @@ describe('surmise rank', () => {
   it('bad options exit 2 naming the option', async () => {
     const cases: Array<[string[], RegExp]> = [
       [['--method', 'shapley'], /--method shapley: 'shapley' is not an attribution method/],
-      [['--seeds', '0'], /expected --seeds to be a positive integer, got 0/],
+      [['--seeds', '0'], /expected --seeds to be an integer ≥ 1, got 0 \[option\.badValue\]/],
       [['--folds', '1'], /--folds to be 0 \(one random split\) or at least 2, got 1/],
       [['--hidden', '16,x'], /expected --hidden \(each layer width\) to be an integer, got 'x'/],
-      [['--task', 'regresion'], /--task regresion: expected regression or classification \(did you mean 'regression'\?\)/],
+      [['--task', 'regresion'], /--task regresion: expected auto, regression or classification \(did you mean 'regression'\?\)/],
       [['--split', 'kfold:1'], /kfold needs a whole number of folds >= 2/],
       [['--permutation-loss', 'entropy'], /--permutation-loss entropy: expected error or cross-entropy/],
-      [['--workers', '-1'], /expected --workers to be a non-negative integer, got -1/],
+      [['--workers', '-1'], /expected --workers to be an integer ≥ 0, got -1/],
       [['--probes', '51'], /expected --probes to be at most 50 \(its ceiling\), got 51/],
-      [['--engine', 'gpu'], /--engine gpu: expected one of auto, native, tfjs \[option\.badEngine\]/],
+      [['--engine', 'gpu'], /--engine gpu: expected auto, native or tfjs \[option\.badValue\]/],
     ];
     for (const [args, re] of cases) {
       const io = memoryIO(dir);

@@ -19,7 +19,7 @@ describe('run configuration', () => {
     expect(config.network.hidden).toEqual([64, 64, 64]);
     expect(config.attribution.seeds).toBe(3);
     expect(config.attribution.methods).toEqual(['saliency', 'smoothgrad', 'integrated', 'permutation']);
-    expect(config.split).toBe('random');
+    expect(config.split).toBeUndefined(); // random 70/15/15, or kfold:K with attribution.folds K
     expect(config.table.endsWith('dir/t.csv')).toBe(true);
   });
 

@@ -31,7 +31,7 @@ describe('configuration checked against the table before training', () => {
 
   it('names the key and its line for a bad split', async () => {
     const err = await refusal('table: t.csv\ntarget: y\nsplit: randm\n');
-    expect(err.startsWith("surmise: c.yaml:3:8: split: cannot read --split 'randm'")).toBe(true);
+    expect(err.startsWith("surmise: c.yaml:3:8: split: cannot read split 'randm'")).toBe(true);
   });
 
   it('names the key for a bad fit term', async () => {

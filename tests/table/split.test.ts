@@ -109,7 +109,8 @@ describe('parseSplitSpec', () => {
     for (const s of ['random:0.8,0.1', 'random:0.8,0.1,0.2', 'random:1,0,0', 'random:a,b,c', 'kfold:1', 'kfold:2.5', 'kfold:', 'where:', 'where:xings <=', 'shuffle']) {
       const e = err(() => parseSplitSpec(s));
       expect(e.code, s).toBe('split.badSpec');
-      expect(e.message, s).toMatch(/--split/);
+      expect(e.message, s).toMatch(/`split`/);
+      expect(e.details?.option, s).toBe('split');
     }
     expect(err(() => parseSplitSpec('random:0.8,0.1,0.2')).message).toMatch(/add up to 1/);
   });

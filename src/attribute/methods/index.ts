@@ -15,10 +15,10 @@ export type AttributionMethod = (typeof ATTRIBUTION_REGISTRY)[number]['name'];
 /** The method names, in registry order; the config schema's enum needs at least one. */
 export const ATTRIBUTION_METHODS = Object.freeze(ATTRIBUTION_REGISTRY.map((m) => m.name)) as readonly [AttributionMethod, ...AttributionMethod[]];
 
-/** The strategy of a registered method name; any other name is refused (`rank.unknownMethod`). */
+/** The strategy of a registered method name; any other name is refused (`option.badValue`, as RANK_OPTIONS.methods). */
 export function attributionStrategy(name: string): AttributionStrategy<AttributionMethod> {
   const s = ATTRIBUTION_REGISTRY.find((m) => m.name === name) as AttributionStrategy<AttributionMethod> | undefined;
-  if (!s) throw new SurmiseError('rank.unknownMethod', `unknown attribution method '${String(name)}'; expected one of ${ATTRIBUTION_METHODS.join(', ')}`, { option: 'method' });
+  if (!s) throw new SurmiseError('option.badValue', `'${String(name)}' in \`methods\` is not an attribution method; expected ${ATTRIBUTION_METHODS.join(', ')}`, { option: 'methods' });
   return s;
 }
 

@@ -1,4 +1,4 @@
-import { SurmiseError } from '../../errors.ts';
+import { SurmiseError, type ErrorCode } from '../../errors.ts';
 
 /** Most characters of the expression shown around the caret; a longer one is cut with '…'. */
 const WINDOW = 120;
@@ -28,7 +28,7 @@ export function caretBlock(source: string, pos: number, end = pos + 1): string {
  * When the source text is unknown (an Expr built by hand) only the first line is given.
  */
 export function exprError(
-  code: string,
+  code: ErrorCode,
   firstLine: string,
   source: string | undefined,
   pos: number,
