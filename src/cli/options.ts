@@ -96,7 +96,10 @@ export function addTableOptions(cmd: Command, table: OptionTable, keys?: readonl
     flags.set(o.key, flag);
     if (o.type === 'boolean') cmd.option(o.default ? flag.replace(/^--/, '--no-') : flag, o.default ? `do not: ${o.description}` : o.description);
     else if (o.type === 'list' && o.separator !== ';') cmd.option(`${flag} <list>`, `${helpOf(o)}; comma-separated or repeated`, collect);
-    else cmd.option(`${flag} <${o.type === 'list' || o.type === 'integers' ? 'list' : 'value'}>`, helpOf(o));
+    else {
+      const meta = { integer: 'n', number: 'x', choice: 'name', text: 'spec', list: 'list', integers: 'list' }[o.type];
+      cmd.option(`${flag} <${meta}>`, helpOf(o));
+    }
   }
   return cmd;
 }

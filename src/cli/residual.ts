@@ -7,7 +7,7 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
-import { collect, parseIntOption, parseNonNegativeInt, parsePositiveInt, rangeHelp } from './options.ts';
+import { addTableOptions, collect, parsePositiveInt, rangeHelp, readTableOptions } from './options.ts';
 import { makeProgress } from './progress.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
@@ -16,9 +16,11 @@ import { withDerived } from '../relate/rows.ts';
 import { toJson } from '../relate/text.ts';
 import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
-import { residualRanking, RESIDUAL_LIMITS, type ResidualResult } from '../run/residual.ts';
-import { RANK_LIMITS } from '../attribute/options.ts';
-import { parseHidden, parseMethods, parseNameList, parseProbes, rankingTable } from './rank.ts';
+import { residualRanking, RESIDUAL_LIMITS, type ResidualResult, type ResidualSpec } from '../run/residual.ts';
+import { RANK_OPTIONS } from '../attribute/options.ts';
+import { COLUMN_KINDS } from '../table/columns.ts';
+import { parseKindOptions } from './inspect.ts';
+import { parseNameList, rankingTable } from './rank.ts';
 import { splitTerms } from './fit.ts';
 import { parsePowers } from './search.ts';
 
@@ -28,21 +30,18 @@ interface ResidualCliOptions {
   intercept: boolean;
   from?: string;
   derive: string[];
-  method: string;
-  seeds: string;
-  split?: string;
-  hidden: string;
-  epochs: string;
-  seed: string;
-  probes: string;
-  workers: string;
+  kind: string[];
   absolute: boolean;
   maxTerms: string;
   powers: string;
   format?: string;
   json?: boolean;
   progress: boolean;
+  [table: string]: unknown;
 }
+
+/** The ranking options of `rank` that residual takes too (its columns come from --from). */
+const RANK_KEYS = RANK_OPTIONS.map((o) => o.key).filter((k) => k !== 'features' && k !== 'exclude');
 
 
 const f3 = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? 'n/a' : x.toFixed(3));
@@ -77,7 +76,7 @@ export function formatResidual(r: ResidualResult, source: string): string {
 }
 
 export function registerResidual(program: Command, io: CliIO): void {
-  program
+  const cmd = program
     .command('residual')
     .description('fit a formula, then rank the remaining columns by how well they predict what it leaves over (and its size), and propose the next term')
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
@@ -86,14 +85,9 @@ export function registerResidual(program: Command, io: CliIO): void {
     .option('--no-intercept', 'fit without the constant term')
     .option('--from <a,b>', 'rank only these columns (default: every numeric column the target and terms do not read)')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
-    .option('--method <m>', 'attribution method(s), as for rank', 'all')
-    .option('--seeds <n>', 'networks per split', String(RANK_DEFAULTS.seeds))
-    .option('--split <spec>', 'random | random:TRAIN,VALIDATION,TEST | kfold:K | where:CONDITION')
-    .option('--hidden <widths>', 'hidden layer widths', RANK_DEFAULTS.hidden.join(','))
-    .option('--epochs <n>', 'most training epochs', String(RANK_DEFAULTS.epochs))
-    .option('--seed <s>', 'the seed every other seed is derived from', String(RANK_DEFAULTS.seed))
-    .option('--probes <n>', 'noise probes per repeat (0 = none, at most 50)', String(RANK_DEFAULTS.probes))
-    .option('--workers <n>', 'worker threads for training (0 = train in this thread)', String(RANK_DEFAULTS.workers))
+    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[]);
+  addTableOptions(cmd, RANK_OPTIONS, RANK_KEYS);
+  cmd
     .option('--no-absolute', 'do not rank the absolute residual')
     .option('--max-terms <k>', `most terms the next-term search adds${rangeHelp(RESIDUAL_LIMITS.maxTerms)}`, '1')
     .option('--powers <lo..hi>', 'integer powers for the next-term search', '-3..3')
@@ -104,18 +98,9 @@ export function registerResidual(program: Command, io: CliIO): void {
       if (o.format !== undefined && !TABLE_FORMATS.includes(o.format as TableFormat)) {
         throw new SurmiseError('cli.badFormat', `--format ${o.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(o.format, TABLE_FORMATS)}`);
       }
-      const seed = parseIntOption('--seed', o.seed);
-      if (seed < 0 || seed > 0xffffffff) throw new SurmiseError('option.badInteger', `expected --seed to be an integer in [0, 4294967295], got ${o.seed}`);
       const maxTerms = parsePositiveInt('--max-terms', o.maxTerms, RESIDUAL_LIMITS.maxTerms.max);
-      const rank = {
-        methods: parseMethods(o.method),
-        seeds: parsePositiveInt('--seeds', o.seeds, RANK_LIMITS.seeds.max),
-        ...(o.split !== undefined ? { split: o.split } : {}),
-        hidden: parseHidden(o.hidden),
-        epochs: parsePositiveInt('--epochs', o.epochs, RANK_LIMITS.epochs.max),
-        probes: parseProbes(o.probes),
-        workers: parseNonNegativeInt('--workers', o.workers, RANK_LIMITS.workers.max),
-      };
+      const rank = readTableOptions(RANK_OPTIONS, o, {}, RANK_KEYS) as NonNullable<ResidualSpec['rank']>;
+      const seed = rank.seed ?? RANK_DEFAULTS.seed;
       const terms = splitTerms(o.terms);
       const powers = parsePowers(o.powers);
       const from = o.from !== undefined ? parseNameList('--from', o.from) : undefined;
@@ -123,7 +108,8 @@ export function registerResidual(program: Command, io: CliIO): void {
         const p = parseDerive(d);
         return { name: p.name, expression: p.source };
       });
-      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}) });
+      const kinds = parseKindOptions(o.kind);
+      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}), ...(Object.keys(kinds).length ? { kinds } : {}) });
       const table = withDerived(table0, derive);
       const progress = makeProgress(io, 'residual', o.progress);
       let result: ResidualResult;

@@ -224,6 +224,27 @@ export interface RunConfig {
   output: string;
 }
 
+/** Key path (list indices as `#`) → library option key, for every table option of the configuration. */
+const OPTION_AT = new Map<string, string>(
+  (
+    [
+      [RANK_OPTIONS, ''],
+      [FIT_OPTIONS, 'fits.#.'],
+      [SEARCH_OPTIONS, 'search.'],
+      [BOUND_OPTIONS, 'bounds.#.'],
+      [DISCOVER_OPTIONS, 'discover.#.'],
+    ] as const
+  ).flatMap(([table, prefix]) => table.flatMap((o) => (configKeyOf(o) === null ? [] : [[prefix + configKeyOf(o)!, o.key] as [string, string]]))),
+);
+
+/** `{ option }` when `path` is (an item of) a table option's key, else `{}`. */
+function optionDetails(path: ReadonlyArray<PropertyKey>): { option?: string } {
+  const parts = path.map((p) => (typeof p === 'number' ? '#' : String(p)));
+  while (parts.length && parts[parts.length - 1] === '#') parts.pop();
+  const option = OPTION_AT.get(parts.join('.'));
+  return option === undefined ? {} : { option };
+}
+
 /** Keys allowed at each level, for "did you mean" on misspellings. */
 const KNOWN_KEYS: Record<string, readonly string[]> = {
   '': Object.keys(RunConfigSchema.shape),
@@ -343,7 +364,7 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
       throw new SurmiseError(
         'option.tooLarge',
         `${where(node?.range?.[0])}: ${keyPath(path)}: expected at most ${Number(issue.maximum).toLocaleString('en-US')} (its ceiling), got ${describe(got)}`,
-        { key: keyPath(path) },
+        { key: keyPath(path), ...optionDetails(path) },
       );
     } else if (issue.code === 'too_big' && issue.origin === 'array') expected = `expected a list of at most ${String(issue.maximum)} item(s)`;
     else if (issue.code === 'too_small' && issue.origin === 'array') expected = `expected a list of at least ${String(issue.minimum)} item(s)`;
@@ -368,7 +389,9 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
       }
       throw new SurmiseError('config.missingKey', `${where(node?.range?.[0])}: missing required key '${keyPath(path)}'`);
     }
-    throw new SurmiseError('config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`);
+    // a bad value of a table option is option.badValue, as in the library and on the command line
+    const option = optionDetails(path);
+    throw new SurmiseError(option.option ? 'option.badValue' : 'config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`, { key: keyPath(path), ...option });
   }
   const config = parsed.data as unknown as RunConfig;
   const base = baseDir ?? dirname(resolve(file));

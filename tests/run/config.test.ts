@@ -65,7 +65,7 @@ describe('run configuration', () => {
 
   it('refuses a number out of range', () => {
     expect(refusal('table: a.csv\ntarget: sig\nattribution:\n  seeds: 0\n')).toEqual({
-      code: 'config.badValue',
+      code: 'option.badValue',
       message: 'cfg.yaml:4:10: attribution.seeds: expected a number ≥ 1, got 0',
     });
   });
@@ -86,14 +86,14 @@ describe('run configuration', () => {
 
   it('refuses a wrong type', () => {
     expect(refusal('table: a.csv\ntarget: sig\nnetwork:\n  hidden: 12\n')).toEqual({
-      code: 'config.badValue',
+      code: 'option.badValue',
       message: 'cfg.yaml:4:11: network.hidden: expected a list, got 12',
     });
   });
 
   it('refuses a value outside an enumeration', () => {
     expect(refusal('table: a.csv\ntarget: sig\nnetwork:\n  activation: tanh\n')).toEqual({
-      code: 'config.badValue',
+      code: 'option.badValue',
       message: "cfg.yaml:4:15: network.activation: expected one of 'relu', 'gelu', got 'tanh'",
     });
   });
@@ -120,7 +120,7 @@ describe('run configuration', () => {
 
   it('refuses a malformed power range in search', () => {
     expect(refusal('table: a.csv\ntarget: y\nsearch:\n  target: y\n  from: [a]\n  powers: 1-3\n')).toEqual({
-      code: 'config.badValue',
+      code: 'option.badValue',
       message: "cfg.yaml:6:11: search.powers: expected a range such as -3..3, got '1-3'",
     });
   });

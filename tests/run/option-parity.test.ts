@@ -247,3 +247,40 @@ describe('every option changes the outcome, or its table says why not', () => {
     }
   }
 });
+
+describe('one failure, one code: a value below an option\'s range is option.badValue on the command line and in a configuration', () => {
+  const BASES: Record<string, string[]> = { rank: RANK_BASE, fit: FIT_BASE, search: SEARCH_BASE, bound: BOUND_BASE, discover: DISCOVER_BASE };
+  for (const s of STAGES) {
+    it(s.name, async () => {
+      let checked = 0;
+      for (const o of s.table) {
+        if (o.type !== 'integer' || flagOf(o) === null || configKeyOf(o) === null) continue;
+        checked++;
+        const low = String(o.min - 1);
+        const io = memoryIO(dir);
+        expect(await runCli([...BASES[s.name]!, flagOf(o)!, low], io), `${s.name} ${flagOf(o)}`).toBe(2);
+        expect(io.err, `${s.name} ${flagOf(o)}`).toMatch(new RegExp(`${flagOf(o)}.*\\[option\\.badValue\\]\\n$`));
+        // the same in the configuration, at the option's key path (a block's list index included)
+        const keyPath = [...s.path.filter((p) => typeof p === 'string'), ...configKeyOf(o)!.split('.')];
+        const nest = (keys: string[], indent: string): string =>
+          keys.length === 1 ? `${indent}${keys[0]}: ${low}\n` : `${indent}${keys[0]}:\n${nest(keys.slice(1), indent + '  ')}`;
+        let yaml = `table: t.csv\ntarget: y\n`;
+        if (s.path.length === 0) yaml += nest(keyPath, '');
+        else {
+          const item = s.yaml.split('\n').slice(1).filter(Boolean).join('\n');
+          const list = typeof s.path[1] === 'number';
+          yaml += `${s.path[0]}:\n${item}\n${list ? '    ' : '  '}${configKeyOf(o)}: ${low}\n`;
+        }
+        let e: unknown;
+        try {
+          parseConfig(yaml, 'cfg.yaml');
+        } catch (x) {
+          e = x;
+        }
+        expect((e as { code?: string })?.code, `${s.name}.${o.key}: ${yaml}`).toBe('option.badValue');
+        expect((e as { details?: { option?: string } }).details?.option, `${s.name}.${o.key}`).toBe(o.key);
+      }
+      expect(checked).toBeGreaterThan(1);
+    }, 120_000);
+  }
+});
