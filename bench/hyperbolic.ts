@@ -1,7 +1,8 @@
 /**
  * Benchmark: hyperbolic invariants (status, volume, cusp shape).
  *  A. one diagram at a time, up to 50 crossings (target: under 1 s each): the twist family
- *     σ1^(2k+1) σ2 σ1⁻¹ σ2 and random 4-strand knot braids of 30 and 50 letters;
+ *     σ1^(2k+1) σ2 σ1⁻¹ σ2, twist knots as plat PD codes (4..50 crossings) and random 4-strand
+ *     knot braids of 30 and 50 letters;
  *  B. 1,000 random 20-crossing knots (4-strand braids of length 20) through `invariantsMany`
  *     with 2 worker threads and with 1 (target: under 60 s on 2 cores).
  * Run: npm run bench -- hyperbolic   (node --import tsx bench/hyperbolic.ts [--quick])
@@ -12,6 +13,8 @@ import { diagramFrom, randomKnotBraid, type Braid } from '../src/knots/index.ts'
 import { hyperbolicInvariants } from '../src/knots/hyperbolic/index.ts';
 import { invariantsMany } from '../src/knots/many.ts';
 import type { DiagramSource } from '../src/knots/parse.ts';
+import { twistKnotPD } from '../src/knots/plat.ts';
+import type { Crossing } from '../src/knots/pd.ts';
 
 const quick = process.argv.includes('--quick');
 const median = (xs: number[]): number => {
@@ -28,17 +31,18 @@ const groups: Array<[string, Braid[]]> = [
   ['random 4-strand knot braids, 30 crossings', Array.from({ length: quick ? 5 : 20 }, () => randomKnotBraid(rngA, 4, 30))],
   ['random 4-strand knot braids, 50 crossings', Array.from({ length: quick ? 5 : 20 }, () => randomKnotBraid(rngA, 4, 50))],
 ];
-for (const [label, braids] of groups) {
+const plats: Array<[string, Crossing[][]]> = [['twist knots as plat PD codes, 4..50 crossings', Array.from({ length: 47 }, (_, k) => twistKnotPD(k + 2))]];
+for (const [label, diagrams] of [...groups, ...plats] as Array<[string, Array<Braid | Crossing[]>]>) {
   const times: number[] = [];
   const status = new Map<string, number>();
-  for (const b of braids) {
+  for (const b of diagrams) {
     const t0 = performance.now();
-    const h = hyperbolicInvariants(diagramFrom({ kind: 'braid', braid: b }));
+    const h = hyperbolicInvariants(diagramFrom(Array.isArray(b) ? { kind: 'pd', pd: b } : { kind: 'braid', braid: b }));
     times.push(performance.now() - t0);
     status.set(h.geometry, (status.get(h.geometry) ?? 0) + 1);
   }
   console.log(
-    `A. ${label}: ${braids.length} diagrams, median ${median(times).toFixed(0)} ms, max ${Math.max(...times).toFixed(0)} ms [target < 1000 ms each]; ` +
+    `A. ${label}: ${diagrams.length} diagrams, median ${median(times).toFixed(0)} ms, max ${Math.max(...times).toFixed(0)} ms [target < 1000 ms each]; ` +
       [...status].map(([k, v]) => `${k} ${v}`).join(', '),
   );
 }

@@ -33,11 +33,16 @@ const smallest = (im: Float64Array): number => {
   return m;
 };
 
-/** The sorted shapes, rounded: equal for a triangulation and the same one reached again. */
-function signature(m: { re: Float64Array; im: Float64Array }): string {
-  const parts: string[] = [];
-  for (let t = 0; t < m.re.length; t++) parts.push(`${m.re[t]!.toFixed(7)},${m.im[t]!.toFixed(7)}`);
-  return parts.sort().join(';');
+/** An order-free hash of the rounded shapes: equal for a triangulation and the same one reached again. */
+function signature(m: { re: Float64Array; im: Float64Array }): number {
+  let h = 0;
+  for (let t = 0; t < m.re.length; t++) {
+    const a = Math.round(m.re[t]! * 1e7);
+    const b = Math.round(m.im[t]! * 1e7);
+    // a multiplicative mix of the two integers, summed so that the order does not matter
+    h += (Math.imul(a ^ 0x5bd1e995, 0x27d4eb2d) ^ Math.imul(b ^ 0x165667b1, 0x85ebca6b)) >>> 0;
+  }
+  return h;
 }
 
 /**
@@ -57,26 +62,18 @@ export function flipToGeometric(
   let track = start.map;
   let score = negatives(start.im, minIm);
   // triangulations already visited, by their multiset of shapes (the walk must not undo itself)
-  const seen = new Set<string>([signature(start)]);
+  const seen = new Set<number>([signature(start)]);
   for (let step = 0; step < budget; step++) {
     if (score === 0) return { tri: cur.tri, re: cur.re, im: cur.im, map: track, moves: step };
     const cold = new Set(frozen.map((o) => track[o]!));
     const neg: number[] = [];
     for (let t = 0; t < cur.tri.n; t++) if (cur.im[t]! < minIm) neg.push(t);
     const touches = (ts: number[]): boolean => ts.some((t) => cold.has(t));
-    let best: MovedShapes | undefined;
-    let bestKey: [number, number, number, number] = [Infinity, 0, 0, 0];
+    // candidates ranked by their key; the (rarely failing) triangulation check is made on the chosen one
+    const ranked: Array<{ m: MovedShapes; key: [number, number, number, number] }> = [];
     const consider = (m: MovedShapes | undefined): void => {
-      if (!m || m.tri.n > maxTets || seen.has(signature(m)) || !isCuspedTriangulation(m.tri, cusps)) return;
-      const key: [number, number, number, number] = [negatives(m.im, minIm), -smallest(m.im), m.tri.n, rng.next()];
-      for (let i = 0; i < 4; i++) {
-        if (key[i]! < bestKey[i]!) {
-          best = m;
-          bestKey = key;
-          return;
-        }
-        if (key[i]! > bestKey[i]!) return;
-      }
+      if (!m || m.tri.n > maxTets || seen.has(signature(m))) return;
+      ranked.push({ m, key: [negatives(m.im, minIm), -smallest(m.im), m.tri.n, rng.next()] });
     };
     // the negative tetrahedra and their neighbours
     const near = new Set<number>();
@@ -89,6 +86,15 @@ export function flipToGeometric(
         if (!touches(others)) consider(threeTwoShapes(cur.tri, cur.re, cur.im, t, a, b));
       }
     }
+    ranked.sort((x, y) => x.key[0] - y.key[0] || x.key[1] - y.key[1] || x.key[2] - y.key[2] || x.key[3] - y.key[3]);
+    let best: MovedShapes | undefined;
+    let bestKey: [number, number, number, number] = [Infinity, 0, 0, 0];
+    for (const r of ranked)
+      if (isCuspedTriangulation(r.m.tri, cusps)) {
+        best = r.m;
+        bestKey = r.key;
+        break;
+      }
     if (!best) {
       // stuck: a 2–3 move on a random face of a random negative tetrahedron, if any is possible
       const t = neg[rng.int(neg.length)]!;

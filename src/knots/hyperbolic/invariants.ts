@@ -74,6 +74,8 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
       small = undefined;
     }
   }
+  if (small && small.word.length === 0)
+    return { geometry: 'not hyperbolic', reason: `the braid reduces to the empty word by free reduction and Markov moves: ${small.strands === 1 ? 'an unknot' : 'an unlink'}` };
   const known = small && recogniseBraid(small, d.info.nComponents);
   if (known) return known;
   const crossings = d.braid ? braidClosurePD(small!).pd : d.info.crossings;

@@ -244,7 +244,7 @@ const sumSquares = (a: Float64Array, b: Float64Array): number => {
  * form, not necessarily with principal arguments; `flip.ts` and the final check in the half-plane
  * decide what it is worth. Steps are accepted only when Σ|F|² decreases.
  */
-export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 200): NewtonResult {
+export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60): NewtonResult {
   const { n, rows } = sys;
   const re = Float64Array.from(startRe);
   const im = Float64Array.from(startIm);

@@ -36,7 +36,7 @@ export interface SearchOptions {
   /** 2–3 / 3–2 moves allowed when carrying a solution with negative tetrahedra to a geometric one. */
   flipBudget: number;
 }
-export const SEARCH_DEFAULTS: SearchOptions = { maxTriangulations: 12, maxSolves: 60, minIm: 1e-7, rounds: 3, kicks: 20, flipBudget: 200 };
+export const SEARCH_DEFAULTS: SearchOptions = { maxTriangulations: 6, maxSolves: 30, minIm: 1e-7, rounds: 2, kicks: 20, flipBudget: 120 };
 
 export interface GeometricSolution {
   tri: Triangulation;

@@ -142,6 +142,11 @@ describe('hyperbolic invariants of small knots', () => {
       expect(h.naturalSlope).toBeUndefined();
     }
   });
+  it('braids that free reduction and Markov destabilisation empty are the unknot or an unlink (Markov 1936)', () => {
+    expect(hyp('1 1 -1').reason).toMatch(/empty word.*unknot/);
+    expect(hyp('1 2 -1').reason).toMatch(/empty word.*unlink/);
+    expect(hyp('1 2 -1').volume).toBeUndefined();
+  });
   it('split and trivial diagrams are not hyperbolic, with the reason', () => {
     expect(hyp('3: 1 1 1').reason).toMatch(/torus|split/);
     expect(hyp('1 -2 1 -2 4 4 4').geometry).toBe('not hyperbolic'); // strand 4,5 apart
