@@ -48,6 +48,23 @@ describe('error codes', () => {
   });
 });
 
+describe('library messages name option keys, never CLI flags', () => {
+  it('no string in src/ outside src/cli names a --flag (the CLI words keys as flags)', () => {
+    const offenders: string[] = [];
+    for (const p of sources(SRC)) {
+      if (p.includes(`${join('src', 'cli')}`) || p.endsWith('error-codes.ts')) continue;
+      const code = readFileSync(p, 'utf8')
+        .split('\n')
+        .filter((l) => !/^\s*(\*|\/\/|\/\*)/.test(l))
+        .join('\n');
+      for (const m of code.matchAll(/'(?:[^'\\\n]|\\.)*'|`(?:[^`\\]|\\.)*`|"(?:[^"\\\n]|\\.)*"/g)) {
+        if (/(^|[\s(['"`])--[a-z]/.test(m[0].slice(1))) offenders.push(`${p.slice(SRC.length + 1)}: ${m[0].slice(0, 60)}`);
+      }
+    }
+    expect(offenders).toEqual([]);
+  });
+});
+
 describe('wordOptionError: the option key worded for the layer', () => {
   const e = new SurmiseError('bound.badRhs', 'rows with rhs ≤ 0. With `skipInvalid` they are dropped and counted instead', { option: 'skipInvalid' });
   it('as a CLI flag', () => {

@@ -177,7 +177,7 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
       return { form: a.form, slope: a.slope, offset: a.offset, meanGap: a.meanGap, atLimit: a.atLimit, witnesses: Array.from(a.witnessRows, witnessOf) };
     });
     const core = boundArrays(ratio, by.values, used, { bins: opts.bins, top: opts.top, upper, byName });
-    if (opts.by === null) core.notes.push(`no --by given: strata are taken along the rhs ${rhsSrc}`);
+    if (opts.by === null) core.notes.push(`no stratifying expression (by) given: strata are taken along the rhs ${rhsSrc}`);
     const rowNo = (i: number) => i + 1;
     results.push({
       rhs: rhsSrc,

@@ -10,7 +10,7 @@ export function formatBound(res: BoundResult): string {
   out.push(`${res.lhs} ${rel} c·rhs on ${res.source} (${res.n} rows; tightest c = ${word} of lhs/rhs over the rows used)`);
   if (res.dropped.total > 0) {
     out.push(
-      `dropped ${res.dropped.total} rows for at least one rhs (--skip-invalid): ${res.dropped.missing} with a missing cell, ` +
+      `dropped ${res.dropped.total} rows for at least one rhs (invalid rows skipped as asked): ${res.dropped.missing} with a missing cell, ` +
         `${res.dropped.nonFinite} not finite, ${res.dropped.rhsNonPositive} with rhs ≤ 0`,
     );
   }
@@ -90,7 +90,7 @@ export function formatDiscovery(res: DiscoverResult): string {
   out.push(
     `${res.used} of ${res.n} rows used; exponents fitted on ${res.selectionRows} selection rows, checked on ${res.heldOutRows} held-out rows (seed ${res.seed}); ${res.candidates} exponent vectors checked`,
   );
-  if (res.dropped.total > 0) out.push(`dropped ${res.dropped.total} rows (--skip-invalid): ${res.dropped.missing} with a missing cell, ${res.dropped.nonFinite} not finite, ${res.dropped.rhsNonPositive} with a value ≤ 0`);
+  if (res.dropped.total > 0) out.push(`dropped ${res.dropped.total} rows (invalid rows skipped as asked): ${res.dropped.missing} with a missing cell, ${res.dropped.nonFinite} not finite, ${res.dropped.rhsNonPositive} with a value ≤ 0`);
   for (const note of res.notes) out.push(`note: ${note}`);
   out.push('');
   out.push(

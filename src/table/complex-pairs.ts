@@ -6,16 +6,17 @@ import { SurmiseError } from '../errors.ts';
 import type { ComplexPairs } from './columns.ts';
 
 /**
- * `--complex-pairs` values (in order given) into a rule: none given → 'auto'; a single `auto` or
+ * `complexPairs` values (in order given; the CLI's `--complex-pairs`) into a rule: none given → 'auto'; a single `auto` or
  * `none`; or one or more `NAME=RE,IM` (each joins columns RE and IM into complex NAME). Mixing
  * `auto`/`none` with pairs, a name given twice, or a column used by two pairs is
  * `cli.badComplexPairs`, naming `option` and the value.
  */
-export function parseComplexPairsOption(values: readonly string[], option = '--complex-pairs'): ComplexPairs {
+export function parseComplexPairsOption(values: readonly string[], option = '`complexPairs`'): ComplexPairs {
   const bad = (v: string, why: string): never => {
     throw new SurmiseError(
       'cli.badComplexPairs',
       `${option} ${v}: ${why}; expected auto, none, or NAME=RE,IM (repeatable), e.g. ${option} za=za_re,za_im`,
+      { option: 'complexPairs' },
     );
   };
   if (values.length === 0) return 'auto';

@@ -114,7 +114,7 @@ describe('parseComplexPairsOption', () => {
     const cases: Array<[string[], RegExp]> = [
       [['auto', 'none'], /'auto' cannot be combined/],
       [['auto', 'm=a,b'], /'auto' cannot be combined/],
-      [['sometimes'], /--complex-pairs sometimes: 'sometimes' is neither auto, none nor NAME=RE,IM/],
+      [['sometimes'], /`complexPairs` sometimes: 'sometimes' is neither auto, none nor NAME=RE,IM/],
       [['m=a'], /expected two column names/],
       [['m=a,b,c'], /expected two column names/],
       [['=a,b'], /the name before = is empty/],
