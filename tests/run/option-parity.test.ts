@@ -284,3 +284,15 @@ describe('one failure, one code: a value below an option\'s range is option.badV
     }, 120_000);
   }
 });
+
+describe('an inert option leaves the outcome as it is', () => {
+  it('rank --workers 1 (training in a worker thread) gives the outcome of --workers 0', async () => {
+    const here = outcome(await json([...RANK_BASE, '--workers', '0']), 'rank');
+    expect(outcome(await json([...RANK_BASE, '--workers', '1']), 'rank')).toBe(here);
+  }, 120_000);
+  it('search --time 600 gives the outcome of the default budget when the budget is not reached', async () => {
+    const r = await json([...SEARCH_BASE, '--time', '600']);
+    expect((r.cuts as { time: boolean }).time).toBe(false);
+    expect(outcome(r, 'search')).toBe(outcome(await json(SEARCH_BASE), 'search'));
+  }, 120_000);
+});
