@@ -18,11 +18,24 @@ export function platClosurePD(strands: number, word: readonly number[]): Crossin
   const corners = word.map(() => [0, 0, 0, 0]);
   const visited = new Set<string>();
   let label = 0;
+  let pos = 0;
+  // the strand at `pos` meets level k: if crossing k joins positions i and i + 1, label the corner it
+  // enters by (side `enter`: 0 top, 2 bottom) and the one it leaves by (the other side), and move across
+  const pass = (k: number, enter: number, leave: number): number => {
+    const i = Math.abs(word[k]!) - 1;
+    if (pos !== i && pos !== i + 1) return pos;
+    const c = corners[k]!;
+    c[enter + (pos === i ? 0 : 1)] = label;
+    label++;
+    const to = pos === i ? i + 1 : i;
+    c[leave + (to === i ? 0 : 1)] = label;
+    return to;
+  };
   for (let startPos = 0; startPos < strands; startPos += 2) {
     // a component not yet traced starts going down from the left end of a cap
     if (visited.has(`0:${startPos}`)) continue;
     let level = 0; // between crossing level-1 and level (0 = just under the caps)
-    let pos = startPos;
+    pos = startPos;
     let down = true;
     label++;
     const first = label;
@@ -35,16 +48,7 @@ export function platClosurePD(strands: number, word: readonly number[]): Crossin
           down = false;
           continue;
         }
-        const i = Math.abs(word[level]!) - 1; // crossing between positions i and i + 1
-        if (pos !== i && pos !== i + 1) {
-          level++;
-          continue;
-        }
-        const c = corners[level]!;
-        c[pos === i ? 0 : 1] = label; // entering from the top
-        label++;
-        pos = pos === i ? i + 1 : i;
-        c[pos === i ? 2 : 3] = label; // leaving at the bottom
+        pos = pass(level, 0, 2); // entering from the top, leaving at the bottom
         level++;
       } else {
         if (level === 0) {
@@ -53,17 +57,7 @@ export function platClosurePD(strands: number, word: readonly number[]): Crossin
           if (pos === startPos) break;
           continue;
         }
-        const k = level - 1;
-        const i = Math.abs(word[k]!) - 1;
-        if (pos !== i && pos !== i + 1) {
-          level--;
-          continue;
-        }
-        const c = corners[k]!;
-        c[pos === i ? 2 : 3] = label; // entering from the bottom
-        label++;
-        pos = pos === i ? i + 1 : i;
-        c[pos === i ? 0 : 1] = label; // leaving at the top
+        pos = pass(level - 1, 2, 0); // entering from the bottom, leaving at the top
         level--;
       }
     }
