@@ -13,7 +13,7 @@ import { COLUMN_KINDS } from '../table/columns.ts';
 import { parseComplexPairsOption } from '../table/complex-pairs.ts';
 import { profileTable, type ColumnProfile, type TableProfile } from '../table/profile.ts';
 import type { ColumnKind, Table } from '../table/types.ts';
-import { deriveColumn, parseDerive } from '../table/expr/index.ts';
+import { parseDerive, withDerived } from '../table/expr/index.ts';
 import { toJson } from '../util/json.ts';
 
 interface InspectOptions {
@@ -44,19 +44,6 @@ export function parseKindOptions(specs: string[]): Record<string, ColumnKind> {
     kinds[name] = kind as ColumnKind;
   }
   return kinds;
-}
-
-/** Append `--derive` columns to a table, in order (later ones may use earlier ones). */
-export function applyDerives(table: Table, specs: string[]): Table {
-  let t = table;
-  for (const s of specs) {
-    const { name, source } = parseDerive(s);
-    if (t.columns.some((c) => c.name === name))
-      throw new SurmiseError('table.duplicateColumn', `--derive ${s}: a column '${name}' already exists in ${t.source}`);
-    const col = deriveColumn(t, name, source);
-    t = { ...t, columns: [...t.columns, col] };
-  }
-  return t;
 }
 
 function fmtNum(x: number | null | undefined): string {
@@ -151,7 +138,7 @@ export function registerInspect(program: Command, io: CliIO): void {
       } finally {
         reading.stop();
       }
-      table = applyDerives(table, opts.derive);
+      table = withDerived(table, opts.derive.map((d) => parseDerive(d)));
       const profile = profileTable(table);
       if (opts.json) io.stdout(toJson(profile) + '\n');
       else io.stdout(formatProfile(profile));
