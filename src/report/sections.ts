@@ -433,6 +433,7 @@ export function boundsSection(input: ReportInput, plan: PlotPlan, set: SectionSe
           ],
         });
       }
+      for (const n of r.notes ?? []) out.push({ kind: 'paragraph', parts: [`Note: ${n.text}`] });
       if (r.witnesses.length > 0) {
         const labelKeys: string[] = [];
         for (const w of r.witnesses) for (const k of Object.keys(w.labels ?? {})) if (!labelKeys.includes(k)) labelKeys.push(k);

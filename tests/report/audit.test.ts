@@ -191,3 +191,14 @@ describe('residual section (what the first fit leaves over)', () => {
     expect(md).toContain('Fit next with the terms `a^2; b^2`.');
   });
 });
+
+describe('bound notes', () => {
+  it('lists the bound stage’s notes as given (the report never reads their words)', async () => {
+    const note = { kind: 'extremeStratum', text: 'the overall maximum ratio sits in the highest stratum of w (3 ≤ w ≤ 4)' };
+    const result = { rhs: 'b', constant: 2, witnesses: [], quantiles: {}, strata: [], trend: null, notes: [note] };
+    const md = (await renderReport({ ...header(), bounds: [{ lhs: 'a', by: 'w', results: [result] }] }, { png: false })).markdown;
+    expect(md).toContain(`Note: ${note.text}`);
+    const without = (await renderReport({ ...header(), bounds: [{ lhs: 'a', by: 'w', results: [{ ...result, notes: [] }] }] }, { png: false })).markdown;
+    expect(without).not.toContain('Note:');
+  });
+});
