@@ -202,3 +202,15 @@ describe('bound notes', () => {
     expect(without).not.toContain('Note:');
   });
 });
+
+describe('methods named by their registered labels', () => {
+  it('titles each method by the label of its strategy (src/attribute/methods), keeping the name in the plot file', async () => {
+    const ranking = [iv('a', 0.6, 0.5, 0.7), iv('b', 0.4, 0.3, 0.5)];
+    const methods = { integrated: { ranking, kendallTau: 1 }, smoothgrad: { ranking, kendallTau: 1 }, other: { ranking, kendallTau: 1 } };
+    const md = (await renderReport({ ...header(), rank: rank(ranking, { methods }) }, { png: false })).markdown;
+    expect(md).toContain('**Method: integrated gradients**');
+    expect(md).toContain('![Attribution by integrated gradients](plots/attribution-integrated.svg)');
+    expect(md).toContain('**Method: SmoothGrad**');
+    expect(md).toContain('**Method: other**'); // a name no strategy has is shown as given
+  });
+});
