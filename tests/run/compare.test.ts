@@ -57,11 +57,11 @@ describe('compareRuns: both runs\' uncertainty (definition: consistent when the 
   it('search: the same terms compare coefficient by coefficient; other terms are flagged with where A\'s formula went', () => {
     const a = { search: { target: 'y', candidates: [cand(['x', 'z'], [2, 3], 0.1, 'y ≈ 1 + 2·x + 3·z')] } };
     const same = compareRuns(a, { search: { target: 'y', candidates: [cand(['z', 'x'], [3.05, 2.02], 0.1, 'y ≈ 1 + 3.05·z + 2.02·x')] } });
-    expect(same.search!.sameTerms).toBe(true);
-    expect(same.search!.coefficients.map((m) => [m.term, m.flagged])).toEqual([['1', false], ['x', false], ['z', false]]);
+    expect(same.searches[0]!.sameTerms).toBe(true);
+    expect(same.searches[0]!.coefficients.map((m) => [m.term, m.flagged])).toEqual([['1', false], ['x', false], ['z', false]]);
     expect(same.flags).toEqual([]);
     const other = compareRuns(a, { search: { target: 'y', candidates: [cand(['w'], [1], 0.1, 'y ≈ 1 + w'), cand(['x', 'z'], [2, 3], 0.1, 'y ≈ 1 + 2·x + 3·z')] } });
-    expect(other.search!.rankOfAInB).toBe(2);
+    expect(other.searches[0]!.rankOfAInB).toBe(2);
     expect(other.flags[0]).toBe("search for y: the best formula changed from y ≈ 1 + 2·x + 3·z to y ≈ 1 + w (A's formula is candidate 2 in B)");
   });
 
