@@ -45,13 +45,15 @@ export function summaryBlocks(input: ReportInput): Block[] {
     const parts: Inline[] = [
       several ? `Best formula found by the ${searches.length} searches: ` : 'Best formula found by the search: ',
       { text: searchFormula(s.target, best), code: true, key: 'best-formula' },
-      ` (${several ? `from search ${quoteName(s, pick.index)}; ` : ''}held-out RMSE ${formatNumber(best.heldOutRmse)}${rel !== null ? `, ${formatNumber(rel)} of the target's spread on the held-out rows` : ''}${best.selectionRmse !== undefined ? `, selection RMSE ${formatNumber(best.selectionRmse)}` : ''}, complexity ${best.complexity})`,
+      ` (${several ? `from search ${quoteName(s, pick.index)}; ` : ''}held-out RMSE ${formatNumber(best.heldOutRmse)}${rel !== null ? `, or ${formatNumber(rel)} times the target's standard deviation on those rows` : ''}${best.selectionRmse !== undefined ? `, selection RMSE ${formatNumber(best.selectionRmse)}` : ''}, complexity ${best.complexity})`,
     ];
     if (best.rationalFormula) parts.push('; with fractions: ', { text: `${s.target ?? 'target'} ≈ ${best.rationalFormula}`, code: true });
     const tried = searches.every((x) => x.nCandidatesTried !== undefined) ? searches.reduce((t, x) => t + x.nCandidatesTried!, 0) : undefined;
     parts.push(
       tried !== undefined
-        ? `. It was chosen among ${formatCount(tried)} screened subsets${several ? ` in all, and against the other searches' best by held-out error relative to each target's spread` : ''}, and with so many candidates some overfit by luck.`
+        ? several
+          ? `. It was chosen among ${formatCount(tried)} screened subsets in all (each search's best compared by held-out error relative to its target's standard deviation); with so many candidates some overfit by luck.`
+          : `. It was chosen among ${formatCount(tried)} screened subsets, and with so many candidates some overfit by luck.`
         : '.',
     );
     items.push(parts);

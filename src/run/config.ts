@@ -130,13 +130,19 @@ const SearchesSchema = z.preprocess(
   z
     .array(SearchSchema)
     .max(MAX_SEARCHES)
-    .transform((list) => list.map(({ name, ...s }, i) => ({ name: name ?? defaultSearchName(i), ...s })))
     .superRefine((list, ctx) => {
-      list.forEach((s, i) => {
-        const j = list.findIndex((t) => t.name === s.name);
-        if (j < i) ctx.addIssue({ code: 'custom', path: [i, 'name'], message: `expected a name no other search block has (search[${j}] is also named '${s.name}')` });
+      const names = list.map((s, i) => s.name ?? defaultSearchName(i));
+      names.forEach((n, i) => {
+        const j = names.indexOf(n);
+        if (j === i) return;
+        ctx.addIssue(
+          list[i]!.name !== undefined
+            ? { code: 'custom', path: [i, 'name'], message: `expected a name no other search block has (search[${j}] is also named '${n}')` }
+            : { code: 'custom', path: [i], message: `this block has no name, so it would be named '${n}', which search[${j}] is already named; give it a name` },
+        );
       });
-    }),
+    })
+    .transform((list) => list.map(({ name, ...s }, i) => ({ name: name ?? defaultSearchName(i), ...s }))),
 );
 
 /** Residual ranking: fit, then rank the remaining columns on what the fit leaves over (run/residual.ts). */
@@ -407,6 +413,7 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
     }
     const node = nodeAt(doc.contents as YamlNode, path);
     const got = valueAt(data, path);
+    if (issue.code === 'custom') throw new SurmiseError('config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${issue.message}`, { key: keyPath(path) });
     let expected = issue.message;
     if (issue.code === 'invalid_type' && path.length === 1 && path[0] === 'search') expected = 'expected a search block (a mapping) or a list of them';
     else if (issue.code === 'invalid_type') expected = `expected ${issue.expected === 'array' ? 'a list' : issue.expected}`;
