@@ -17,8 +17,7 @@ import type { DiscoverSpec } from '../bound/discover.ts';
 import type { Activation, LossName } from '../learn/options.ts';
 import type { EngineChoice } from '../learn/engines.ts';
 import type { AttributionMethod } from '../attribute/types.ts';
-import { RESIDUAL_LIMITS } from './residual.ts';
-import { INTEGER_RANGE_PATTERN } from '../util/range.ts';
+import { RESIDUAL_OPTIONS } from './residual.ts';
 
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
 const count = (r: IntegerRange) => z.number().int().min(r.min).max(r.max);
@@ -149,11 +148,7 @@ const SearchesSchema = z.preprocess(
 const ResidualSchema = z.strictObject({
   target: exprString,
   terms: listOf(exprString, 1),
-  intercept: z.boolean().default(true),
-  from: listOf(z.string().min(1), 1).optional(),
-  absolute: z.boolean().default(true),
-  maxTerms: count(RESIDUAL_LIMITS.maxTerms).default(1),
-  powers: z.string().regex(INTEGER_RANGE_PATTERN, 'expected a range such as -3..3').default('-3..3'),
+  ...tableShape(RESIDUAL_OPTIONS),
 });
 
 const BoundSchema = z.strictObject({
@@ -250,7 +245,7 @@ export interface RunConfig {
     screenRows: number;
     maxCells: number;
   }>;
-  residual?: z.infer<typeof ResidualSchema>;
+  residual?: { target: string; terms: string[]; intercept: boolean; from?: string[]; absolute: boolean; maxTerms: number; powers: string; columns: number };
   bounds: Array<{ lhs: string; rhs: string[]; by?: string; bins: number; top: number; id?: string[]; skipInvalid: boolean; lower: boolean; form: BoundForm }>;
   discover: Array<
     { lhs: string; from: string[]; id?: string[]; seed?: number; exceedances?: number } & Required<
@@ -269,6 +264,7 @@ const OPTION_AT = new Map<string, string>(
       [SEARCH_OPTIONS, 'search.#.'],
       [BOUND_OPTIONS, 'bounds.#.'],
       [DISCOVER_OPTIONS, 'discover.#.'],
+      [RESIDUAL_OPTIONS, 'residual.'],
     ] as const
   ).flatMap(([table, prefix]) => table.flatMap((o) => (configKeyOf(o) === null ? [] : [[prefix + configKeyOf(o)!, o.key] as [string, string]]))),
 );

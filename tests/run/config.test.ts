@@ -72,7 +72,7 @@ describe('run configuration', () => {
 
   it('residual: defaults filled; probes and maxTerms have ceilings, refused at their key', () => {
     const { config } = parseConfig('table: a.csv\ntarget: y\nresidual:\n  target: y\n  terms: a^2\n', 'cfg.yaml');
-    expect(config.residual).toEqual({ target: 'y', terms: ['a^2'], intercept: true, absolute: true, maxTerms: 1, powers: '-3..3' });
+    expect(config.residual).toEqual({ target: 'y', terms: ['a^2'], intercept: true, absolute: true, maxTerms: 1, powers: '-3..3', columns: 3 }); // columns: the new key (RESIDUAL_OPTIONS)
     expect(config.attribution.probes).toBe(6);
     expect(refusal('table: a.csv\ntarget: y\nattribution:\n  probes: 51\n')).toEqual({
       code: 'option.tooLarge',
