@@ -3,11 +3,10 @@
  * entry point (trainNetwork / trainMany), with messages naming the option.
  */
 import { SurmiseError } from '../errors.ts';
-import { checkOptions, defaultsOf, type OptionTable } from '../util/option-table.ts';
+import { checkOptions, defaultsOf, seedOption, type OptionTable } from '../util/option-table.ts';
 import { ENGINE_CHOICES, defaultEngineChoice, type EngineChoice } from './engines.ts';
 
-/** The largest seed (seeds are 32-bit unsigned). */
-export const SEED_MAX = 0xffffffff;
+export { SEED_MAX } from '../util/option-table.ts';
 
 export type Task = 'regression' | 'classification';
 export type Activation = 'relu' | 'gelu';
@@ -38,7 +37,7 @@ export interface NetworkOptions {
  * on 2 cores): width 64 took 24 s (13 CPU-s, 107 epochs), width 128 took 71 s (32 CPU-s) and
  * reached no better validation loss (0.012 vs 0.023); epochs, patience and learning rate chosen to
  * finish 20,000 rows in < 60 s on 2 cores (bench/attribute.ts, Friedman #1). A seed defaults to 1
- * here as in every other table.
+ * here as in every other table (seedOption).
  */
 export const NETWORK_OPTIONS = [
   { key: 'task', type: 'choice', choices: ['auto', 'regression', 'classification'], default: 'auto', description: 'regression or classification; auto chooses from the target' },
@@ -54,7 +53,7 @@ export const NETWORK_OPTIONS = [
     description: 'network engine: auto (native when it loads), native or tfjs',
     inert: 'both engines train the same network from the same seeds; they agree to rounding, not bit for bit (tests/learn/engines.test.ts)',
   },
-  { key: 'seed', type: 'integer', min: 0, max: SEED_MAX, default: 1, description: 'seed of the initial weights and of the mini-batch shuffles' },
+  seedOption('seed of the initial weights and of the mini-batch shuffles'),
 ] as const satisfies OptionTable;
 
 /** The defaults of NETWORK_OPTIONS (`batchSize: null` = chosen from the training rows; `engine`: SURMISE_ENGINE when set). */

@@ -51,6 +51,12 @@ export type OptionSpec = OptionBase &
 
 export type OptionTable = readonly OptionSpec[];
 
+/** The largest seed (seeds are 32-bit unsigned). */
+export const SEED_MAX = 0xffffffff;
+
+/** The row of a `seed` option: every seed of the project defaults to 1. */
+export const seedOption = (description: string) => ({ key: 'seed', type: 'integer', min: 0, max: SEED_MAX, default: 1, description }) as const;
+
 /** `dropTop` → `drop-top`. */
 export const kebab = (key: string): string => key.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
 
