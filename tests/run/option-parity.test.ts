@@ -15,6 +15,9 @@ import { RANK_OPTIONS } from '../../src/attribute/options.ts';
 import { FIT_OPTIONS, SEARCH_OPTIONS } from '../../src/relate/options.ts';
 import { BOUND_OPTIONS, DISCOVER_OPTIONS } from '../../src/bound/options.ts';
 import { RESIDUAL_OPTIONS } from '../../src/run/residual.ts';
+import { INSPECT_OPTIONS } from '../../src/table/options.ts';
+import { DEMO_DATA_OPTIONS } from '../../src/demo/options.ts';
+import { KNOTS_OPTIONS } from '../../src/knots/options.ts';
 import { configKeyOf, flagOf, type OptionTable } from '../../src/util/option-table.ts';
 import { Rng } from '../../src/util/rng.ts';
 
@@ -318,4 +321,78 @@ describe('an inert option leaves the outcome as it is', () => {
     expect((r.cuts as { time: boolean }).time).toBe(false);
     expect(outcome(r, 'search')).toBe(outcome(await json(SEARCH_BASE), 'search'));
   }, 120_000);
+});
+
+// ---------------------------------------------------------------------------------------------
+// Tables of commands that make or look at tables outside a run (inspect, demo-data, knots): every
+// option has a flag on its command, says why the configuration has no key, and changes what the
+// command prints (or says in the table why not).
+
+interface CommandTable {
+  name: string;
+  table: OptionTable;
+  /** The command path (`knots`, `demo-data`) and the base arguments after it. */
+  base: string[];
+  variants: Record<string, Variant>;
+}
+
+const COMMAND_TABLES: CommandTable[] = [
+  {
+    name: 'inspect',
+    table: INSPECT_OPTIONS,
+    base: ['inspect', 't.csv', '--json', '--no-progress'],
+    variants: { sampleRows: { args: ['--sample-rows', '50'] }, seed: { args: ['--seed', '7'], with: ['--sample-rows', '50'] } },
+  },
+  { name: 'demo-data', table: DEMO_DATA_OPTIONS, base: ['demo-data', '--no-progress'], variants: { seed: { args: ['--seed', '2'] } } },
+  {
+    name: 'knots',
+    table: KNOTS_OPTIONS,
+    // codes.csv: the trefoil's DT code 4 6 2 (read as a braid it is another link), its braid word 1 1 1
+    base: ['knots', 'codes.csv', '--kind', 'braid', '--column', 'code', '--no-progress'],
+    variants: {
+      kind: { args: ['--kind', 'dt'] },
+      column: { args: ['--column', 'alt'] },
+      nameColumn: { args: ['--name-column', 'id'] },
+      invariants: { args: ['--invariants', 'crossings'] },
+      omega: { args: ['--omega', '0.25'] },
+      prefix: { args: ['--prefix', 'k_'] },
+    },
+  },
+];
+
+/** What a command printed, or `refused: code`. */
+async function printed(args: string[]): Promise<string> {
+  const io = memoryIO(dir);
+  const code = await runCli(args, io);
+  if (code === 2) return `refused: ${/\[([\w.]+)\]\n$/.exec(io.err)?.[1]}`;
+  expect(code, `${args.join(' ')}: ${io.err}`).toBe(0);
+  return io.out;
+}
+
+describe('command-only tables: a flag each, no configuration key (and why), and each option changes what is printed', () => {
+  beforeAll(() => {
+    writeFileSync(join(dir, 'codes.csv'), 'name,code,alt,id\ntrefoil,4 6 2,1 1 1,k3a1\n');
+  });
+  const program = buildProgram(memoryIO());
+  for (const c of COMMAND_TABLES) {
+    it(`${c.name}: every option has a flag and says why it has no configuration key`, () => {
+      const cmd = program.commands.find((x) => x.name() === c.base[0])!;
+      for (const o of c.table) {
+        const flag = flagOf(o)!;
+        expect(cmd.options.some((x) => x.long === flag), `${c.name}.${o.key}: no ${flag}`).toBe(true);
+        expect(configKeyOf(o) === null || o.configAbsent !== undefined, `${c.name}.${o.key}`).toBe(true);
+        expect(o.configAbsent, `${c.name}.${o.key}: no reason for the missing configuration key`).toBeTruthy();
+        if (o.inert) expect(c.variants[o.key], `${c.name}.${o.key} is inert and also demonstrated`).toBeUndefined();
+        else expect(c.variants[o.key], `${c.name}.${o.key}: neither inert nor demonstrated`).toBeDefined();
+      }
+    });
+    for (const [key, v] of Object.entries(c.variants)) {
+      it(`${c.name}: ${v.args.join(' ')} changes what is printed`, async () => {
+        const b = withFlags(c.base, v.with);
+        const before = await printed(b);
+        expect(before).not.toMatch(/^refused/);
+        expect(await printed(withFlags(b, v.args)), `${c.name}.${key}`).not.toBe(before);
+      }, 120_000);
+    }
+  }
 });
