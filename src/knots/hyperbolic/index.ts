@@ -10,3 +10,4 @@ export { findGeometricSolution, SEARCH_DEFAULTS, type SearchOptions } from './se
 export { cuspGeometry, type CuspGeometry } from './peripheral.ts';
 export { removeKinks } from './kinks.ts';
 export { recogniseTorusBraid } from './torus.ts';
+export { maximalCusp, MAXIMAL_CUSP_DEFAULTS, type MaximalCusp, type MaximalCuspOptions } from './maxcusp.ts';
