@@ -5,16 +5,22 @@
  * Defaults: chosen to finish 20,000 rows in < 60 s on 2 cores (bench/attribute.ts, Friedman #1). The
  * network's rows are learn's NETWORK_OPTIONS as they are (one default per option).
  */
-import { defaultsOf, optionOf, type OptionSpec, type OptionTable } from '../util/option-table.ts';
+import { defaultsOf, optionOf, type OptionTable } from '../util/option-table.ts';
 import type { IntegerRange } from '../util/integer.ts';
 import { MAX_AUTO_BATCH } from '../learn/batch-size.ts';
 import { NETWORK_OPTIONS, SEED_MAX } from '../learn/options.ts';
 import { ATTRIBUTION_METHODS } from './methods/index.ts';
 
 /** A row of the network's table (learn's NETWORK_OPTIONS) as the ranking takes it: same range and default, config key `network.KEY`. */
-const net = (key: string, as = key): OptionSpec => ({ ...optionOf(NETWORK_OPTIONS, key), key: as, configKey: `network.${as}` });
+type NetworkRow = (typeof NETWORK_OPTIONS)[number];
+type AsRankRow<K extends NetworkRow['key'], A extends string> = Omit<Extract<NetworkRow, { key: K }>, 'key'> & { key: A; configKey: `network.${A}` };
+function net<K extends NetworkRow['key']>(key: K): AsRankRow<K, K>;
+function net<K extends NetworkRow['key'], A extends string>(key: K, as: A): AsRankRow<K, A>;
+function net(key: NetworkRow['key'], as: string = key): unknown {
+  return { ...optionOf(NETWORK_OPTIONS, key), key: as, configKey: `network.${as}` };
+}
 
-export const RANK_OPTIONS: OptionTable = [
+export const RANK_OPTIONS = [
   { key: 'features', type: 'list', default: null, description: 'use only these features (default: every numeric column but the target)' },
   { key: 'exclude', type: 'list', default: [], description: 'leave these columns out of the features' },
   { key: 'methods', type: 'list', min: 1, choices: ATTRIBUTION_METHODS, noun: 'an attribution method', default: ATTRIBUTION_METHODS, flag: 'method', configKey: 'attribution.methods', description: `attribution methods: ${ATTRIBUTION_METHODS.join('|')}|all, or a comma list` },
@@ -45,7 +51,7 @@ export const RANK_OPTIONS: OptionTable = [
   { key: 'integratedSteps', type: 'integer', min: 1, max: 10_000, default: 32, configKey: 'attribution.integratedSteps', description: 'Riemann steps of integrated gradients' },
   { key: 'permutationRepeats', type: 'integer', min: 1, max: 1000, default: 5, configKey: 'attribution.permutationRepeats', description: 'shuffles per feature group for permutation importance' },
   { key: 'resamples', type: 'integer', min: 10, max: 100_000, default: 1000, configKey: 'attribution.resamples', description: 'bootstrap resamples of the intervals' },
-];
+] as const satisfies OptionTable;
 
 /** The defaults of RANK_OPTIONS by key (`batchSize: null` = chosen from the training rows). */
 export const RANK_DEFAULTS = Object.freeze({

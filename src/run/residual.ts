@@ -23,7 +23,7 @@ import type { Note } from '../util/note.ts';
  * block are built from. In the library the next-term search's options sit under `search`
  * (`search.maxTerms`, `search.powers` as [lo, hi], `search.columns`).
  */
-export const RESIDUAL_OPTIONS: OptionTable = [
+export const RESIDUAL_OPTIONS = [
   { key: 'intercept', type: 'boolean', default: true, description: 'fit the formula with the constant term' },
   { key: 'from', type: 'list', min: 1, default: null, description: 'rank only these columns (default: every numeric column the target and terms do not read)' },
   { key: 'absolute', type: 'boolean', default: true, description: 'also rank the absolute residual (the size of the error, for bounds)' },
@@ -31,7 +31,7 @@ export const RESIDUAL_OPTIONS: OptionTable = [
   { key: 'maxTerms', type: 'integer', min: 1, max: 3, default: 1, description: 'most terms the next-term search adds' },
   { key: 'powers', type: 'text', default: '-3..3', pattern: { re: INTEGER_RANGE_PATTERN, expected: 'a range such as -3..3' }, shell: 'read as the library\'s [lo, hi]', description: 'integer powers for the next-term search' },
   { key: 'columns', type: 'integer', min: 1, max: 20, default: 3, description: 'leading columns of the residual ranking the next-term search draws from' },
-];
+] as const satisfies OptionTable;
 
 const range = (key: string): IntegerRange => {
   const o = optionOf(RESIDUAL_OPTIONS, key) as IntegerRange;

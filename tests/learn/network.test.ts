@@ -7,6 +7,7 @@ import { friedman } from '../helpers/friedman.ts';
 import { SurmiseError } from '../../src/errors.ts';
 import { DEFAULT_NETWORK_OPTIONS, NETWORK_OPTIONS } from '../../src/learn/options.ts';
 import { RANK_DEFAULTS, RANK_OPTIONS } from '../../src/attribute/options.ts';
+import { configKeyOf } from '../../src/util/option-table.ts';
 
 
 /** Float64 reference forward pass written from the saved state (independent of tfjs). */
@@ -213,7 +214,7 @@ describe('one table of network options (NETWORK_OPTIONS), shared with the rankin
   it('has one default per option: the ranking takes the network rows as they are', () => {
     // each network row of RANK_OPTIONS is learn's row under its config key network.* (maxEpochs is `epochs`)
     for (const o of NETWORK_OPTIONS) {
-      const r = RANK_OPTIONS.find((x) => x.key === (o.key === 'maxEpochs' ? 'epochs' : o.key) && x.configKey?.toString().startsWith('network.'));
+      const r = RANK_OPTIONS.find((x) => x.key === (o.key === 'maxEpochs' ? 'epochs' : o.key) && configKeyOf(x)?.startsWith('network.'));
       if (o.key === 'seed') continue; // the ranking's seed is the one every network seed is derived from (deriveSeed)
       expect(r, o.key).toBeDefined();
       expect(r!.default, o.key).toEqual(o.default);
