@@ -13,3 +13,4 @@ export { recogniseTorusBraid } from './torus.ts';
 export { recogniseClosure, type Recognition } from './recognise.ts';
 export { recognisePeriodicBraid } from './periodic.ts';
 export { simplifyClosedBraid, CLOSED_BRAID_DEFAULTS, type ClosedBraidOptions, type ClosedBraidOutcome } from './closedbraid.ts';
+export { maximalCusp, MAXIMAL_CUSP_DEFAULTS, type MaximalCusp, type MaximalCuspOptions } from './maxcusp.ts';

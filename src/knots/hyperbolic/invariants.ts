@@ -29,6 +29,7 @@ import { recogniseClosure } from './recognise.ts';
 import { combinatorics } from './triangulation.ts';
 import { cuspBases } from './cusp.ts';
 import { gluingEquations } from './equations.ts';
+import { maximalCusp, type MaximalCusp } from './maxcusp.ts';
 
 export const GEOMETRY_STATUSES = ['hyperbolic', 'not hyperbolic', 'unresolved'] as const;
 export type Geometry = (typeof GEOMETRY_STATUSES)[number];
@@ -43,6 +44,8 @@ export interface HyperbolicInvariants {
   naturalSlope?: number;
   /** Every component's cusp (links). */
   cusps?: CuspGeometry[];
+  /** The maximal cusp (knots only): volume, meridian and longitude lengths (`maxcusp.ts`). */
+  maximalCusp?: MaximalCusp;
   /** Tetrahedra of the geometric triangulation and the largest equation residual. */
   tetrahedra?: number;
   residual?: number;
@@ -138,6 +141,11 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   out.cusps = cg;
   out.cuspShape = cg[0]!.shape;
   out.naturalSlope = cg[0]!.shape[0];
+  if (info.nComponents === 1) {
+    const mc = maximalCusp(sol.tri, sol.cb, sol, cg[0]!.shape);
+    if (typeof mc === 'string') out.reason = `maximal cusp not measured: ${mc}`;
+    else out.maximalCusp = mc;
+  }
   return out;
 }
 
