@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
 import { z } from 'zod';
-import { SurmiseError, didYouMean, fileErrorReason } from '../errors.ts';
+import { SurmiseError, didYouMean, fileErrorReason, printable } from '../errors.ts';
 import type { IntegerRange } from '../util/integer.ts';
 import { configKeyOf, type OptionSpec, type OptionTable } from '../util/option-table.ts';
 import { RANK_LIMITS, RANK_OPTIONS } from '../attribute/options.ts';
@@ -113,7 +113,14 @@ export const defaultSearchName = (i: number): string => `search ${i + 1}`;
 
 const SearchSchema = z.strictObject({
   /** Our own key: the name the report, results.json and `surmise compare` know the search by. */
-  name: z.string().trim().min(1).max(60, 'expected a name of at most 60 characters').optional(),
+  name: z
+    .string()
+    .trim()
+    .min(1)
+    .max(60, 'expected a name of at most 60 characters')
+    // eslint-disable-next-line no-control-regex
+    .regex(/^[^\u0000-\u001f\u007f-\u009f]*$/, 'expected a name on one line, without control characters')
+    .optional(),
   target: exprString,
   from: listOf(z.string().min(1), 1),
   ...tableShape(SEARCH_OPTIONS),
@@ -321,7 +328,7 @@ export function singleSearchBlock(data: unknown): boolean {
 function describe(v: unknown): string {
   if (v === undefined) return 'nothing';
   if (v === null) return 'null';
-  if (typeof v === 'string') return `'${v}'`;
+  if (typeof v === 'string') return `'${printable(v)}'`;
   if (Array.isArray(v)) return 'a list';
   if (typeof v === 'object') return 'a mapping';
   return String(v);

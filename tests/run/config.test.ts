@@ -130,6 +130,9 @@ describe('run configuration', () => {
       code: 'config.badValue',
       message: 'cfg.yaml:3:9: search: expected a search block (a mapping) or a list of them, got 3',
     });
+    expect(refusal('table: a.csv\ntarget: y\nsearch:\n  - name: "a\\nb"\n    target: y\n    from: [a]\n').message).toBe(
+      "cfg.yaml:4:11: search[0].name: expected a name on one line, without control characters, got 'a\\nb'", // one line: the newline shown escaped
+    );
     expect(refusal('table: a.csv\ntarget: y\nsearch:\n  - target: y\n    from: [a]\n    maxTerm: 2\n')).toEqual({
       code: 'config.unknownKey',
       message: "cfg.yaml:6:5: unknown key 'search[0].maxTerm' (did you mean 'maxTerms'?)",

@@ -133,7 +133,7 @@ describe('two search blocks in one run', () => {
     expect(moved.flags).toContain("search 'linear' for p: in run B only (searches are matched by name)");
   }, 300_000);
 
-  it('an older run folder (results format 1, one `search`) is read as one search named `search 1`, and compares with a new one', () => {
+  it('an older run folder (results format 1, one `search`) is read as one search named `search 1`, reruns and compares', async () => {
     const { searches, ...rest } = JSON.parse(readFileSync(join(dir, 'two-run', 'results.json'), 'utf8')) as RunResults & Record<string, unknown>;
     const old = { ...rest, formatVersion: 1, search: { ...searches[1], name: undefined }, config: { ...rest.config, search: { target: 'p', from: ['a', 'b', 'c'] } } };
     mkdirSync(join(dir, 'old-run'));
@@ -142,10 +142,16 @@ describe('two search blocks in one run', () => {
     expect(read.formatVersion).toBe(2);
     expect(read.searches.map((s) => [s.name, s.target])).toEqual([['search 1', 'p']]);
     expect(best(read.searches[0]!).terms).toEqual(best(searches[1]!).terms);
+    // rerun of the older folder: its one block runs again, under the same name
+    const again = await run(['rerun', 'old-run', '--table', 't.csv', '--out', 'old-again']);
+    expect(again.code, again.err).toBe(0);
+    const rerun = readRunResults(join(dir, 'old-again'));
+    expect(rerun.searches.map((s) => [s.name, s.target])).toEqual([['search 1', 'p']]);
+    expect(compareRuns(read, rerun).searches.map((s) => [s.name, s.in])).toEqual([['search 1', 'both']]);
     // a newer format than this reader knows is refused, not misread
     writeFileSync(join(dir, 'old-run', 'results.json'), JSON.stringify({ ...old, formatVersion: 3 }));
     expect(() => readRunResults(join(dir, 'old-run'))).toThrow(/results format 3; this one reads 1 and 2/);
-  });
+  }, 300_000);
 });
 
 describe('one search block written as a mapping, as configurations were first written', () => {
