@@ -3,8 +3,9 @@
  *
  * - `not hyperbolic` only with a mathematical reason: a split diagram (several pieces, or a
  *   crossing-free component: the complement contains an essential sphere), a diagram with at most
- *   two crossings after removing kinks (unknot, Hopf link), or a braid recognised as a torus link
- *   (Seifert fibred).
+ *   two crossings after removing kinks (unknot, Hopf link), or a braid (given, or from Vogel's
+ *   algorithm) recognised as the unknot, a torus link (Seifert fibred), a split link or a composite
+ *   knot by isotopies of the closed braid and exact tests (`recognise.ts`).
  * - `hyperbolic` when Newton's method finds a solution of the gluing and completeness equations
  *   with every shape in the upper half-plane (Thurston): then the volume is Σ D(z) over the
  *   tetrahedra (Bloch–Wigner; Milnor 1982) and the cusp geometry is read from the developed cusp.
@@ -24,6 +25,7 @@ import { findGeometricSolution, SEARCH_DEFAULTS, type SearchOptions } from './se
 import { recogniseTorusBraid } from './torus.ts';
 import { braidSummands, isKnotted, simplifyBraid } from './reduce.ts';
 import { pdToBraid } from '../vogel.ts';
+import { recogniseClosure } from './recognise.ts';
 import { combinatorics } from './triangulation.ts';
 import { cuspBases } from './cusp.ts';
 import { gluingEquations } from './equations.ts';
@@ -81,6 +83,11 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
     return { geometry: 'not hyperbolic', reason: `the braid reduces to the empty word by free reduction and Markov moves: ${small.strands === 1 ? 'an unknot' : 'an unlink'}` };
   const known = small && recogniseBraid(small, d.info.nComponents);
   if (known) return known;
+  // a bounded search of isotopies of the closed braid (conjugation, braid relations, exchange
+  // moves, destabilisation) for the unknot, torus links and connected sums (`recognise.ts`)
+  const deeper = small && recogniseClosure(small, d.info.nComponents);
+  if (deeper && deeper.status === 'not hyperbolic') return { geometry: 'not hyperbolic', reason: deeper.reason };
+  if (deeper) small = deeper.braid;
   const crossings = d.braid ? braidClosurePD(small!).pd : d.info.crossings;
   if (crossings.length === 0) return { geometry: 'not hyperbolic', reason: 'the braid word reduces to the empty word: an unknot or unlink' };
   const k = removeKinks(crossings);
