@@ -16,6 +16,10 @@ export interface NewtonResult {
   residual: number;
   iterations: number;
   converged: boolean;
+  /** Work done, in units of one complex multiply–add: n³/6 per factorization (the dominant cost). */
+  work: number;
+  /** True when the run stopped because `maxWork` was spent. */
+  capped?: boolean;
 }
 
 /** Nearest value to `ref` among a + 2πk (an argument continued along the iteration). */
@@ -283,7 +287,7 @@ function solveNormal(n: number, Mr: Float64Array, Mi: Float64Array, yr: Float64A
 }
 
 /** Newton iteration from the given start (modified in place copies). */
-export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60): NewtonResult {
+export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60, maxWork = Infinity): NewtonResult {
   const { n, rows } = sys;
   const re = Float64Array.from(startRe);
   const im = Float64Array.from(startIm);
@@ -305,9 +309,17 @@ export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm:
   const Li = new Float64Array(n * n);
   const y0r = new Float64Array(n);
   const y0i = new Float64Array(n);
+  const unit = (n * n * n) / 6;
+  let work = 0;
+  let capped = false;
   let it = 0;
   for (; it < maxIter && res > tol; it++) {
+    if (work + unit > maxWork) {
+      capped = true;
+      break;
+    }
     normalEquations(sys, support, re, im, Fr, Fi, Jr, Ji, Mr, Mi, y0r, y0i);
+    work += unit;
     if (!solveNormal(n, Mr, Mi, y0r, y0i, Lr, Li, yr, yi)) break;
     // step, halved until it stays in the upper half-plane and the residual does not grow much
     let alpha = 1;
@@ -335,7 +347,7 @@ export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm:
     }
     if (!accepted) break;
   }
-  return { re, im, residual: res, iterations: it, converged: res <= tol };
+  return { re, im, residual: res, iterations: it, converged: res <= tol, work, capped: capped && res > tol };
 }
 
 const sumSquares = (a: Float64Array, b: Float64Array): number => {
@@ -352,7 +364,7 @@ const sumSquares = (a: Float64Array, b: Float64Array): number => {
  * form, not necessarily with principal arguments; `flip.ts` and the final check in the half-plane
  * decide what it is worth. Steps are accepted only when Σ|F|² decreases.
  */
-export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60): NewtonResult {
+export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60, maxWork = Infinity): NewtonResult {
   const { n, rows } = sys;
   const re = Float64Array.from(startRe);
   const im = Float64Array.from(startIm);
@@ -384,11 +396,19 @@ export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, star
   const Lr = new Float64Array(n * n);
   const Li = new Float64Array(n * n);
   let lambda = 1e-3;
+  const unit = (n * n * n) / 6;
+  let work = 0;
+  let capped = false;
   let it = 0;
-  for (; it < maxIter && res > tol; it++) {
+  for (; it < maxIter && res > tol && !capped; it++) {
     normalEquations(sys, support, re, im, Fr, Fi, Jr, Ji, M0, M1, y0r, y0i);
     let accepted = false;
     for (let h = 0; h < 12 && !accepted; h++) {
+      if (work + unit > maxWork) {
+        capped = true;
+        break;
+      }
+      work += unit;
       Mr.set(M0);
       Mi.set(M1);
       for (let p = 0; p < n; p++) Mr[p * n + p] = M0[p * n + p]! * (1 + lambda);
@@ -425,5 +445,5 @@ export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, star
     }
     if (!accepted) break;
   }
-  return { re, im, residual: res, iterations: it, converged: res <= tol };
+  return { re, im, residual: res, iterations: it, converged: res <= tol, work, capped: capped && res > tol };
 }

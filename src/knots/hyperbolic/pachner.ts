@@ -227,11 +227,17 @@ function carry(tri: Triangulation, re: Float64Array, im: Float64Array, moved: { 
   return { tri: moved.tri, re: nre, im: nim, map: moved.map };
 }
 
+/** Positions of the four vertices (in order) of an ideal tetrahedron of shape z, in general position. */
+export function placeTetrahedron(z: C): C[] {
+  const p: Array<C | undefined> = [[0.3, -1.7], [0, 0], [1, 0], undefined];
+  p[3] = placeVertex(p, z, 3);
+  return p as C[];
+}
+
 /** Positions of the four vertices of tetrahedron t (labels L) from its shape, in general position. */
 function seed(re: Float64Array, im: Float64Array, t: number, L: readonly number[]): C[] {
   const pos: C[] = [];
-  const p: Array<C | undefined> = [[0.3, -1.7], [0, 0], [1, 0], undefined];
-  p[3] = placeVertex(p, [re[t]!, im[t]!], 3);
+  const p = placeTetrahedron([re[t]!, im[t]!]);
   for (let i = 0; i < 4; i++) pos[L[i]!] = p[i]!;
   return pos;
 }
@@ -299,16 +305,27 @@ function preview(tri: Triangulation, re: Float64Array, im: Float64Array, planned
   return { olds: plan.olds, re: fresh.re, im: fresh.im, apply: () => carry(tri, re, im, buildBall(tri, plan), fresh) };
 }
 
+/**
+ * A move as labels: old tetrahedron olds[j] has label labels[j][i] at vertex i; the new tetrahedra
+ * (indices n − olds.length + J of the new triangulation) have labels news[J] — enough to carry
+ * shapes either way (`carryback.ts`).
+ */
+export interface BallMove {
+  olds: readonly number[];
+  labels: readonly (readonly number[])[];
+  news: readonly (readonly number[])[];
+}
+
 /** 2–3 move on face f0 of t0 (t0 and its neighbour there are replaced by three tetrahedra around a new edge), without shapes. */
-export function twoThreeMove(tri: Triangulation, t0: number, f0: number): { tri: Triangulation; map: Int32Array } | undefined {
+export function twoThreeMove(tri: Triangulation, t0: number, f0: number): { tri: Triangulation; map: Int32Array; ball: BallMove } | undefined {
   const p = planTwoThree(tri, t0, f0);
-  return p && buildBall(tri, p.plan);
+  return p && { ...buildBall(tri, p.plan), ball: p.plan };
 }
 
 /** 3–2 move on the edge (a, b) of t0 when that edge has valence 3 in three distinct tetrahedra, without shapes. */
-export function threeTwoMove(tri: Triangulation, t0: number, a: number, b: number): { tri: Triangulation; map: Int32Array } | undefined {
+export function threeTwoMove(tri: Triangulation, t0: number, a: number, b: number): { tri: Triangulation; map: Int32Array; ball: BallMove } | undefined {
   const p = planThreeTwo(tri, t0, a, b);
-  return p && buildBall(tri, p.plan);
+  return p && { ...buildBall(tri, p.plan), ball: p.plan };
 }
 
 /** Preview of the 2–3 move on face f0 of t0 with its shapes carried. */
