@@ -9,7 +9,7 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 
-const ALL = ['load', 'table-expr', 'table-rows', 'learn', 'attribute', 'relate', 'search', 'bound', 'knots', 'hyperbolic', 'report'];
+const ALL = ['load', 'table-expr', 'table-rows', 'learn', 'attribute', 'relate', 'search', 'bound', 'knots', 'hyperbolic', 'maxcusp', 'report'];
 const args = process.argv.slice(2);
 const flags = args.filter((a) => a.startsWith('--'));
 const chosen = args.filter((a) => !a.startsWith('--'));

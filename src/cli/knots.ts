@@ -133,6 +133,9 @@ function jsonRow(name: string, r: KnotInvariants, inv: readonly InvariantName[])
       o.volume = h?.volume ?? null;
       o.cusp_shape = h?.cuspShape ?? null;
       o.natural_slope = h?.naturalSlope ?? null;
+      o.cusp_volume = h?.maximalCusp?.volume ?? null;
+      o.meridian_length = h?.maximalCusp?.meridianLength ?? null;
+      o.longitude_length = h?.maximalCusp?.longitudeLength ?? null;
       o.tetrahedra = h?.tetrahedra ?? null;
     }
     else if (k === 'levine_tristram') {
@@ -170,7 +173,7 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
   for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' || k === 'unit_roots' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
   if (inv.includes('hyperbolic')) {
     delete kinds.hyperbolic;
-    Object.assign(kinds, { geometry: 'label', geometry_reason: 'label', volume: 'real', cusp_shape: 'complex', natural_slope: 'real' });
+    Object.assign(kinds, { geometry: 'label', geometry_reason: 'label', volume: 'real', cusp_shape: 'complex', natural_slope: 'real', cusp_volume: 'real', meridian_length: 'real', longitude_length: 'real' });
   }
   const cols = invariantColumns(inv);
   // a determinant beyond 2^53 − 1 is a decimal string (exact); the column is then text so no digit is rounded

@@ -133,8 +133,8 @@ export function invariantsOf(src: DiagramSource, file: string, kind: DiagramKind
   }
 }
 
-/** The columns the `hyperbolic` invariant adds (cusp_shape is complex). */
-export const HYPERBOLIC_COLUMNS = ['geometry', 'geometry_reason', 'volume', 'cusp_shape', 'natural_slope'] as const;
+/** The columns the `hyperbolic` invariant adds (cusp_shape is complex; the last three: the maximal cusp of a knot). */
+export const HYPERBOLIC_COLUMNS = ['geometry', 'geometry_reason', 'volume', 'cusp_shape', 'natural_slope', 'cusp_volume', 'meridian_length', 'longitude_length'] as const;
 
 /** Column order and record layout of the output table. */
 export function invariantColumns(inv: readonly InvariantName[]): string[] {
@@ -177,6 +177,9 @@ export function tableRecord(name: string, r: KnotInvariants, inv: readonly Invar
         rec.volume = h?.volume ?? null;
         rec.cusp_shape = h?.cuspShape ? { re: h.cuspShape[0], im: h.cuspShape[1] } : null;
         rec.natural_slope = h?.naturalSlope ?? null;
+        rec.cusp_volume = h?.maximalCusp?.volume ?? null;
+        rec.meridian_length = h?.maximalCusp?.meridianLength ?? null;
+        rec.longitude_length = h?.maximalCusp?.longitudeLength ?? null;
         break;
       }
     }

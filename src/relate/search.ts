@@ -103,6 +103,12 @@ export interface SearchResult {
   nCollinearSkipped: number;
   selectionRows: number;
   heldOutRows: number;
+  /**
+   * Standard deviation of the target on the held-out rows (divisor n): the held-out RMSE of
+   * predicting each of them by their mean, the scale a held-out RMSE is read against
+   * (heldOutRmse / heldOutSd = √(1 − R²) on those rows).
+   */
+  heldOutSd: number;
   screeningRows: number;
   split: string;
   dropped: DroppedRows;
@@ -288,7 +294,8 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
   const probe = heldRows.slice(0, Math.min(64, heldRows.length));
   const yHeld = gather(target.values, heldRows);
   const yHeldMean = yHeld.reduce((q, x) => q + x, 0) / yHeld.length;
-  const order2 = rankBest(survivors, heldRows.length, Math.sqrt(yHeld.reduce((q, x) => q + (x - yHeldMean) ** 2, 0) / yHeld.length));
+  const heldOutSd = Math.sqrt(yHeld.reduce((q, x) => q + (x - yHeldMean) ** 2, 0) / yHeld.length);
+  const order2 = rankBest(survivors, heldRows.length, heldOutSd);
   const seenFn = new Map<string, SearchCandidate>();
   let merged = 0;
   const distinct: SearchCandidate[] = [];
@@ -318,7 +325,7 @@ export function searchRelations(table0: Table, spec: SearchSpec): SearchResult {
     target: spec.target, mode: subsetCut ? 'screened' : 'exhaustive',
     method: 'terms grown by complexity with sure independence screening, exhaustive subset search (SISSO, Ouyang et al. 2018), inner constants by Levenberg–Marquardt',
     nCandidateTerms: grown.nDistinct, nCandidatesTried: sub.tried, nCollinearSkipped: sub.collinear,
-    selectionRows: sel.length, heldOutRows: held.length, screeningRows: nScreen,
+    selectionRows: sel.length, heldOutRows: held.length, heldOutSd, screeningRows: nScreen,
     split: spec.split ? spec.split.description ?? 'given split' : `random 60/40 split of the ${rows.length} usable rows (seed ${seed})`,
     dropped, skippedTerms: [...skipped, ...grown.skipped],
     candidates, front, lattice,

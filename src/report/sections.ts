@@ -10,6 +10,7 @@ import { residualSpec } from './plots/residuals.ts';
 import { boundSpec } from './plots/bound.ts';
 import { dependenceSpec } from './plots/dependence.ts';
 import { plotLibraryVersions } from './render-plot.ts';
+import { searchesOf } from './searches.ts';
 import { deriveSeed } from '../util/rng.ts';
 
 export interface SectionSettings {
@@ -279,8 +280,8 @@ const SAID_BY_REPORT = new Set(['screened', 'multipleComparisons']);
 /** Fitted relations (coefficients, standard errors, intervals, fractions, warnings, residual plots) and the search front. */
 export function relationsSection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
   const fits = input.fits ?? [];
-  const search = input.search;
-  if (fits.length === 0 && !search) return [];
+  const searches = searchesOf(input);
+  if (fits.length === 0 && searches.length === 0) return [];
   const out: Block[] = [{ kind: 'heading', level: 2, text: 'Formulas', id: 'relations' }];
   fits.forEach((f, i) => {
     out.push({ kind: 'heading', level: 3, text: `Least-squares fit of ${f.target}` });
@@ -319,8 +320,9 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
       });
     }
   });
-  if (search) {
-    out.push({ kind: 'heading', level: 3, text: 'Formula search' });
+  searches.forEach((search, k) => {
+    const named = searches.length > 1 ? ` ${search.name !== undefined ? `'${search.name}'` : k + 1}${search.target !== undefined ? ` for ${search.target}` : ''}` : '';
+    out.push({ kind: 'heading', level: 3, text: `Formula search${named}` });
     const screened =
       search.nCandidatesTried !== undefined
         ? `${formatCount(search.nCandidatesTried)} subsets of ${search.nCandidateTerms !== undefined ? `${formatCount(search.nCandidateTerms)} candidate terms` : 'the candidate terms'} screened${search.selectionRows !== undefined ? ` on ${formatCount(search.selectionRows)} selection rows` : ''}; the best ${formatCount(search.candidates.length)} were refitted and scored on ${search.heldOutRows !== undefined ? `${formatCount(search.heldOutRows)} ` : ''}held-out rows that took no part in the choice`
@@ -374,7 +376,7 @@ export function relationsSection(input: ReportInput, plan: PlotPlan, set: Sectio
     });
     const extra = (search.notes ?? []).filter((n) => !SAID_BY_REPORT.has(n.kind));
     if (extra.length > 0) out.push({ kind: 'list', items: extra.map((n) => [n.text]) });
-  }
+  });
   return out;
 }
 

@@ -1,5 +1,6 @@
 import type { Block, Inline } from './doc.ts';
-import type { ReportInput } from './types.ts';
+import type { ReportInput, ReportSearch } from './types.ts';
+import { bestAcrossSearches, bestOfSearch, relativeError, searchesOf } from './searches.ts';
 import { formatCount, formatInterval, formatMaybe, formatNumber } from './format.ts';
 import { compareScore, completenessTroubled, equation, metricDirection, metricLabel, searchFormula, secondaryLabel, trendGrows, witnessLabels } from './words.ts';
 
@@ -35,21 +36,38 @@ export function summaryBlocks(input: ReportInput): Block[] {
       items.push(parts);
     }
   }
-  const best = bestSearchFormula(input.search);
-  if (best) {
-    const s = input.search!;
+  const searches = searchesOf(input);
+  const pick = bestSearchFormula(input);
+  if (pick && (pick.comparable || searches.length === 1)) {
+    const { search: s, best } = pick;
+    const several = searches.length > 1;
+    const rel = several ? relativeError(s, best) : null;
     const parts: Inline[] = [
-      'Best formula found by the search: ',
+      several ? `Best formula found by the ${searches.length} searches: ` : 'Best formula found by the search: ',
       { text: searchFormula(s.target, best), code: true, key: 'best-formula' },
-      ` (held-out RMSE ${formatNumber(best.heldOutRmse)}${best.selectionRmse !== undefined ? `, selection RMSE ${formatNumber(best.selectionRmse)}` : ''}, complexity ${best.complexity})`,
+      ` (${several ? `from search ${quoteName(s, pick.index)}; ` : ''}held-out RMSE ${formatNumber(best.heldOutRmse)}${rel !== null ? `, or ${formatNumber(rel)} times the target's standard deviation on those rows` : ''}${best.selectionRmse !== undefined ? `, selection RMSE ${formatNumber(best.selectionRmse)}` : ''}, complexity ${best.complexity})`,
     ];
     if (best.rationalFormula) parts.push('; with fractions: ', { text: `${s.target ?? 'target'} ≈ ${best.rationalFormula}`, code: true });
+    const tried = searches.every((x) => x.nCandidatesTried !== undefined) ? searches.reduce((t, x) => t + x.nCandidatesTried!, 0) : undefined;
     parts.push(
-      s.nCandidatesTried !== undefined
-        ? `. It was chosen among ${formatCount(s.nCandidatesTried)} screened subsets, and with so many candidates some overfit by luck.`
+      tried !== undefined
+        ? several
+          ? `. It was chosen among ${formatCount(tried)} screened subsets in all (each search's best compared by held-out error relative to its target's standard deviation); with so many candidates some overfit by luck.`
+          : `. It was chosen among ${formatCount(tried)} screened subsets, and with so many candidates some overfit by luck.`
         : '.',
     );
     items.push(parts);
+  } else if (pick) {
+    // searches whose errors cannot be put on one scale: each search's best on its own
+    searches.forEach((s, k) => {
+      const best = bestOfSearch(s);
+      if (!best) return;
+      items.push([
+        `Best formula found by search ${quoteName(s, k)}: `,
+        { text: searchFormula(s.target, best), code: true },
+        ` (held-out RMSE ${formatNumber(best.heldOutRmse)}, complexity ${best.complexity}).`,
+      ]);
+    });
   }
   for (const f of input.fits ?? []) {
     const parts: Inline[] = [
@@ -165,10 +183,17 @@ export function leadingGroup<T extends { low: number; high: number }>(sorted: re
   return null;
 }
 
-/** The search front's formula with the smallest held-out error (the simpler one on a tie); null without a search. */
-export function bestSearchFormula(search: ReportInput['search']): NonNullable<ReportInput['search']>['front'][number] | null {
-  if (!search || search.front.length === 0) return null;
-  return [...search.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse || a.complexity - b.complexity)[0]!;
+/**
+ * The best formula the searches found (bestAcrossSearches: by held-out error relative to each
+ * target's spread), with its search and that search's place; null without a search formula.
+ */
+export function bestSearchFormula(input: Pick<ReportInput, 'search' | 'searches'>): ReturnType<typeof bestAcrossSearches> {
+  return bestAcrossSearches(searchesOf(input));
+}
+
+/** A search's name as the report writes it (`'genus'`), or its place (`2`) when it has none. */
+function quoteName(s: ReportSearch, index: number): string {
+  return s.name !== undefined ? `'${s.name}'` : String(index + 1);
 }
 
 /**
@@ -205,9 +230,10 @@ export function headlineBlock(input: ReportInput): Block | null {
       });
     }
   }
-  const best = bestSearchFormula(input.search);
-  if (best) {
-    const s = input.search!;
+  const pick = bestSearchFormula(input);
+  if (pick?.comparable) {
+    const { search: s, best } = pick;
+    const n = searchesOf(input).length;
     items.push({
       label: 'Best formula found',
       value: [{ text: best.rationalFormula ? `${s.target ?? 'target'} ≈ ${best.rationalFormula}` : searchFormula(s.target, best), code: true }],
@@ -215,6 +241,7 @@ export function headlineBlock(input: ReportInput): Block | null {
         `held-out RMSE ${formatNumber(best.rationalFormula && best.rationalHeldOutRmse !== undefined ? best.rationalHeldOutRmse : best.heldOutRmse)}`,
         s.heldOutRows !== undefined ? ` on ${formatCount(s.heldOutRows)} rows` : '',
         s.nCandidatesTried !== undefined ? `; ${formatCount(s.nCandidatesTried)} subsets screened` : '',
+        n > 1 ? `; from search ${quoteName(s, pick.index)}, the best of ${n}` : '',
       ],
     });
   }

@@ -102,6 +102,8 @@ export interface ReportCandidate {
 }
 
 export interface ReportSearch {
+  /** The search's name (a run's configuration block: `search 1`, … unless named); shown when a report holds several. */
+  name?: string;
   candidates: ReportCandidate[];
   front: ReportCandidate[];
   mode: string;
@@ -112,6 +114,8 @@ export interface ReportSearch {
   nCandidatesTried?: number;
   selectionRows?: number;
   heldOutRows?: number;
+  /** Standard deviation of the target on the held-out rows: the scale that makes held-out errors of different targets comparable. */
+  heldOutSd?: number;
   /** Kinds 'screened' and 'multipleComparisons' are said by the report in its own words; the others are listed. */
   notes?: ReportNote[];
 }
@@ -171,7 +175,10 @@ export interface ReportInput {
   /** Target against the top feature, coloured by the second. */
   scatter?: ReportScatter;
   fits?: ReportFit[];
+  /** One formula search (older inputs); give `searches` for several, not both. */
   search?: ReportSearch;
+  /** The formula searches, in order, each with its `name`. */
+  searches?: ReportSearch[];
   residual?: ReportResidual;
   bounds?: ReportBound[];
   /** The resolved configuration, shown verbatim. */

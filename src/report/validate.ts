@@ -55,7 +55,17 @@ export function validateInput(input: ReportInput): void {
       same(`fits[${i}].residuals.byTerm[${k}].x`, t.x, `fits[${i}].residuals.residual`, f.residuals!.residual),
     );
   });
+  if (input.search !== undefined && input.searches !== undefined) throw fail('search', 'give one search as `search` or a list as `searches`, not both');
+  if (input.searches !== undefined && !Array.isArray(input.searches)) throw fail('searches', 'expected a list');
   input.search?.front.forEach((c, k) => same(`search.front[${k}].coefs`, c.coefs, `search.front[${k}].terms`, c.terms));
+  const names = new Set<string>();
+  input.searches?.forEach((s, i) => {
+    if (s.name !== undefined) {
+      if (names.has(s.name)) throw fail(`searches[${i}].name`, `'${s.name}' names an earlier search too`);
+      names.add(s.name);
+    }
+    s.front.forEach((c, k) => same(`searches[${i}].front[${k}].coefs`, c.coefs, `searches[${i}].front[${k}].terms`, c.terms));
+  });
   input.bounds?.forEach((b, i) =>
     b.results.forEach((r, j) => {
       if (r.points) same(`bounds[${i}].results[${j}].points.by`, r.points.by, `bounds[${i}].results[${j}].points.ratio`, r.points.ratio);

@@ -34,9 +34,15 @@ export function inConfig<T>(path: Array<string | number>, at: (p: Array<string |
 
 /**
  * Check every expression, column name and option of the configuration against the table before
- * any training starts, so a typo costs seconds, not a whole run.
+ * any training starts, so a typo costs seconds, not a whole run. `searchPath(i)` is the key path of
+ * search block i as the file writes it (`search` for one block written as a mapping).
  */
-export function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array<string | number>) => string): void {
+export function checkAgainstTable(
+  config: RunConfig,
+  table: Table,
+  at: (p: Array<string | number>) => string,
+  searchPath: (i: number) => Array<string | number> = (i) => ['search', i],
+): void {
   if (config.split !== undefined) inConfig(['split'], at, () => parseSplitSpec(config.split!));
   const expr = (path: Array<string | number>, source: string) => inConfig(path, at, () => evaluateExpression(table, source));
   expr(['target'], targetExpression(table, config.target));
@@ -49,17 +55,19 @@ export function checkAgainstTable(config: RunConfig, table: Table, at: (p: Array
       }
     });
   });
-  if (config.search) {
-    expr(['search', 'target'], config.search.target);
-    // search builds its terms from columns named as they are (any name), not from expressions
-    const names = table.columns.map((c) => c.name);
-    config.search.from.forEach((c, j) => {
+  // search builds its terms from columns named as they are (any name), not from expressions
+  const names = table.columns.map((c) => c.name);
+  config.search.forEach((sc, i) => {
+    const at0 = searchPath(i);
+    expr([...at0, 'target'], sc.target);
+    sc.from.forEach((c, j) => {
       if (!names.includes(c)) {
-        throw new SurmiseError('config.unknownColumn', `${at(['search', 'from', j])}: search.from[${j}]: no column '${c}' in the table${didYouMean(c, names)}`, { column: c });
+        const path = [...at0, 'from', j];
+        throw new SurmiseError('config.unknownColumn', `${at(path)}: ${keyPath(path)}: no column '${c}' in the table${didYouMean(c, names)}`, { column: c });
       }
     });
-    inConfig(['search', 'powers'], at, () => parsePowers(config.search!.powers));
-  }
+    inConfig([...at0, 'powers'], at, () => parsePowers(sc.powers));
+  });
   config.discover.forEach((d, i) => {
     expr(['discover', i, 'lhs'], d.lhs);
     d.from.forEach((f, j) => expr(['discover', i, 'from', j], f));

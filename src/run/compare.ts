@@ -1,7 +1,8 @@
 /**
  * Compare two runs' results with both runs' uncertainty: for every ranked quantity, fitted
  * coefficient and coefficient of the best searched formula, the difference B − A with its interval
- * (differenceOf: half-widths combined as √(h_A² + h_B²)); a difference is flagged only when that
+ * (differenceOf: half-widths combined as √(h_A² + h_B²)); searches are matched by name (a search
+ * in one run only is flagged); a difference is flagged only when that
  * interval excludes 0, otherwise the two are reported "consistent". The held-out skill is compared
  * through its per-repeat values (Student-t interval of each mean). A bound constant is a maximum
  * (or minimum) over rows, not an estimate: a constant that grew means B's table has a row beyond
@@ -12,11 +13,15 @@ import { differenceOf, meanEstimate, type Difference, type Estimate } from './di
 interface RankEntry { feature: string; score: number; low: number; high: number; aboveNoise?: boolean }
 interface FitTerm { term: string; coef: number; low: number; high: number }
 interface SearchCand { terms: string[]; coefs: number[]; low: number[]; high: number[]; intercept: { coef: number; low: number; high: number }; heldOutRmse: number; formula: string }
+interface SearchSide { name?: string; target?: string; candidates?: SearchCand[] }
 interface ComparableResults {
   input?: { path?: string; sha256?: string; rows?: number };
   rank?: { target?: string; model?: { metric?: string; score?: number; perRepeat?: number[] }; ranking?: RankEntry[]; noise?: { reference?: number } } | null;
   fits?: Array<{ target?: string; terms: FitTerm[] }>;
-  search?: { target?: string; candidates?: SearchCand[] } | null;
+  /** The run's searches (results formatVersion 2), matched between runs by name. */
+  searches?: SearchSide[];
+  /** One search (formatVersion 1, or a hand-made input): read as a list of one named `search 1`. */
+  search?: Omit<SearchSide, 'name'> | null;
   bounds?: Array<{ lhs: string; form?: 'upper' | 'lower'; results: Array<{ rhs: string; constant: number }> }>;
   /** Right-hand sides found by `discover` (proposals best first). */
   discoveries?: Array<{ lhs: string; form?: 'upper' | 'lower'; proposals: Array<{ rhs: string; constant: number }> }>;
@@ -54,6 +59,10 @@ export interface CoefMove {
 }
 
 export interface SearchMove {
+  /** The search's name in both runs (searches are matched by name). */
+  name: string;
+  /** In which runs a search of this name is: both, or only one (then flagged). */
+  in: 'both' | 'A' | 'B';
   target: string;
   formulaA: string | null;
   formulaB: string | null;
@@ -87,7 +96,8 @@ export interface Comparison {
   skill: { metric: string; a: number | null; b: number | null; diff: Diff | null } | null;
   ranking: RankMove[];
   coefficients: CoefMove[];
-  search: SearchMove | null;
+  /** Search by search, matched by name (A's order, then those only in B). */
+  searches: SearchMove[];
   constants: ConstantMove[];
   flags: string[];
   /** How differences are judged, in words. */
@@ -127,10 +137,16 @@ function coefFlag(c: CoefMove, where: string): string {
   return `${where}: coefficient of '${c.term}' moved from ${fmt(c.coefA)} to ${fmt(c.coefB)}; difference ${fmtDiff(c.diff)} excludes 0`;
 }
 
-function compareSearch(a: ComparableResults['search'], b: ComparableResults['search']): SearchMove | null {
+/** A run's searches as a list, each named (`search 1`, … for unnamed ones, as a run names them). */
+function searchesOf(r: ComparableResults): Array<SearchSide & { name: string }> {
+  const list: SearchSide[] = r.searches ?? (r.search ? [r.search] : []);
+  return list.map((s, i) => ({ ...s, name: s.name ?? `search ${i + 1}` }));
+}
+
+function compareSearch(name: string, a: SearchSide | undefined, b: SearchSide | undefined): SearchMove | null {
   const ca = a?.candidates?.[0];
   const cb = b?.candidates?.[0];
-  if (!ca && !cb) return null;
+  if (!ca && !cb && a && b) return null;
   const key = (c: SearchCand) => [...c.terms].sort().join('\u0000');
   const sameTerms = Boolean(ca && cb && key(ca) === key(cb));
   const pos = ca && b?.candidates ? b.candidates.findIndex((c) => key(c) === key(ca)) : -1;
@@ -144,6 +160,8 @@ function compareSearch(a: ComparableResults['search'], b: ComparableResults['sea
     });
   }
   return {
+    name,
+    in: a && b ? 'both' : a ? 'A' : 'B',
     target,
     formulaA: ca?.formula ?? null,
     formulaB: cb?.formula ?? null,
@@ -152,7 +170,7 @@ function compareSearch(a: ComparableResults['search'], b: ComparableResults['sea
     heldOutRmseA: ca?.heldOutRmse ?? null,
     heldOutRmseB: cb?.heldOutRmse ?? null,
     coefficients,
-    flagged: !sameTerms || coefficients.some((c) => c.flagged),
+    flagged: !a || !b || !sameTerms || coefficients.some((c) => c.flagged),
   };
 }
 
@@ -199,15 +217,28 @@ export function compareRuns(a: ComparableResults, b: ComparableResults): Compari
     }
   }
 
-  const search = compareSearch(a.search, b.search);
-  if (search?.flagged) {
+  const sa = searchesOf(a);
+  const sb = searchesOf(b);
+  const names = [...new Set([...sa.map((x) => x.name), ...sb.map((x) => x.name)])];
+  const searches: SearchMove[] = [];
+  for (const name of names) {
+    const search = compareSearch(name, sa.find((x) => x.name === name), sb.find((x) => x.name === name));
+    if (!search) continue;
+    searches.push(search);
+    // one search in each run: named by its target alone, as before there could be several
+    const label = names.length > 1 ? `search '${name}' for ${search.target}` : `search for ${search.target}`;
+    if (search.in !== 'both') {
+      flags.push(`${label}: in run ${search.in} only (searches are matched by name)`);
+      continue;
+    }
+    if (!search.flagged) continue;
     if (!search.sameTerms) {
       flags.push(
-        `search for ${search.target}: the best formula changed from ${search.formulaA ?? '(none)'} to ${search.formulaB ?? '(none)'}` +
+        `${label}: the best formula changed from ${search.formulaA ?? '(none)'} to ${search.formulaB ?? '(none)'}` +
           (search.formulaA ? (search.rankOfAInB ? ` (A's formula is candidate ${search.rankOfAInB} in B)` : " (A's formula is not among B's candidates)") : ''),
       );
     }
-    for (const c of search.coefficients) if (c.flagged) flags.push(coefFlag(c, `search for ${search.target}`));
+    for (const c of search.coefficients) if (c.flagged) flags.push(coefFlag(c, label));
   }
 
   const constants: ConstantMove[] = [];
@@ -254,7 +285,7 @@ export function compareRuns(a: ComparableResults, b: ComparableResults): Compari
     skill,
     ranking,
     coefficients,
-    search,
+    searches,
     constants,
     flags,
     rule: COMPARE_RULE,
@@ -310,11 +341,11 @@ export function formatComparison(c: Comparison): string {
     out.push('', 'fitted coefficients');
     out.push(table(coefRows(c.coefficients, true)));
   }
-  if (c.search) {
-    const s = c.search;
-    out.push('', `formula search for ${s.target}`);
+  for (const s of c.searches) {
+    out.push('', `formula search${c.searches.length > 1 ? ` '${s.name}'` : ''} for ${s.target}${s.in === 'both' ? '' : ` (in run ${s.in} only)`}`);
     out.push(`  best in A: ${s.formulaA ?? '(none)'}   held-out RMSE ${fmt(s.heldOutRmseA)}`);
     out.push(`  best in B: ${s.formulaB ?? '(none)'}   held-out RMSE ${fmt(s.heldOutRmseB)}`);
+    if (s.in !== 'both') continue;
     if (s.sameTerms) out.push(table(coefRows(s.coefficients, false)));
     else out.push(`  different terms${s.formulaA ? (s.rankOfAInB ? `; A's formula is candidate ${s.rankOfAInB} in B` : "; A's formula is not among B's candidates") : ''}`);
   }

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
 import { z } from 'zod';
-import { SurmiseError, didYouMean, fileErrorReason } from '../errors.ts';
+import { SurmiseError, didYouMean, fileErrorReason, printable } from '../errors.ts';
 import type { IntegerRange } from '../util/integer.ts';
 import { configKeyOf, type OptionSpec, type OptionTable } from '../util/option-table.ts';
 import { RANK_LIMITS, RANK_OPTIONS } from '../attribute/options.ts';
@@ -105,12 +105,52 @@ const FitSchema = z.strictObject({
   ...BLOCK_SEED,
 });
 
+/** Most `search` blocks in one configuration (a count ceiling, refused as option.tooLarge). */
+export const MAX_SEARCHES = 20;
+
+/** The name a search block gets when it has none: `search 1`, `search 2`, … in the order written. */
+export const defaultSearchName = (i: number): string => `search ${i + 1}`;
+
 const SearchSchema = z.strictObject({
+  /** Our own key: the name the report, results.json and `surmise compare` know the search by. */
+  name: z
+    .string()
+    .trim()
+    .min(1)
+    .max(60, 'expected a name of at most 60 characters')
+    // eslint-disable-next-line no-control-regex
+    .regex(/^[^\u0000-\u001f\u007f-\u009f]*$/, 'expected a name on one line, without control characters')
+    .optional(),
   target: exprString,
   from: listOf(z.string().min(1), 1),
   ...tableShape(SEARCH_OPTIONS),
   ...BLOCK_SEED,
 });
+
+/**
+ * `search`: one block (a mapping, as configurations were first written) or a list of blocks, read
+ * as a list either way; each block named (its own `name`, else `search 1`, `search 2`, …), the
+ * names all different.
+ */
+const SearchesSchema = z.preprocess(
+  (v) => (v !== null && typeof v === 'object' && !Array.isArray(v) ? [v] : v),
+  z
+    .array(SearchSchema)
+    .max(MAX_SEARCHES)
+    .superRefine((list, ctx) => {
+      const names = list.map((s, i) => s.name ?? defaultSearchName(i));
+      names.forEach((n, i) => {
+        const j = names.indexOf(n);
+        if (j === i) return;
+        ctx.addIssue(
+          list[i]!.name !== undefined
+            ? { code: 'custom', path: [i, 'name'], message: `expected a name no other search block has (search[${j}] is also named '${n}')` }
+            : { code: 'custom', path: [i], message: `this block has no name, so it would be named '${n}', which search[${j}] is already named; give it a name` },
+        );
+      });
+    })
+    .transform((list) => list.map(({ name, ...s }, i) => ({ name: name ?? defaultSearchName(i), ...s }))),
+);
 
 /** Residual ranking: fit, then rank the remaining columns on what the fit leaves over (run/residual.ts). */
 const ResidualSchema = z.strictObject({
@@ -148,7 +188,7 @@ export const RunConfigSchema = z.strictObject({
   network: NetworkSchema.prefault({}),
   attribution: AttributionSchema.prefault({}),
   fits: z.array(FitSchema).default([]),
-  search: SearchSchema.optional(),
+  search: SearchesSchema.default([]),
   residual: ResidualSchema.optional(),
   bounds: z.array(BoundSchema).default([]),
   discover: z.array(DiscoverSchema).default([]),
@@ -198,7 +238,9 @@ export interface RunConfig {
     resamples: number;
   };
   fits: Array<{ target: string; terms: string[]; intercept: boolean; split?: string; seed?: number; folds: number; level: number; keepDuplicates: boolean; noisy: string[] }>;
-  search?: {
+  /** Every `search` block in the order written (one block written as a mapping is a list of one), each named. */
+  search: Array<{
+    name: string;
     target: string;
     from: string[];
     maxTerms: number;
@@ -214,7 +256,7 @@ export interface RunConfig {
     maxExhaustive: number;
     screenRows: number;
     maxCells: number;
-  };
+  }>;
   residual?: z.infer<typeof ResidualSchema>;
   bounds: Array<{ lhs: string; rhs: string[]; by?: string; bins: number; top: number; id?: string[]; skipInvalid: boolean; lower: boolean; form: BoundForm }>;
   discover: Array<
@@ -231,7 +273,7 @@ const OPTION_AT = new Map<string, string>(
     [
       [RANK_OPTIONS, ''],
       [FIT_OPTIONS, 'fits.#.'],
-      [SEARCH_OPTIONS, 'search.'],
+      [SEARCH_OPTIONS, 'search.#.'],
       [BOUND_OPTIONS, 'bounds.#.'],
       [DISCOVER_OPTIONS, 'discover.#.'],
     ] as const
@@ -265,12 +307,28 @@ export interface LoadedConfig {
   path: string;
   /** `file:line:column` of a key path in the configuration file (or just the file when unknown). */
   locate?: (path: ReadonlyArray<string | number>) => string;
+  /**
+   * The key path of search block `i` as the file writes it: `search` when it holds one block
+   * written as a mapping, else `search[i]` (absent: `search[i]`).
+   */
+  searchPath?: (i: number) => Array<string | number>;
+}
+
+/** The key path of search block `i` of `loaded` (see LoadedConfig.searchPath). */
+export function searchPathOf(loaded: Pick<LoadedConfig, 'searchPath'>, i: number): Array<string | number> {
+  return loaded.searchPath?.(i) ?? ['search', i];
+}
+
+/** A search block written as a mapping (`search: { … }`) rather than a list. */
+export function singleSearchBlock(data: unknown): boolean {
+  const s = data !== null && typeof data === 'object' ? (data as Record<string, unknown>).search : undefined;
+  return s !== null && typeof s === 'object' && !Array.isArray(s);
 }
 
 function describe(v: unknown): string {
   if (v === undefined) return 'nothing';
   if (v === null) return 'null';
-  if (typeof v === 'string') return `'${v}'`;
+  if (typeof v === 'string') return `'${printable(v)}'`;
   if (Array.isArray(v)) return 'a list';
   if (typeof v === 'object') return 'a mapping';
   return String(v);
@@ -341,10 +399,14 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
   if (data === null || typeof data !== 'object' || Array.isArray(data)) {
     throw new SurmiseError('config.notMapping', `${file}: expected a mapping of keys (table, target, ...) at the top level`);
   }
+  const single = singleSearchBlock(data);
   const parsed = RunConfigSchema.safeParse(data);
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;
-    const path = issue.path as PropertyKey[];
+    // the table option behind the path (a list index as `#`), before the path is written as the file has it
+    const option = optionDetails(issue.path as PropertyKey[]);
+    // one search block written as a mapping is read as a list of one: name its keys as written (`search.top`)
+    const path = single && issue.path[0] === 'search' && issue.path[1] === 0 ? ['search', ...issue.path.slice(2)] : (issue.path as PropertyKey[]);
     if (issue.code === 'unrecognized_keys') {
       const key = issue.keys[0]!;
       const level = path.filter((p) => typeof p === 'string').join('.');
@@ -358,14 +420,22 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
     }
     const node = nodeAt(doc.contents as YamlNode, path);
     const got = valueAt(data, path);
+    if (issue.code === 'custom') throw new SurmiseError('config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${issue.message}`, { key: keyPath(path) });
     let expected = issue.message;
-    if (issue.code === 'invalid_type') expected = `expected ${issue.expected === 'array' ? 'a list' : issue.expected}`;
+    if (issue.code === 'invalid_type' && path.length === 1 && path[0] === 'search') expected = 'expected a search block (a mapping) or a list of them';
+    else if (issue.code === 'invalid_type') expected = `expected ${issue.expected === 'array' ? 'a list' : issue.expected}`;
     else if (issue.code === 'too_small' && issue.origin === 'number') expected = `expected a number ≥ ${String(issue.minimum)}`;
     else if (issue.code === 'too_big' && issue.origin === 'number') {
       throw new SurmiseError(
         'option.tooLarge',
         `${where(node?.range?.[0])}: ${keyPath(path)}: expected at most ${Number(issue.maximum).toLocaleString('en-US')} (its ceiling), got ${describe(got)}`,
-        { key: keyPath(path), ...optionDetails(path) },
+        { key: keyPath(path), ...option },
+      );
+    } else if (issue.code === 'too_big' && issue.origin === 'array' && path.length === 1 && path[0] === 'search') {
+      throw new SurmiseError(
+        'option.tooLarge',
+        `${where(node?.range?.[0])}: search: expected at most ${MAX_SEARCHES} search blocks (its ceiling), got ${(got as unknown[]).length}`,
+        { key: 'search' },
       );
     } else if (issue.code === 'too_big' && issue.origin === 'array') expected = `expected a list of at most ${String(issue.maximum)} item(s)`;
     else if (issue.code === 'too_small' && issue.origin === 'array') expected = `expected a list of at least ${String(issue.minimum)} item(s)`;
@@ -391,7 +461,6 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
       throw new SurmiseError('config.missingKey', `${where(node?.range?.[0])}: missing required key '${keyPath(path)}'`);
     }
     // a bad value of a table option is option.badValue, as in the library and on the command line
-    const option = optionDetails(path);
     throw new SurmiseError(option.option ? 'option.badValue' : 'config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`, { key: keyPath(path), ...option });
   }
   const config = parsed.data as unknown as RunConfig;
@@ -399,7 +468,7 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
   config.table = resolve(base, config.table);
   config.output = resolve(base, config.output);
   const locate = (path: ReadonlyArray<string | number>): string => where(nodeAt(doc.contents as YamlNode, path)?.range?.[0]);
-  return { config, path: file, locate };
+  return { config, path: file, locate, searchPath: (i) => (single ? ['search'] : ['search', i]) };
 }
 
 /** Read and validate a configuration file; `display` names it in messages (default: `file`). */

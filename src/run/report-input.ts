@@ -40,7 +40,7 @@ export function buildReportInput(
   table: Table,
   configText: string,
 ): ReportInput {
-  const { config, rank, fits, search } = results;
+  const { config, rank, fits } = results;
   // each search's proposals are shown as bounds along its first quantity
   const bounds = [...results.bounds, ...results.discoveries.map(discoveryAsBounds)];
   const group = groupingLabel(table);
@@ -114,7 +114,8 @@ export function buildReportInput(
       };
     });
   }
-  if (search) {
+  const searches = results.searches ?? [];
+  if (searches.length) {
     const conv = (c: SearchResult['candidates'][number]) => ({
       terms: c.terms,
       coefs: c.coefs,
@@ -125,7 +126,8 @@ export function buildReportInput(
       rationalFormula: c.intercept.rational || c.rationals.some((q) => q !== null) ? c.roundedFormula : null,
       rationalHeldOutRmse: c.roundedHeldOutRmse,
     });
-    input.search = {
+    input.searches = searches.map((search) => ({
+      name: search.name,
       candidates: search.candidates.map(conv),
       front: search.front.map(conv),
       mode: search.mode,
@@ -134,8 +136,9 @@ export function buildReportInput(
       nCandidatesTried: search.nCandidatesTried,
       selectionRows: search.selectionRows,
       heldOutRows: search.heldOutRows,
+      ...(search.heldOutSd !== undefined ? { heldOutSd: search.heldOutSd } : {}),
       notes: search.notes,
-    };
+    }));
   }
   if (results.residual) {
     const rr = results.residual;

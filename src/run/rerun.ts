@@ -1,7 +1,8 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { SurmiseError } from '../errors.ts';
-import { RunConfigSchema, type LoadedConfig, type RunConfig } from './config.ts';
+import { RunConfigSchema, defaultSearchName, singleSearchBlock, type LoadedConfig, type RunConfig } from './config.ts';
+import type { SearchResult } from '../relate/search.ts';
 import type { RunResults } from './run.ts';
 
 /** Read a run folder's results.json (`run.notARun` when it is not one). */
@@ -14,10 +15,20 @@ export function readRunResults(runDir: string): RunResults {
   } catch (e) {
     throw new SurmiseError('run.badResults', `${file}: not valid JSON: ${(e as Error).message}`);
   }
-  const r = data as Partial<RunResults>;
+  const r = data as Omit<Partial<RunResults>, 'formatVersion'> & { formatVersion?: unknown; search?: unknown };
   if (r.format !== 'surmise-run' || typeof r.config !== 'object') {
     throw new SurmiseError('run.notARun', `${file} was not written by surmise run`);
   }
+  if (r.formatVersion === 1 || r.formatVersion === undefined) {
+    // formatVersion 1 held one search (or null) as `search`: read it as a list of one, named as a new run names it
+    const { search, ...rest } = r;
+    if (search !== null && search !== undefined && typeof search !== 'object') throw new SurmiseError('run.badResults', `${file}: 'search' is not a search result`);
+    return { ...rest, formatVersion: 2, searches: search ? [{ name: defaultSearchName(0), ...(search as SearchResult) }] : [] } as RunResults;
+  }
+  if (r.formatVersion !== 2) {
+    throw new SurmiseError('run.badResults', `${file}: written by a newer surmise (results format ${String(r.formatVersion)}; this one reads 1 and 2)`);
+  }
+  if (!Array.isArray(r.searches)) throw new SurmiseError('run.badResults', `${file}: 'searches' is not a list`);
   return r as RunResults;
 }
 
@@ -33,5 +44,7 @@ export function rerunFromFolder(runDir: string, newTable: string, cwd: string): 
   if (!parsed.success) {
     throw new SurmiseError('run.badResults', `${join(runDir, 'results.json')}: the stored configuration is not valid: ${parsed.error.issues[0]?.message}`);
   }
-  return { config: parsed.data as unknown as RunConfig, path: join(runDir, 'results.json') };
+  // an older run's configuration may hold one search block written as a mapping: name its keys as written
+  const single = singleSearchBlock(prev.config);
+  return { config: parsed.data as unknown as RunConfig, path: join(runDir, 'results.json'), searchPath: (i) => (single ? ['search'] : ['search', i]) };
 }

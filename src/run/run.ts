@@ -20,7 +20,7 @@ import { findBound, type BoundResult, type BoundSpec } from '../bound/find.ts';
 import { discoverBound, type DiscoverResult } from '../bound/discover.ts';
 import { renderReport } from '../report/index.ts';
 import { toJson } from '../util/json.ts';
-import { keyPath, optionsFromConfig, type RunConfig, type LoadedConfig } from './config.ts';
+import { keyPath, optionsFromConfig, searchPathOf, type RunConfig, type LoadedConfig } from './config.ts';
 import { checkRunFolder, writeRunFolder, type OutputFile } from './folder.ts';
 import { dependencyVersions, sha256File } from './provenance.ts';
 import { checkAgainstTable, inConfig, parsePowers } from './check.ts';
@@ -43,9 +43,13 @@ export interface RunOptions {
   engine?: 'auto' | 'native' | 'tfjs';
 }
 
+/** A formula search of the run under its configuration block's name (`search 1`, … unless named). */
+export type NamedSearchResult = { name: string } & SearchResult;
+
 export interface RunResults {
   format: 'surmise-run';
-  formatVersion: 1;
+  /** 2: `searches` (a list); 1 (older run folders): one `search` or null, read as a list by readRunResults. */
+  formatVersion: 2;
   tool: { name: 'surmise'; version: string };
   node: string;
   dependencies: Record<string, string>;
@@ -58,7 +62,8 @@ export interface RunResults {
   timings: Record<string, number>;
   rank: RankResult | null;
   fits: FitResult[];
-  search: SearchResult | null;
+  /** Every search of the configuration in order, each under its block's name (formatVersion 1 held one, as `search`). */
+  searches: NamedSearchResult[];
   /** Residual ranking (config `residual`), or null. */
   residual: ResidualResult | null;
   bounds: BoundResult[];
@@ -114,7 +119,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
   const inputColumns = table.columns.map((c) => c.name);
   const at = (path: Array<string | number>) => loaded.locate?.(path) ?? loaded.path;
   for (const [name, source] of Object.entries(config.derive)) table = inConfig(['derive', name], at, () => withDerived(table, [{ name, source }]));
-  checkAgainstTable(config, table, at);
+  checkAgainstTable(config, table, at, (i) => searchPathOf(loaded, i));
   timings.read = seconds(t0);
 
   stage('learning and attribution');
@@ -143,25 +148,27 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
   );
   timings.fit = seconds(t0);
 
-  let search: SearchResult | null = null;
-  if (config.search) {
-    stage('searching formulas');
+  const searches: NamedSearchResult[] = [];
+  if (config.search.length) {
+    stage(config.search.length === 1 ? 'searching formulas' : `searching formulas (${config.search.length} searches)`);
     t0 = performance.now();
-    const sc = config.search;
-    search = inStage((k) => keyPath(['search', k]), () => {
-      const { split, powers, lattice, ...o } = optionsFromConfig(SEARCH_OPTIONS, sc) as { split?: string; powers: string; lattice: string } & Omit<SearchSpec, 'target' | 'from' | 'split' | 'powers' | 'lattice'>;
-      const seed = sc.seed ?? config.seed;
-      const rows = split === undefined ? undefined : splitRows(table, split, seed);
-      return searchRelations(table, {
-        target: sc.target,
-        from: sc.from,
-        ...o,
-        powers: parsePowers(powers),
-        lattice: lattice === 'auto' || lattice === 'off' ? lattice : Number(lattice),
-        seed,
-        ...(rows ? { split: { selection: rows.first, heldOut: rows.second, description: rows.description } } : {}),
-        ...(opts.onSearchProgress ? { progress: opts.onSearchProgress } : {}),
+    config.search.forEach((sc, i) => {
+      const result = inStage((k) => keyPath([...searchPathOf(loaded, i), k]), () => {
+        const { split, powers, lattice, ...o } = optionsFromConfig(SEARCH_OPTIONS, sc) as { split?: string; powers: string; lattice: string } & Omit<SearchSpec, 'target' | 'from' | 'split' | 'powers' | 'lattice'>;
+        const seed = sc.seed ?? config.seed;
+        const rows = split === undefined ? undefined : splitRows(table, split, seed);
+        return searchRelations(table, {
+          target: sc.target,
+          from: sc.from,
+          ...o,
+          powers: parsePowers(powers),
+          lattice: lattice === 'auto' || lattice === 'off' ? lattice : Number(lattice),
+          seed,
+          ...(rows ? { split: { selection: rows.first, heldOut: rows.second, description: rows.description } } : {}),
+          ...(opts.onSearchProgress ? { progress: opts.onSearchProgress } : {}),
+        });
       });
+      searches.push({ name: sc.name, ...result });
     });
     timings.search = seconds(t0);
   }
@@ -196,7 +203,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
   const configText = stringify({ ...config, table: config.table, output: outDir });
   const results: RunResults = {
     format: 'surmise-run',
-    formatVersion: 1,
+    formatVersion: 2,
     tool: { name: 'surmise', version: VERSION },
     node: process.version,
     dependencies: dependencyVersions(),
@@ -209,7 +216,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
     timings,
     rank,
     fits,
-    search,
+    searches,
     residual,
     bounds,
     discoveries,

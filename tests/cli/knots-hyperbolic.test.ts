@@ -35,17 +35,21 @@ describe('surmise knots --invariants hyperbolic', () => {
     expect(bad.code).toBe(2);
     expect(bad.err).toMatch(/--workers/);
   });
-  it('adds geometry, geometry_reason, volume, cusp_shape (complex) and natural_slope', async () => {
+  it('adds geometry, geometry_reason, volume, cusp_shape (complex), natural_slope and the maximal cusp', async () => {
     const r = await run(['knots', 'd.txt', '--invariants', 'hyperbolic']);
     expect(r.code).toBe(0);
     const lines = r.out.trim().split('\n');
-    expect(lines[0]).toBe('name,geometry,geometry_reason,volume,cusp_shape,natural_slope');
+    expect(lines[0]).toBe('name,geometry,geometry_reason,volume,cusp_shape,natural_slope,cusp_volume,meridian_length,longitude_length');
     const fig8 = lines[1]!.split(',');
     expect(fig8[1]).toBe('hyperbolic');
     expect(Number(fig8[3])).toBeCloseTo(2.029883212819307, 12);
     expect(fig8[4]).toMatch(/\+3\.46410161513\d*j$/);
+    // figure-eight maximal cusp: volume √3, meridian 1, longitude 2√3 (from memory; Adams)
+    expect(Number(fig8[6])).toBeCloseTo(Math.sqrt(3), 9);
+    expect(Number(fig8[7])).toBeCloseTo(1, 9);
+    expect(Number(fig8[8])).toBeCloseTo(2 * Math.sqrt(3), 9);
     const tref = lines[2]!;
-    expect(tref).toMatch(/^trefoil,not hyperbolic,"torus knot T\(2,3\) \(Seifert fibred\)[^"]*",,,$/);
+    expect(tref).toMatch(/^trefoil,not hyperbolic,"torus knot T\(2,3\) \(Seifert fibred\)[^"]*",,,,,,$/);
   });
   it('JSON rows carry the cusp shape as [re, im] and the tetrahedra used; `all` includes the columns', async () => {
     const j = JSON.parse((await run(['knots', 'd.txt', '--invariants', 'hyperbolic', '--json'])).out);
@@ -53,6 +57,8 @@ describe('surmise knots --invariants hyperbolic', () => {
     expect(j.rows[1].volume).toBeNull();
     expect(j.rows[2].volume).toBeCloseTo(2.8281220883308, 10); // 5_2, from memory
     const all = await run(['knots', 'd.txt', '--invariants', 'all']);
-    expect(all.out.split('\n')[0]).toMatch(/,geometry,geometry_reason,volume,cusp_shape,natural_slope$/);
+    expect(all.out.split('\n')[0]).toMatch(/,geometry,geometry_reason,volume,cusp_shape,natural_slope,cusp_volume,meridian_length,longitude_length$/);
+    expect(j.rows[0].cusp_volume).toBeCloseTo(Math.sqrt(3), 9);
+    expect(j.rows[1].cusp_volume).toBeNull();
   });
 });

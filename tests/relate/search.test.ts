@@ -3,6 +3,7 @@ import { searchRelations } from '../../src/relate/search.ts';
 import { baseQuantities } from '../../src/relate/bases.ts';
 import { Rng } from '../../src/util/rng.ts';
 import { makeTable } from './helpers.ts';
+import { standardDeviation } from 'simple-statistics';
 
 function planted(n: number, seed: number) {
   // the planted law from the issue: y = 3x² − 2pq + noise, with x, p, q random
@@ -35,6 +36,17 @@ describe('searchRelations', () => {
     expect(onFront).toBeDefined();
     expect(r.selectionRows + r.heldOutRows).toBe(3000);
     expect(r.notes.map((n) => n.text).join(' ')).toMatch(/multiple comparisons/);
+  });
+  it('hands on the target\'s standard deviation on the held-out rows (divisor n, as simple-statistics standardDeviation), the scale of its held-out RMSE', () => {
+    const t = planted(400, 3);
+    const heldOut = Array.from({ length: 150 }, (_, i) => 250 + i);
+    const selection = Array.from({ length: 250 }, (_, i) => i);
+    const r = searchRelations(t, { target: 'y', from: ['x', 'p', 'q'], maxTerms: 1, maxComplexity: 2, seed: 5, split: { selection, heldOut } });
+    const y = t.columns.find((c) => c.name === 'y')! as { values: Float64Array };
+    expect(r.heldOutRows).toBe(150);
+    expect(r.heldOutSd).toBeCloseTo(standardDeviation(heldOut.map((i) => y.values[i]!)), 12);
+    // no formula does worse on those rows than their own mean: RMSE / SD = √(1 − R²) ≤ 1 for the best
+    expect(r.candidates[0]!.heldOutRmse / r.heldOutSd).toBeLessThan(1);
   });
   it('95% intervals cover the planted 3 and −2 about 90% of the time: the rationals are exactly 3 and −2 in ≥ 7 of 10 seeds (coverage of a 95% interval, common practice)', () => {
     let exact = 0;

@@ -57,12 +57,29 @@ describe('compareRuns: both runs\' uncertainty (definition: consistent when the 
   it('search: the same terms compare coefficient by coefficient; other terms are flagged with where A\'s formula went', () => {
     const a = { search: { target: 'y', candidates: [cand(['x', 'z'], [2, 3], 0.1, 'y ≈ 1 + 2·x + 3·z')] } };
     const same = compareRuns(a, { search: { target: 'y', candidates: [cand(['z', 'x'], [3.05, 2.02], 0.1, 'y ≈ 1 + 3.05·z + 2.02·x')] } });
-    expect(same.search!.sameTerms).toBe(true);
-    expect(same.search!.coefficients.map((m) => [m.term, m.flagged])).toEqual([['1', false], ['x', false], ['z', false]]);
+    expect(same.searches[0]!.sameTerms).toBe(true);
+    expect(same.searches[0]!.coefficients.map((m) => [m.term, m.flagged])).toEqual([['1', false], ['x', false], ['z', false]]);
     expect(same.flags).toEqual([]);
     const other = compareRuns(a, { search: { target: 'y', candidates: [cand(['w'], [1], 0.1, 'y ≈ 1 + w'), cand(['x', 'z'], [2, 3], 0.1, 'y ≈ 1 + 2·x + 3·z')] } });
-    expect(other.search!.rankOfAInB).toBe(2);
+    expect(other.searches[0]!.rankOfAInB).toBe(2);
     expect(other.flags[0]).toBe("search for y: the best formula changed from y ≈ 1 + 2·x + 3·z to y ≈ 1 + w (A's formula is candidate 2 in B)");
+  });
+
+  it('searches are compared by name: an older run\'s one `search` is `search 1`; with several, flags name the search', () => {
+    const xz = cand(['x', 'z'], [2, 3], 0.1, 'y ≈ 1 + 2·x + 3·z');
+    const w = cand(['w'], [1], 0.1, 'u ≈ 1 + w');
+    const old = compareRuns({ search: { target: 'y', candidates: [xz] } }, { searches: [{ name: 'search 1', target: 'y', candidates: [xz] }] });
+    expect(old.searches.map((s) => [s.name, s.in, s.sameTerms])).toEqual([['search 1', 'both', true]]);
+    expect(old.flags).toEqual([]);
+    // B lists the searches in another order: matched by name, not by place
+    const a = { searches: [{ name: 'g', target: 'y', candidates: [xz] }, { name: 'h', target: 'u', candidates: [w] }] };
+    const b = { searches: [{ name: 'h', target: 'u', candidates: [cand(['v'], [1], 0.1, 'u ≈ 1 + v')] }, { name: 'g', target: 'y', candidates: [xz] }] };
+    const c = compareRuns(a, b);
+    expect(c.searches.map((s) => [s.name, s.sameTerms, s.flagged])).toEqual([['g', true, false], ['h', false, true]]);
+    expect(c.flags).toEqual(["search 'h' for u: the best formula changed from u ≈ 1 + w to u ≈ 1 + v (A's formula is not among B's candidates)"]);
+    const text = formatComparison(c);
+    expect(text).toContain("formula search 'g' for y");
+    expect(text).toContain("formula search 'h' for u");
   });
 
   it('bounds: an upper constant that grew and a lower constant that shrank mean A fails on B (a maximum is exact, not an estimate)', () => {

@@ -118,6 +118,27 @@ describe('run configuration', () => {
     });
   });
 
+  it('reads `search` as one block or a list of blocks, each named (search 1, search 2, … unless named)', () => {
+    const one = parseConfig('table: a.csv\ntarget: y\nsearch:\n  target: y\n  from: [a]\n', 'cfg.yaml');
+    expect(one.config.search.map((s) => [s.name, s.target, s.maxTerms])).toEqual([['search 1', 'y', 2]]);
+    expect(one.searchPath!(0)).toEqual(['search']);
+    const two = parseConfig('table: a.csv\ntarget: y\nsearch:\n  - target: y\n    from: [a]\n  - name: second\n    target: z\n    from: [b]\n    maxTerms: 1\n', 'cfg.yaml');
+    expect(two.config.search.map((s) => [s.name, s.target, s.maxTerms])).toEqual([['search 1', 'y', 2], ['second', 'z', 1]]);
+    expect(two.searchPath!(1)).toEqual(['search', 1]);
+    expect(parseConfig('table: a.csv\ntarget: y\n', 'cfg.yaml').config.search).toEqual([]);
+    expect(refusal('table: a.csv\ntarget: y\nsearch: 3\n')).toEqual({
+      code: 'config.badValue',
+      message: 'cfg.yaml:3:9: search: expected a search block (a mapping) or a list of them, got 3',
+    });
+    expect(refusal('table: a.csv\ntarget: y\nsearch:\n  - name: "a\\nb"\n    target: y\n    from: [a]\n').message).toBe(
+      "cfg.yaml:4:11: search[0].name: expected a name on one line, without control characters, got 'a\\nb'", // one line: the newline shown escaped
+    );
+    expect(refusal('table: a.csv\ntarget: y\nsearch:\n  - target: y\n    from: [a]\n    maxTerm: 2\n')).toEqual({
+      code: 'config.unknownKey',
+      message: "cfg.yaml:6:5: unknown key 'search[0].maxTerm' (did you mean 'maxTerms'?)",
+    });
+  });
+
   it('refuses a malformed power range in search', () => {
     expect(refusal('table: a.csv\ntarget: y\nsearch:\n  target: y\n  from: [a]\n  powers: 1-3\n')).toEqual({
       code: 'option.badValue',

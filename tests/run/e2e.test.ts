@@ -120,7 +120,7 @@ describe('surmise demo on the demo table of knots', () => {
   });
 
   it("the search finds Seifert's 2g = c − n + 1 (genus_bound = ½ + ½·crossings − ½·strands) with zero held-out error", () => {
-    const s = results.search!;
+    const s = results.searches[0]!;
     const best = [...s.front].sort((a, b) => a.heldOutRmse - b.heldOutRmse)[0]!;
     expect(new Set(best.terms)).toEqual(new Set(['crossings', 'strands']));
     expect(best.heldOutRmse).toBeLessThan(1e-9);
@@ -176,7 +176,7 @@ describe('surmise demo on the demo table of knots', () => {
     const c = (x: number) => x.toLocaleString('en');
     expect(md).toContain(`with ${c(results.input.rows)} rows`);
     expect(md).toContain(`Of ${c(results.rows!.inputRows)} rows read, ${c(results.rows!.keptRows)} were kept`);
-    const s = results.search!;
+    const s = results.searches[0]!;
     expect(md).toContain(`${c(s.nCandidatesTried)} subsets of ${c(s.nCandidateTerms)} candidate terms screened on ${c(s.selectionRows)} selection rows`);
     expect(md).toContain(`scored on ${c(s.heldOutRows)} held-out rows`);
     expect(md).toContain(`n = ${c(results.fits[0]!.n)},`);

@@ -10,3 +10,7 @@ export { findGeometricSolution, SEARCH_DEFAULTS, type SearchOptions } from './se
 export { cuspGeometry, type CuspGeometry } from './peripheral.ts';
 export { removeKinks } from './kinks.ts';
 export { recogniseTorusBraid } from './torus.ts';
+export { recogniseClosure, type Recognition } from './recognise.ts';
+export { recognisePeriodicBraid } from './periodic.ts';
+export { simplifyClosedBraid, CLOSED_BRAID_DEFAULTS, type ClosedBraidOptions, type ClosedBraidOutcome } from './closedbraid.ts';
+export { maximalCusp, MAXIMAL_CUSP_DEFAULTS, type MaximalCusp, type MaximalCuspOptions } from './maxcusp.ts';

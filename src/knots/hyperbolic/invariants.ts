@@ -3,8 +3,9 @@
  *
  * - `not hyperbolic` only with a mathematical reason: a split diagram (several pieces, or a
  *   crossing-free component: the complement contains an essential sphere), a diagram with at most
- *   two crossings after removing kinks (unknot, Hopf link), or a braid recognised as a torus link
- *   (Seifert fibred).
+ *   two crossings after removing kinks (unknot, Hopf link), or a braid (given, or from Vogel's
+ *   algorithm) recognised as the unknot, a torus link (Seifert fibred), a split link or a composite
+ *   knot by isotopies of the closed braid and exact tests (`recognise.ts`).
  * - `hyperbolic` when Newton's method finds a solution of the gluing and completeness equations
  *   with every shape in the upper half-plane (Thurston): then the volume is Σ D(z) over the
  *   tetrahedra (Bloch–Wigner; Milnor 1982) and the cusp geometry is read from the developed cusp.
@@ -24,9 +25,11 @@ import { findGeometricSolution, SEARCH_DEFAULTS, type SearchOptions } from './se
 import { recogniseTorusBraid } from './torus.ts';
 import { braidSummands, isKnotted, simplifyBraid } from './reduce.ts';
 import { pdToBraid } from '../vogel.ts';
+import { recogniseClosure } from './recognise.ts';
 import { combinatorics } from './triangulation.ts';
 import { cuspBases } from './cusp.ts';
 import { gluingEquations } from './equations.ts';
+import { maximalCusp, type MaximalCusp } from './maxcusp.ts';
 
 export const GEOMETRY_STATUSES = ['hyperbolic', 'not hyperbolic', 'unresolved'] as const;
 export type Geometry = (typeof GEOMETRY_STATUSES)[number];
@@ -41,6 +44,8 @@ export interface HyperbolicInvariants {
   naturalSlope?: number;
   /** Every component's cusp (links). */
   cusps?: CuspGeometry[];
+  /** The maximal cusp (knots only): volume, meridian and longitude lengths (`maxcusp.ts`). */
+  maximalCusp?: MaximalCusp;
   /** Tetrahedra of the geometric triangulation and the largest equation residual. */
   tetrahedra?: number;
   residual?: number;
@@ -78,6 +83,11 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
     return { geometry: 'not hyperbolic', reason: `the braid reduces to the empty word by free reduction and Markov moves: ${small.strands === 1 ? 'an unknot' : 'an unlink'}` };
   const known = small && recogniseBraid(small, d.info.nComponents);
   if (known) return known;
+  // a bounded search of isotopies of the closed braid (conjugation, braid relations, exchange
+  // moves, destabilisation) for the unknot, torus links and connected sums (`recognise.ts`)
+  const deeper = small && recogniseClosure(small, d.info.nComponents);
+  if (deeper && deeper.status === 'not hyperbolic') return { geometry: 'not hyperbolic', reason: deeper.reason };
+  if (deeper) small = deeper.braid;
   const crossings = d.braid ? braidClosurePD(small!).pd : d.info.crossings;
   if (crossings.length === 0) return { geometry: 'not hyperbolic', reason: 'the braid word reduces to the empty word: an unknot or unlink' };
   const k = removeKinks(crossings);
@@ -132,6 +142,11 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   out.cusps = cg;
   out.cuspShape = cg[0]!.shape;
   out.naturalSlope = cg[0]!.shape[0];
+  if (info.nComponents === 1) {
+    const mc = maximalCusp(sol.tri, sol.cb, sol, cg[0]!.shape);
+    if (typeof mc === 'string') out.reason = `maximal cusp not measured: ${mc}`;
+    else out.maximalCusp = mc;
+  }
   return out;
 }
 

@@ -3,9 +3,9 @@ import { readFileSync } from 'node:fs';
 import { parseDiagram } from '../../../src/knots/diagram.ts';
 import { hyperbolicInvariants } from '../../../src/knots/hyperbolic/invariants.ts';
 import { SEARCH_DEFAULTS } from '../../../src/knots/hyperbolic/search.ts';
-import { burauAlexanderExact } from '../../../src/knots/braid.ts';
+import { braidClosurePD, burauAlexanderExact } from '../../../src/knots/braid.ts';
 import { trimPoly } from '../../../src/knots/poly.ts';
-import { addKink, mirrorPD, relabelPD } from '../../../src/knots/generate.ts';
+import { addKink, mirrorPD, relabelPD, torusBraid } from '../../../src/knots/generate.ts';
 import type { Crossing } from '../../../src/knots/pd.ts';
 import { twistKnotPD } from '../../../src/knots/plat.ts';
 import { Rng } from '../../../src/util/rng.ts';
@@ -122,6 +122,32 @@ describe('hyperbolic invariants of small knots', () => {
       const word = [1, ...b.slice(1), b[0]!, -1, strands];
       expect(hyp(`${strands + 1}: ${word.join(' ')}`).geometry, pq).toBe('not hyperbolic');
     }
+  });
+  it('PD codes of T(4,5) and T(5,6) (relabelled, mirrored, kinked) are "torus knot T(p,q)" (Thurston 1982: Seifert fibred; T(p,q) = T(q,p), Rolfsen §3.C)', () => {
+    for (const [p, q] of [[4, 5], [5, 6]] as const) {
+      const code = braidClosurePD(torusBraid(p, q)).pd;
+      for (const [variant, sign] of [[relabelPD(code, new Rng(3)), 1], [mirrorPD(code), -1], [addKink(code, code[0]![0], 1), 1]] as const) {
+        const h = hyp(variant);
+        expect(h.geometry, `T(${p},${q})`).toBe('not hyperbolic');
+        expect(h.volume).toBeUndefined();
+        expect([`T(${p},${sign * q})`, `T(${q},${sign * p})`].some((t) => h.reason!.includes(t)), h.reason).toBe(true);
+      }
+    }
+  });
+  it('closed braids of the unknot and composites that need braid relations and exchange moves are recognised (Birman–Menasco 1992; Birman 1974, §2)', () => {
+    // σ2σ1⁻¹σ2σ1: σ1⁻¹σ2σ1 = σ2σ1σ2⁻¹ makes it σ2σ2σ1σ2⁻¹, conjugate to σ2σ1, which destabilises
+    // twice (by hand; no generator occurs once in the given word, so free reduction and Markov alone fail);
+    // then the same conjugated by σ3 on 4 strands, and σ3⁻¹·w·σ3σ4σ3⁻¹ on 5 strands (rotated, σ4 and
+    // then σ3 occur once: Markov destabilisations back to w)
+    for (const code of ['2 -1 2 1', '4: 3 2 -1 2 1 -3', '-3 2 -1 2 1 3 4 -3']) {
+      const unknot = hyp(code);
+      expect(unknot.geometry, code).toBe('not hyperbolic');
+      expect(unknot.reason, code).toMatch(/^unknot/);
+    }
+    // the granny knot σ1³σ2³ conjugated by σ2σ1: no middle generator occurs once
+    const granny = hyp('2 1 1 1 1 2 2 2 -1 -2');
+    expect(granny.geometry).toBe('not hyperbolic');
+    expect(granny.reason).toMatch(/^composite knot/);
   });
   it('composite knots from a braid connected sum are "not hyperbolic"; prime knots never are', () => {
     // 3_1 # 4_1: σ1³ on strands 1–2, σ3σ4⁻¹σ3σ4⁻¹ on 3–5, joined by σ2 (Birman 1974, §2)
