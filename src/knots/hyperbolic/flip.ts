@@ -9,7 +9,7 @@
  * structure (Thurston 1979, §4), and the volume is that of the complement.
  */
 import { isCuspedTriangulation } from './octahedral.ts';
-import { threeTwoShapes, twoThreeShapes, type MovedShapes } from './pachner.ts';
+import { threeTwoPreview, twoThreePreview, twoThreeShapes, type MovedShapes, type MovePreview } from './pachner.ts';
 import { EDGE_VERTS, type Triangulation } from './triangulation.ts';
 import type { Rng } from '../../util/rng.ts';
 
@@ -27,21 +27,19 @@ const negatives = (im: Float64Array, minIm: number): number => {
   for (const x of im) if (x < minIm) k++;
   return k;
 };
-const smallest = (im: Float64Array): number => {
-  let m = Infinity;
-  for (const x of im) m = Math.min(m, x);
-  return m;
-};
 
-/** An order-free hash of the rounded shapes: equal for a triangulation and the same one reached again. */
+/** One tetrahedron's term of `signature`. */
+function shapeHash(re: number, im: number): number {
+  const a = Math.round(re * 1e7);
+  const b = Math.round(im * 1e7);
+  // a multiplicative mix of the two integers, summed so that the order does not matter
+  return (Math.imul(a ^ 0x5bd1e995, 0x27d4eb2d) ^ Math.imul(b ^ 0x165667b1, 0x85ebca6b)) >>> 0;
+}
+
+/** An order-free hash of the rounded shapes: equal for a triangulation and the same one reached again (an exact integer sum). */
 function signature(m: { re: Float64Array; im: Float64Array }): number {
   let h = 0;
-  for (let t = 0; t < m.re.length; t++) {
-    const a = Math.round(m.re[t]! * 1e7);
-    const b = Math.round(m.im[t]! * 1e7);
-    // a multiplicative mix of the two integers, summed so that the order does not matter
-    h += (Math.imul(a ^ 0x5bd1e995, 0x27d4eb2d) ^ Math.imul(b ^ 0x165667b1, 0x85ebca6b)) >>> 0;
-  }
+  for (let t = 0; t < m.re.length; t++) h += shapeHash(m.re[t]!, m.im[t]!);
   return h;
 }
 
@@ -69,32 +67,63 @@ export function flipToGeometric(
     const neg: number[] = [];
     for (let t = 0; t < cur.tri.n; t++) if (cur.im[t]! < minIm) neg.push(t);
     const touches = (ts: number[]): boolean => ts.some((t) => cold.has(t));
-    // candidates ranked by their key; the (rarely failing) triangulation check is made on the chosen one
-    const ranked: Array<{ m: MovedShapes; key: [number, number, number, number] }> = [];
-    const consider = (m: MovedShapes | undefined): void => {
-      if (!m || m.tri.n > maxTets || seen.has(signature(m))) return;
-      ranked.push({ m, key: [negatives(m.im, minIm), -smallest(m.im), m.tri.n, rng.next()] });
+    // the four smallest Im z of the current shapes (a move removes at most three tetrahedra)
+    const low: number[] = [];
+    for (let t = 0; t < cur.tri.n; t++) {
+      low.push(t);
+      low.sort((x, y) => cur.im[x]! - cur.im[y]!);
+      if (low.length > 4) low.pop();
+    }
+    const sig = signature(cur);
+    // candidates ranked by their key, computed from the move's preview (the tetrahedra it removes
+    // and the shapes it adds); the move is made, and checked, only for the chosen one
+    const ranked: Array<{ m: MovePreview; key: [number, number, number, number] }> = [];
+    const consider = (m: MovePreview | undefined): void => {
+      if (!m) return;
+      const size = cur.tri.n - m.olds.length + m.re.length;
+      if (size > maxTets) return;
+      let s2 = sig;
+      let neg2 = score;
+      for (const t of m.olds) {
+        s2 -= shapeHash(cur.re[t]!, cur.im[t]!);
+        if (cur.im[t]! < minIm) neg2--;
+      }
+      let min2 = Infinity;
+      for (const t of low)
+        if (!m.olds.includes(t)) {
+          min2 = cur.im[t]!;
+          break;
+        }
+      for (let J = 0; J < m.re.length; J++) {
+        s2 += shapeHash(m.re[J]!, m.im[J]!);
+        if (m.im[J]! < minIm) neg2++;
+        min2 = Math.min(min2, m.im[J]!);
+      }
+      if (seen.has(s2)) return;
+      ranked.push({ m, key: [neg2, -min2, size, rng.next()] });
     };
     // the negative tetrahedra and their neighbours
     const near = new Set<number>();
     for (const t of neg) for (let f = -1; f < 4; f++) near.add(f < 0 ? t : cur.tri.nbr[4 * t + f]!);
     for (const t of near) {
       if (cold.has(t)) continue;
-      for (let f = 0; f < 4; f++) if (!cold.has(cur.tri.nbr[4 * t + f]!)) consider(twoThreeShapes(cur.tri, cur.re, cur.im, t, f));
+      for (let f = 0; f < 4; f++) if (!cold.has(cur.tri.nbr[4 * t + f]!)) consider(twoThreePreview(cur.tri, cur.re, cur.im, t, f));
       for (const [a, b] of EDGE_VERTS) {
         const others = [0, 1, 2, 3].filter((x) => x !== a && x !== b).map((f) => cur.tri.nbr[4 * t + f]!);
-        if (!touches(others)) consider(threeTwoShapes(cur.tri, cur.re, cur.im, t, a, b));
+        if (!touches(others)) consider(threeTwoPreview(cur.tri, cur.re, cur.im, t, a, b));
       }
     }
     ranked.sort((x, y) => x.key[0] - y.key[0] || x.key[1] - y.key[1] || x.key[2] - y.key[2] || x.key[3] - y.key[3]);
     let best: MovedShapes | undefined;
     let bestKey: [number, number, number, number] = [Infinity, 0, 0, 0];
-    for (const r of ranked)
-      if (isCuspedTriangulation(r.m.tri, cusps)) {
-        best = r.m;
+    for (const r of ranked) {
+      const m = r.m.apply();
+      if (isCuspedTriangulation(m.tri, cusps)) {
+        best = m;
         bestKey = r.key;
         break;
       }
+    }
     if (!best) {
       // stuck: a 2–3 move on a random face of a random negative tetrahedron, if any is possible
       const t = neg[rng.int(neg.length)]!;

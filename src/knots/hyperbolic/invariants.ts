@@ -120,7 +120,8 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
     return {
       geometry: 'unresolved',
       reason:
-        `no geometric solution found; possibly not hyperbolic (${sol.triangulations} triangulations, ${sol.solves} solves` +
+        (sol.capped ? `no geometric solution found within the effort cap (maxWork ${opts.maxWork.toExponential(0)} solver operations)` : 'no geometric solution found') +
+        `; possibly not hyperbolic (${sol.triangulations} triangulations, ${sol.solves} solves` +
         (sol.negativeSolutions ? `, ${sol.negativeSolutions} solutions with negatively oriented tetrahedra not carried to a geometric one)` : ')'),
     };
   const volume = volumeOf(sol.re, sol.im);

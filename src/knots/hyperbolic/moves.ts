@@ -95,13 +95,11 @@ export function twoThree(tri: Triangulation, t0: number, f0: number): Triangulat
 }
 
 /**
- * The 2–0 move (Matveev 2003, §1.2; inverse of the 0–2 "pillow" insertion): an edge ab of valence 2
- * in two distinct tetrahedra t0 = (a, b, c, d) and t1 bounds a pillow; both are removed and the
- * pillow's two sides are folded shut: the face of t0 opposite a is glued to the face of t1
- * opposite a (and likewise for b) through what used to be there. Returns the new triangulation and
- * the old → new index map; undefined when the edge is not such an edge or the fold closes on itself.
+ * The pillow of an edge of valence 2: its two tetrahedra t0 = (a, b, c, d) with ab the edge, and t1
+ * glued to t0 along the faces opposite c and d; alpha maps t0's vertices to t1's on the pillow's
+ * outside (a, b, d by the gluing of the face opposite c, c by that of the face opposite d).
  */
-export function twoZero(tri: Triangulation, edgeOf: Int32Array, edge: number): { tri: Triangulation; map: Int32Array } | undefined {
+export function pillow(tri: Triangulation, edgeOf: Int32Array, edge: number): { t0: number; t1: number; a: number; b: number; c: number; d: number; alpha: number[] } | undefined {
   const occ: Array<[number, number]> = [];
   for (let t = 0; t < tri.n; t++) for (let k = 0; k < 6; k++) if (edgeOf[6 * t + k] === edge) occ.push([t, k]);
   if (occ.length !== 2 || occ[0]![0] === occ[1]![0]) return undefined;
@@ -112,13 +110,26 @@ export function twoZero(tri: Triangulation, edgeOf: Int32Array, edge: number): {
   if (tri.nbr[4 * t0 + c] !== t1 || tri.nbr[4 * t0 + d] !== t1) return undefined;
   const phi = tri.perm.subarray(16 * t0 + 4 * c, 16 * t0 + 4 * c + 4);
   const psi = tri.perm.subarray(16 * t0 + 4 * d, 16 * t0 + 4 * d + 4);
-  // alpha: t0 → t1 on the pillow's outside: a, b, d by phi; c by psi
   const alpha = [0, 0, 0, 0];
   alpha[a] = phi[a]!;
   alpha[b] = phi[b]!;
   alpha[d] = phi[d]!;
   alpha[c] = psi[c]!;
   if (new Set(alpha).size !== 4) return undefined;
+  return { t0, t1, a, b, c, d, alpha };
+}
+
+/**
+ * The 2–0 move (Matveev 2003, §1.2; inverse of the 0–2 "pillow" insertion): an edge ab of valence 2
+ * in two distinct tetrahedra t0 = (a, b, c, d) and t1 bounds a pillow; both are removed and the
+ * pillow's two sides are folded shut: the face of t0 opposite a is glued to the face of t1
+ * opposite a (and likewise for b) through what used to be there. Returns the new triangulation and
+ * the old → new index map; undefined when the edge is not such an edge or the fold closes on itself.
+ */
+export function twoZero(tri: Triangulation, edgeOf: Int32Array, edge: number): { tri: Triangulation; map: Int32Array } | undefined {
+  const pl = pillow(tri, edgeOf, edge);
+  if (!pl) return undefined;
+  const { t0, t1, alpha } = pl;
   const beta = [0, 0, 0, 0];
   for (let i = 0; i < 4; i++) beta[alpha[i]!] = i;
   const idx = new Int32Array(tri.n).fill(-1);

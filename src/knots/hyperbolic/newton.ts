@@ -16,6 +16,10 @@ export interface NewtonResult {
   residual: number;
   iterations: number;
   converged: boolean;
+  /** Work done, in units of one complex multiply–add: n³/6 per factorization (the dominant cost). */
+  work: number;
+  /** True when the run stopped because `maxWork` was spent. */
+  capped?: boolean;
 }
 
 /** Nearest value to `ref` among a + 2πk (an argument continued along the iteration). */
@@ -130,58 +134,161 @@ export function complexSolve(n: number, Mr: Float64Array, Mi: Float64Array, yr: 
   return true;
 }
 
-/** Gauss–Newton normal equations at (re, im): M = Jᴴ J, y = −Jᴴ F with J = A/z − B/(1 − z). */
-function normalEquations(sys: EquationSystem, re: Float64Array, im: Float64Array, Fr: Float64Array, Fi: Float64Array, Jr: Float64Array, Ji: Float64Array, Mr: Float64Array, Mi: Float64Array, yr: Float64Array, yi: Float64Array): void {
+/**
+ * Solve M x = y for a Hermitian positive definite M (row-major, both triangles filled) by the
+ * complex Cholesky factorization M = L Lᴴ (Golub & Van Loan, "Matrix Computations", §4.2): half
+ * the work of LU and no pivot search. M and y are overwritten (L in the lower triangle, x in y).
+ * False when a pivot is not positive (M not numerically positive definite).
+ */
+export function hermitianSolve(n: number, Mr: Float64Array, Mi: Float64Array, yr: Float64Array, yi: Float64Array): boolean {
+  for (let j = 0; j < n; j++) {
+    const oj = j * n;
+    // d = M[j][j] − Σ_k |L[j][k]|²
+    let d = Mr[oj + j]!;
+    for (let k = 0; k < j; k++) d -= Mr[oj + k]! * Mr[oj + k]! + Mi[oj + k]! * Mi[oj + k]!;
+    if (!(d > 1e-300)) return false;
+    const ljj = Math.sqrt(d);
+    Mr[oj + j] = ljj;
+    Mi[oj + j] = 0;
+    const inv = 1 / ljj;
+    for (let i = j + 1; i < n; i++) {
+      const oi = i * n;
+      // L[i][j] = (M[i][j] − Σ_k L[i][k]·conj(L[j][k])) / L[j][j]
+      let sr = Mr[oi + j]!;
+      let si = Mi[oi + j]!;
+      for (let k = 0; k < j; k++) {
+        const ar = Mr[oi + k]!;
+        const ai = Mi[oi + k]!;
+        const br = Mr[oj + k]!;
+        const bi = Mi[oj + k]!;
+        sr -= ar * br + ai * bi;
+        si -= ai * br - ar * bi;
+      }
+      Mr[oi + j] = sr * inv;
+      Mi[oi + j] = si * inv;
+    }
+  }
+  // L u = y
+  for (let i = 0; i < n; i++) {
+    const oi = i * n;
+    let sr = yr[i]!;
+    let si = yi[i]!;
+    for (let k = 0; k < i; k++) {
+      const lr = Mr[oi + k]!;
+      const li = Mi[oi + k]!;
+      sr -= lr * yr[k]! - li * yi[k]!;
+      si -= lr * yi[k]! + li * yr[k]!;
+    }
+    yr[i] = sr / Mr[oi + i]!;
+    yi[i] = si / Mr[oi + i]!;
+  }
+  // Lᴴ x = u
+  for (let i = n - 1; i >= 0; i--) {
+    let sr = yr[i]!;
+    let si = yi[i]!;
+    for (let k = i + 1; k < n; k++) {
+      // conj(L[k][i]) · x[k]
+      const lr = Mr[k * n + i]!;
+      const li = -Mi[k * n + i]!;
+      sr -= lr * yr[k]! - li * yi[k]!;
+      si -= lr * yi[k]! + li * yr[k]!;
+    }
+    yr[i] = sr / Mr[i * n + i]!;
+    yi[i] = si / Mr[i * n + i]!;
+  }
+  return true;
+}
+
+/** Column indices of the nonzero entries of each row (each edge equation touches few tetrahedra). */
+function rowSupports(sys: EquationSystem): Int32Array[] {
   const { n, rows, A, B } = sys;
-  // J = A/z − B/(1 − z)
+  const out: Int32Array[] = [];
+  for (let r = 0; r < rows; r++) {
+    const cols: number[] = [];
+    for (let t = 0; t < n; t++) if (A[r * n + t] !== 0 || B[r * n + t] !== 0) cols.push(t);
+    out.push(Int32Array.from(cols));
+  }
+  return out;
+}
+
+/**
+ * Gauss–Newton normal equations at (re, im): M = Jᴴ J, y = −Jᴴ F with J = A/z − B/(1 − z),
+ * accumulated over the nonzero entries of each row only (`support`), so the cost is Σ_r nnz_r²
+ * instead of rows·n².
+ */
+function normalEquations(sys: EquationSystem, support: readonly Int32Array[], re: Float64Array, im: Float64Array, Fr: Float64Array, Fi: Float64Array, Jr: Float64Array, Ji: Float64Array, Mr: Float64Array, Mi: Float64Array, yr: Float64Array, yi: Float64Array): void {
+  const { n, rows, A, B } = sys;
+  // 1/z and 1/(1 − z) per tetrahedron
+  const izr = new Float64Array(n);
+  const izi = new Float64Array(n);
+  const iwr = new Float64Array(n);
+  const iwi = new Float64Array(n);
   for (let t = 0; t < n; t++) {
     const zr = re[t]!;
     const zi = im[t]!;
     const dz = zr * zr + zi * zi;
-    const iz_r = zr / dz;
-    const iz_i = -zi / dz;
+    izr[t] = zr / dz;
+    izi[t] = -zi / dz;
     const wr = 1 - zr;
     const wi = -zi;
     const dw = wr * wr + wi * wi;
-    const iw_r = wr / dw;
-    const iw_i = -wi / dw;
-    for (let r = 0; r < rows; r++) {
-      const a = A[r * n + t]!;
-      const b = B[r * n + t]!;
-      Jr[r * n + t] = a * iz_r - b * iw_r;
-      Ji[r * n + t] = a * iz_i - b * iw_i;
-    }
+    iwr[t] = wr / dw;
+    iwi[t] = -wi / dw;
   }
-  // normal equations M = Jᴴ J, y = −Jᴴ F
   Mr.fill(0);
   Mi.fill(0);
   yr.fill(0);
   yi.fill(0);
   for (let r = 0; r < rows; r++) {
     const o = r * n;
+    const cols = support[r]!;
+    const m = cols.length;
+    // J row entries on the support (stored in place in Jr/Ji at the same columns)
+    for (let s = 0; s < m; s++) {
+      const t = cols[s]!;
+      const a = A[o + t]!;
+      const b = B[o + t]!;
+      Jr[o + t] = a * izr[t]! - b * iwr[t]!;
+      Ji[o + t] = a * izi[t]! - b * iwi[t]!;
+    }
     const fr = Fr[r]!;
     const fi = Fi[r]!;
-    for (let p = 0; p < n; p++) {
+    for (let s = 0; s < m; s++) {
+      const p = cols[s]!;
       const ar = Jr[o + p]!;
       const ai = Ji[o + p]!;
-      if (ar === 0 && ai === 0) continue;
       // conj(a) * F
       yr[p] = yr[p]! - (ar * fr + ai * fi);
       yi[p] = yi[p]! - (ar * fi - ai * fr);
-      for (let q = 0; q < n; q++) {
+      const op = p * n;
+      for (let u = 0; u < m; u++) {
+        const q = cols[u]!;
         const br = Jr[o + q]!;
         const bi = Ji[o + q]!;
-        if (br === 0 && bi === 0) continue;
-        Mr[p * n + q] = Mr[p * n + q]! + (ar * br + ai * bi);
-        Mi[p * n + q] = Mi[p * n + q]! + (ar * bi - ai * br);
+        Mr[op + q] = Mr[op + q]! + (ar * br + ai * bi);
+        Mi[op + q] = Mi[op + q]! + (ar * bi - ai * br);
       }
     }
   }
 }
 
+/** Newton step: Cholesky on the Hermitian normal equations; LU with pivoting if that fails (semidefinite M). */
+function solveNormal(n: number, Mr: Float64Array, Mi: Float64Array, yr: Float64Array, yi: Float64Array, Lr: Float64Array, Li: Float64Array, xr: Float64Array, xi: Float64Array): boolean {
+  Lr.set(Mr);
+  Li.set(Mi);
+  xr.set(yr);
+  xi.set(yi);
+  if (hermitianSolve(n, Lr, Li, xr, xi)) return true;
+  Lr.set(Mr);
+  Li.set(Mi);
+  xr.set(yr);
+  xi.set(yi);
+  return complexSolve(n, Lr, Li, xr, xi);
+}
+
 /** Newton iteration from the given start (modified in place copies). */
-export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60): NewtonResult {
-  const { n, rows, A, B } = sys;
+export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60, maxWork = Infinity): NewtonResult {
+  const { n, rows } = sys;
   const re = Float64Array.from(startRe);
   const im = Float64Array.from(startIm);
   const Fr = new Float64Array(rows);
@@ -197,10 +304,23 @@ export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm:
   const tim = new Float64Array(n);
   const tFr = new Float64Array(rows);
   const tFi = new Float64Array(rows);
+  const support = rowSupports(sys);
+  const Lr = new Float64Array(n * n);
+  const Li = new Float64Array(n * n);
+  const y0r = new Float64Array(n);
+  const y0i = new Float64Array(n);
+  const unit = (n * n * n) / 6;
+  let work = 0;
+  let capped = false;
   let it = 0;
   for (; it < maxIter && res > tol; it++) {
-    normalEquations(sys, re, im, Fr, Fi, Jr, Ji, Mr, Mi, yr, yi);
-    if (!complexSolve(n, Mr, Mi, yr, yi)) break;
+    if (work + unit > maxWork) {
+      capped = true;
+      break;
+    }
+    normalEquations(sys, support, re, im, Fr, Fi, Jr, Ji, Mr, Mi, y0r, y0i);
+    work += unit;
+    if (!solveNormal(n, Mr, Mi, y0r, y0i, Lr, Li, yr, yi)) break;
     // step, halved until it stays in the upper half-plane and the residual does not grow much
     let alpha = 1;
     let accepted = false;
@@ -227,7 +347,7 @@ export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm:
     }
     if (!accepted) break;
   }
-  return { re, im, residual: res, iterations: it, converged: res <= tol };
+  return { re, im, residual: res, iterations: it, converged: res <= tol, work, capped: capped && res > tol };
 }
 
 const sumSquares = (a: Float64Array, b: Float64Array): number => {
@@ -244,7 +364,7 @@ const sumSquares = (a: Float64Array, b: Float64Array): number => {
  * form, not necessarily with principal arguments; `flip.ts` and the final check in the half-plane
  * decide what it is worth. Steps are accepted only when Σ|F|² decreases.
  */
-export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60): NewtonResult {
+export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60, maxWork = Infinity): NewtonResult {
   const { n, rows } = sys;
   const re = Float64Array.from(startRe);
   const im = Float64Array.from(startIm);
@@ -272,18 +392,27 @@ export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, star
   const tim = new Float64Array(n);
   const tFr = new Float64Array(rows);
   const tFi = new Float64Array(rows);
+  const support = rowSupports(sys);
+  const Lr = new Float64Array(n * n);
+  const Li = new Float64Array(n * n);
   let lambda = 1e-3;
+  const unit = (n * n * n) / 6;
+  let work = 0;
+  let capped = false;
   let it = 0;
-  for (; it < maxIter && res > tol; it++) {
-    normalEquations(sys, re, im, Fr, Fi, Jr, Ji, M0, M1, y0r, y0i);
+  for (; it < maxIter && res > tol && !capped; it++) {
+    normalEquations(sys, support, re, im, Fr, Fi, Jr, Ji, M0, M1, y0r, y0i);
     let accepted = false;
     for (let h = 0; h < 12 && !accepted; h++) {
+      if (work + unit > maxWork) {
+        capped = true;
+        break;
+      }
+      work += unit;
       Mr.set(M0);
       Mi.set(M1);
       for (let p = 0; p < n; p++) Mr[p * n + p] = M0[p * n + p]! * (1 + lambda);
-      yr.set(y0r);
-      yi.set(y0i);
-      if (!complexSolve(n, Mr, Mi, yr, yi)) {
+      if (!solveNormal(n, Mr, Mi, y0r, y0i, Lr, Li, yr, yi)) {
         lambda *= 10;
         continue;
       }
@@ -316,5 +445,5 @@ export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, star
     }
     if (!accepted) break;
   }
-  return { re, im, residual: res, iterations: it, converged: res <= tol };
+  return { re, im, residual: res, iterations: it, converged: res <= tol, work, capped: capped && res > tol };
 }

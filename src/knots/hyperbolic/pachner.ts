@@ -60,85 +60,135 @@ export interface MovedShapes {
   map: Int32Array;
 }
 
+/** The checked plan of a move: old tetrahedra with their labels, new label quadruples (oriented), boundary faces. */
+interface BallPlan {
+  olds: readonly number[];
+  labels: readonly (readonly number[])[];
+  news: number[][];
+  /** Boundary face (bit mask of its three labels, < 32) → 4·j + f for old tetrahedron j and its face f, or −1. */
+  ext: Int8Array;
+}
+
+/** Bit mask of the labels of the face opposite position F of a label quadruple (labels 0..4). */
+const faceMask = (L: readonly number[], F: number): number => {
+  let m = 0;
+  for (let i = 0; i < 4; i++) if (i !== F) m |= 1 << L[i]!;
+  return m;
+};
+
+/** Index of the new tetrahedron other than J that contains the face of mask `mask`, or −1. */
+function sharedWith(news: readonly number[][], J: number, mask: number): number {
+  for (let K = 0; K < news.length; K++) {
+    if (K === J) continue;
+    const S = news[K]!;
+    const all = (1 << S[0]!) | (1 << S[1]!) | (1 << S[2]!) | (1 << S[3]!);
+    if ((all & mask) === mask) return K;
+  }
+  return -1;
+}
+
 /**
- * Replace the tetrahedra `olds` (vertex i of olds[j] carries label labels[j][i]) by tetrahedra with
- * the given label quadruples, gluing each new face to the old boundary face with the same labels or
- * to the other new tetrahedron with those labels. Undefined when the old tetrahedra do not form a
- * ball with these labels (a boundary face glued to the ball itself, inconsistent labels).
+ * Check that the tetrahedra `olds` (vertex i of olds[j] carries label labels[j][i], labels 0..4)
+ * form a ball that the tetrahedra with the label quadruples `news` fill with the same boundary, and
+ * orient each new tetrahedron like the old one it meets on the boundary (`news` is changed in
+ * place). Undefined when they do not (a boundary face glued to the ball itself, inconsistent
+ * labels). Costs O(1) in the size of the triangulation.
  */
-function replaceBall(tri: Triangulation, olds: readonly number[], labels: readonly (readonly number[])[], news: number[][]): { tri: Triangulation; map: Int32Array } | undefined {
-  const { n, nbr, perm } = tri;
-  const which = new Map<number, number>();
-  olds.forEach((t, j) => which.set(t, j));
-  if (which.size !== olds.length) return undefined;
-  const key = (ls: number[]): string => ls.sort((a, b) => a - b).join(',');
-  const ext = new Map<string, { j: number; f: number }>();
+function planBall(tri: Triangulation, olds: readonly number[], labels: readonly (readonly number[])[], news: number[][]): BallPlan | undefined {
+  const { nbr, perm } = tri;
+  const jOf = (u: number): number => olds.indexOf(u);
+  for (let j = 0; j < olds.length; j++) if (jOf(olds[j]!) !== j) return undefined;
+  const ext = new Int8Array(32).fill(-1);
+  let nExt = 0;
   for (let j = 0; j < olds.length; j++) {
     const t = olds[j]!;
     const L = labels[j]!;
-    if (new Set(L).size !== 4) return undefined;
+    if ((1 << L[0]!) + (1 << L[1]!) + (1 << L[2]!) + (1 << L[3]!) !== ((1 << L[0]!) | (1 << L[1]!) | (1 << L[2]!) | (1 << L[3]!))) return undefined;
     for (let f = 0; f < 4; f++) {
       const u = nbr[4 * t + f]!;
-      const face = [0, 1, 2, 3].filter((i) => i !== f);
-      const ju = which.get(u);
-      if (ju !== undefined) {
+      const ju = jOf(u);
+      if (ju >= 0) {
         const Lu = labels[ju]!;
-        for (const i of face) if (Lu[perm[16 * t + 4 * f + i]!] !== L[i]) return undefined;
+        for (let i = 0; i < 4; i++) if (i !== f && Lu[perm[16 * t + 4 * f + i]!] !== L[i]) return undefined;
         continue;
       }
-      const k = key(face.map((i) => L[i]!));
-      if (ext.has(k)) return undefined;
-      ext.set(k, { j, f });
-    }
-  }
-  const m = n - olds.length + news.length;
-  const map = new Int32Array(n).fill(-1);
-  let c = 0;
-  for (let u = 0; u < n; u++) if (!which.has(u)) map[u] = c++;
-  const base = c;
-  const nn = new Int32Array(4 * m);
-  const pp = new Uint8Array(16 * m);
-  for (let u = 0; u < n; u++) {
-    if (which.has(u)) continue;
-    for (let g = 0; g < 4; g++) {
-      const w = nbr[4 * u + g]!;
-      nn[4 * map[u]! + g] = which.has(w) ? -1 : map[w]!;
-      for (let i = 0; i < 4; i++) pp[16 * map[u]! + 4 * g + i] = perm[16 * u + 4 * g + i]!;
+      const k = faceMask(L, f);
+      if (ext[k] !== -1) return undefined;
+      ext[k] = 4 * j + f;
+      nExt++;
     }
   }
   // orient each new tetrahedron like the old one it meets on the boundary
   for (const T of news) {
-    const faceF = [0, 1, 2, 3].find((F) => ext.has(key(T.filter((_, i) => i !== F))));
-    if (faceF === undefined) return undefined;
-    const { j, f } = ext.get(key(T.filter((_, i) => i !== faceF)))!;
-    const L = labels[j]!;
-    const p = T.map((l, i) => (i === faceF ? f : L.indexOf(l)));
+    let faceF = -1;
+    for (let F = 0; F < 4 && faceF < 0; F++) if (ext[faceMask(T, F)] !== -1) faceF = F;
+    if (faceF < 0) return undefined;
+    const e = ext[faceMask(T, faceF)]!;
+    const L = labels[e >> 2]!;
+    const p = T.map((l, i) => (i === faceF ? e & 3 : L.indexOf(l)));
     let inv = 0;
     for (let a = 0; a < 4; a++) for (let b = a + 1; b < 4; b++) if (p[a]! > p[b]!) inv++;
     if (inv % 2 === 1) [T[0], T[1]] = [T[1]!, T[0]!];
   }
-  const used = new Set<string>();
+  // every face of a new tetrahedron is shared with another new one or is a boundary face, used once
+  let used = 0;
+  let nUsed = 0;
+  for (let J = 0; J < news.length; J++) {
+    const T = news[J]!;
+    for (let F = 0; F < 4; F++) {
+      const k = faceMask(T, F);
+      if (sharedWith(news, J, k) >= 0) continue;
+      if (ext[k] === -1 || used & (1 << k)) return undefined;
+      used |= 1 << k;
+      nUsed++;
+    }
+  }
+  if (nUsed !== nExt) return undefined;
+  return { olds, labels, news, ext };
+}
+
+/** Carry out a checked plan: the new triangulation (O(n)) and the old → new index map. */
+function buildBall(tri: Triangulation, plan: BallPlan): { tri: Triangulation; map: Int32Array } {
+  const { n, nbr, perm } = tri;
+  const { olds, labels, news, ext } = plan;
+  const m = n - olds.length + news.length;
+  const map = new Int32Array(n).fill(-1);
+  const gone = new Uint8Array(n);
+  for (const t of olds) gone[t] = 1;
+  let c = 0;
+  for (let u = 0; u < n; u++) if (!gone[u]) map[u] = c++;
+  const base = c;
+  const nn = new Int32Array(4 * m);
+  const pp = new Uint8Array(16 * m);
+  for (let u = 0; u < n; u++) {
+    if (gone[u]) continue;
+    const mu = map[u]!;
+    for (let g = 0; g < 4; g++) {
+      const w = nbr[4 * u + g]!;
+      nn[4 * mu + g] = gone[w] ? -1 : map[w]!;
+    }
+    pp.set(perm.subarray(16 * u, 16 * u + 16), 16 * mu);
+  }
   for (let J = 0; J < news.length; J++) {
     const T = news[J]!;
     const tJ = base + J;
     for (let F = 0; F < 4; F++) {
-      const fl = T.filter((_, i) => i !== F);
-      const k = key([...fl]);
-      const other = news.findIndex((S, K) => K !== J && fl.every((l) => S.includes(l)));
+      const k = faceMask(T, F);
+      const other = sharedWith(news, J, k);
       if (other >= 0) {
         const S = news[other]!;
         nn[4 * tJ + F] = base + other;
-        for (let i = 0; i < 4; i++) pp[16 * tJ + 4 * F + i] = i === F ? S.findIndex((l) => !fl.includes(l)) : S.indexOf(T[i]!);
+        for (let i = 0; i < 4; i++) pp[16 * tJ + 4 * F + i] = i === F ? S.findIndex((l) => !(k & (1 << l))) : S.indexOf(T[i]!);
         continue;
       }
-      const e = ext.get(k);
-      if (!e || used.has(k)) return undefined;
-      used.add(k);
-      const t = olds[e.j]!;
-      const L = labels[e.j]!;
-      const u = nbr[4 * t + e.f]!;
+      const e = ext[k]!;
+      const j = e >> 2;
+      const f = e & 3;
+      const t = olds[j]!;
+      const L = labels[j]!;
+      const u = nbr[4 * t + f]!;
       const q = [0, 0, 0, 0];
-      for (let i = 0; i < 4; i++) q[i] = perm[16 * t + 4 * e.f + (i === F ? e.f : L.indexOf(T[i]!))]!;
+      for (let i = 0; i < 4; i++) q[i] = perm[16 * t + 4 * f + (i === F ? f : L.indexOf(T[i]!))]!;
       nn[4 * tJ + F] = map[u]!;
       for (let i = 0; i < 4; i++) pp[16 * tJ + 4 * F + i] = q[i]!;
       const g = q[F]!;
@@ -146,12 +196,24 @@ function replaceBall(tri: Triangulation, olds: readonly number[], labels: readon
       for (let i = 0; i < 4; i++) pp[16 * map[u]! + 4 * g + q[i]!] = i;
     }
   }
-  if (used.size !== ext.size) return undefined;
   return { tri: { n: m, nbr: nn, perm: pp }, map };
 }
 
-/** Shapes of the new tetrahedra from the positions of the labels; undefined when one is degenerate. */
-function carry(tri: Triangulation, re: Float64Array, im: Float64Array, moved: { tri: Triangulation; map: Int32Array }, pos: readonly C[], news: readonly number[][]): MovedShapes | undefined {
+/** Shapes of the new tetrahedra (label quadruples `news`) from the positions of the labels; undefined when one is degenerate. */
+function newShapes(pos: readonly C[], news: readonly number[][]): { re: Float64Array; im: Float64Array } | undefined {
+  const re = new Float64Array(news.length);
+  const im = new Float64Array(news.length);
+  for (let J = 0; J < news.length; J++) {
+    const z = crossRatio01(news[J]!.map((l) => pos[l]!));
+    if (!Number.isFinite(z[0]) || !Number.isFinite(z[1]) || Math.hypot(z[0], z[1]) < 1e-12 || Math.hypot(1 - z[0], z[1]) < 1e-12) return undefined;
+    re[J] = z[0];
+    im[J] = z[1];
+  }
+  return { re, im };
+}
+
+/** The old shapes moved to their new places and the new tetrahedra's shapes appended (they come last). */
+function carry(tri: Triangulation, re: Float64Array, im: Float64Array, moved: { tri: Triangulation; map: Int32Array }, fresh: { re: Float64Array; im: Float64Array }): MovedShapes {
   const m = moved.tri.n;
   const nre = new Float64Array(m);
   const nim = new Float64Array(m);
@@ -160,44 +222,51 @@ function carry(tri: Triangulation, re: Float64Array, im: Float64Array, moved: { 
       nre[moved.map[u]!] = re[u]!;
       nim[moved.map[u]!] = im[u]!;
     }
-  const base = m - news.length;
-  for (let J = 0; J < news.length; J++) {
-    const z = crossRatio01(news[J]!.map((l) => pos[l]!));
-    if (!Number.isFinite(z[0]) || !Number.isFinite(z[1]) || Math.hypot(z[0], z[1]) < 1e-12 || Math.hypot(1 - z[0], z[1]) < 1e-12) return undefined;
-    nre[base + J] = z[0];
-    nim[base + J] = z[1];
-  }
+  nre.set(fresh.re, m - fresh.re.length);
+  nim.set(fresh.im, m - fresh.im.length);
   return { tri: moved.tri, re: nre, im: nim, map: moved.map };
+}
+
+/** Positions of the four vertices (in order) of an ideal tetrahedron of shape z, in general position. */
+export function placeTetrahedron(z: C): C[] {
+  const p: Array<C | undefined> = [[0.3, -1.7], [0, 0], [1, 0], undefined];
+  p[3] = placeVertex(p, z, 3);
+  return p as C[];
 }
 
 /** Positions of the four vertices of tetrahedron t (labels L) from its shape, in general position. */
 function seed(re: Float64Array, im: Float64Array, t: number, L: readonly number[]): C[] {
   const pos: C[] = [];
-  const p: Array<C | undefined> = [[0.3, -1.7], [0, 0], [1, 0], undefined];
-  p[3] = placeVertex(p, [re[t]!, im[t]!], 3);
+  const p = placeTetrahedron([re[t]!, im[t]!]);
   for (let i = 0; i < 4; i++) pos[L[i]!] = p[i]!;
   return pos;
 }
 
-/** 2–3 move on face f0 of t0 (shapes carried when given) (t0 and its neighbour there are replaced by three tetrahedra around a new edge). */
-export function twoThreeShapes(tri: Triangulation, re: Float64Array | undefined, im: Float64Array | undefined, t0: number, f0: number): MovedShapes | undefined {
+/**
+ * A move looked at before it is made: the tetrahedra it removes and the shapes of the ones it adds
+ * (exactly those `apply` gives them), at O(1) cost; `apply` builds the new triangulation (O(n)).
+ */
+export interface MovePreview {
+  olds: readonly number[];
+  re: Float64Array;
+  im: Float64Array;
+  apply(): MovedShapes;
+}
+
+/** The plan of a 2–3 move on face f0 of t0: t0 (labels 0..3) and its neighbour (the far vertex labelled 4). */
+function planTwoThree(tri: Triangulation, t0: number, f0: number): { plan: BallPlan; L1: number[] } | undefined {
   const t1 = tri.nbr[4 * t0 + f0]!;
   if (t1 === t0) return undefined;
   const L0 = [0, 1, 2, 3];
   const L1 = [-1, -1, -1, -1];
   for (let i = 0; i < 4; i++) L1[tri.perm[16 * t0 + 4 * f0 + i]!] = i === f0 ? 4 : i;
   const news = [0, 1, 2, 3].filter((z) => z !== f0).map((z) => L0.map((l) => (l === z ? 4 : l)));
-  const moved = replaceBall(tri, [t0, t1], [L0, L1], news);
-  if (!moved) return undefined;
-  if (!re || !im) return { ...moved, re: new Float64Array(0), im: new Float64Array(0) };
-  const pos = seed(re, im, t0, L0);
-  const k = L1.indexOf(4);
-  pos[4] = placeVertex(L1.map((l) => (l === 4 ? undefined : pos[l])), [re[t1]!, im[t1]!], k);
-  return carry(tri, re, im, moved, pos, news);
+  const plan = planBall(tri, [t0, t1], [L0, L1], news);
+  return plan && { plan, L1 };
 }
 
-/** 3–2 move on the edge (a, b) of t0 when that edge has valence 3 in three distinct tetrahedra. */
-export function threeTwoShapes(tri: Triangulation, re: Float64Array | undefined, im: Float64Array | undefined, t0: number, a: number, b: number): MovedShapes | undefined {
+/** The plan of a 3–2 move on the edge (a, b) of t0 (labels 0, 1 on the edge, 2, 3 on t0's other vertices, 4 beyond). */
+function planThreeTwo(tri: Triangulation, t0: number, a: number, b: number): { plan: BallPlan; L1: number[] } | undefined {
   const [c, d] = [0, 1, 2, 3].filter((x) => x !== a && x !== b) as [number, number];
   const L0 = [0, 0, 0, 0];
   L0[a] = 0;
@@ -220,10 +289,69 @@ export function threeTwoShapes(tri: Triangulation, re: Float64Array | undefined,
     [2, 3, 4, 0],
     [2, 3, 4, 1],
   ];
-  const moved = replaceBall(tri, [t0, t1, t2], [L0, L1, L2], news);
-  if (!moved) return undefined;
-  if (!re || !im) return { ...moved, re: new Float64Array(0), im: new Float64Array(0) };
-  const pos = seed(re, im, t0, L0);
+  const plan = planBall(tri, [t0, t1, t2], [L0, L1, L2], news);
+  return plan && { plan, L1 };
+}
+
+/** Preview of a planned move with shapes: label positions from the first two old tetrahedra, new shapes as cross ratios. */
+function preview(tri: Triangulation, re: Float64Array, im: Float64Array, planned: { plan: BallPlan; L1: number[] } | undefined): MovePreview | undefined {
+  if (!planned) return undefined;
+  const { plan, L1 } = planned;
+  const [t0, t1] = plan.olds as [number, number];
+  const pos = seed(re, im, t0, plan.labels[0]!);
   pos[4] = placeVertex(L1.map((l) => (l === 4 ? undefined : pos[l])), [re[t1]!, im[t1]!], L1.indexOf(4));
-  return carry(tri, re, im, moved, pos, news);
+  const fresh = newShapes(pos, plan.news);
+  if (!fresh) return undefined;
+  return { olds: plan.olds, re: fresh.re, im: fresh.im, apply: () => carry(tri, re, im, buildBall(tri, plan), fresh) };
+}
+
+/**
+ * A move as labels: old tetrahedron olds[j] has label labels[j][i] at vertex i; the new tetrahedra
+ * (indices n − olds.length + J of the new triangulation) have labels news[J] — enough to carry
+ * shapes either way (`carryback.ts`).
+ */
+export interface BallMove {
+  olds: readonly number[];
+  labels: readonly (readonly number[])[];
+  news: readonly (readonly number[])[];
+}
+
+/** 2–3 move on face f0 of t0 (t0 and its neighbour there are replaced by three tetrahedra around a new edge), without shapes. */
+export function twoThreeMove(tri: Triangulation, t0: number, f0: number): { tri: Triangulation; map: Int32Array; ball: BallMove } | undefined {
+  const p = planTwoThree(tri, t0, f0);
+  return p && { ...buildBall(tri, p.plan), ball: p.plan };
+}
+
+/** 3–2 move on the edge (a, b) of t0 when that edge has valence 3 in three distinct tetrahedra, without shapes. */
+export function threeTwoMove(tri: Triangulation, t0: number, a: number, b: number): { tri: Triangulation; map: Int32Array; ball: BallMove } | undefined {
+  const p = planThreeTwo(tri, t0, a, b);
+  return p && { ...buildBall(tri, p.plan), ball: p.plan };
+}
+
+/** Preview of the 2–3 move on face f0 of t0 with its shapes carried. */
+export function twoThreePreview(tri: Triangulation, re: Float64Array, im: Float64Array, t0: number, f0: number): MovePreview | undefined {
+  return preview(tri, re, im, planTwoThree(tri, t0, f0));
+}
+
+/** Preview of the 3–2 move on the edge (a, b) of t0 with its shapes carried. */
+export function threeTwoPreview(tri: Triangulation, re: Float64Array, im: Float64Array, t0: number, a: number, b: number): MovePreview | undefined {
+  return preview(tri, re, im, planThreeTwo(tri, t0, a, b));
+}
+
+/** 2–3 move on face f0 of t0 (shapes carried when given) (t0 and its neighbour there are replaced by three tetrahedra around a new edge). */
+export function twoThreeShapes(tri: Triangulation, re: Float64Array | undefined, im: Float64Array | undefined, t0: number, f0: number): MovedShapes | undefined {
+  if (!re || !im) {
+    const moved = twoThreeMove(tri, t0, f0);
+    return moved && { ...moved, re: new Float64Array(0), im: new Float64Array(0) };
+  }
+  return twoThreePreview(tri, re, im, t0, f0)?.apply();
+}
+
+/** 3–2 move on the edge (a, b) of t0 when that edge has valence 3 in three distinct tetrahedra. */
+export function threeTwoShapes(tri: Triangulation, re: Float64Array | undefined, im: Float64Array | undefined, t0: number, a: number, b: number): MovedShapes | undefined {
+  if (!re || !im) {
+    const moved = threeTwoMove(tri, t0, a, b);
+    return moved && { ...moved, re: new Float64Array(0), im: new Float64Array(0) };
+  }
+  return threeTwoPreview(tri, re, im, t0, a, b)?.apply();
 }

@@ -21,6 +21,7 @@ import { flipToGeometric } from './flip.ts';
 import { simplifyTriangulation } from './simplify.ts';
 import { placeMeridians } from './peripheral.ts';
 import { Rng } from '../../util/rng.ts';
+import { carryBackOne, type MoveRecord } from './carryback.ts';
 
 export interface SearchOptions {
   /** Base triangulations tried (different collapsed arcs). */
@@ -29,14 +30,24 @@ export interface SearchOptions {
   maxSolves: number;
   /** Smallest imaginary part accepted as positively oriented. */
   minIm: number;
-  /** Simplifications (with different random 2–3 moves) tried per base triangulation. */
+  /**
+   * Rounds per base triangulation: 1 = everything simplified (moves recorded), 2 = simplified
+   * with the meridians' tetrahedra kept, 3 = the triangulation from the diagram itself.
+   */
   rounds: number;
+  /** Base triangulations on which the third round (no simplification) is tried. */
+  unsimplifiedBases: number;
   /** Random 2–3 moves used to leave a local minimum of the tetrahedron count. */
   kicks: number;
   /** 2–3 / 3–2 moves allowed when carrying a solution with negative tetrahedra to a geometric one. */
   flipBudget: number;
+  /**
+   * Effort cap: solver work for the whole search, in complex multiply–adds of the factorizations
+   * (n³/6 each, `newton.ts`). Deterministic, so a row's status does not depend on the machine.
+   */
+  maxWork: number;
 }
-export const SEARCH_DEFAULTS: SearchOptions = { maxTriangulations: 6, maxSolves: 30, minIm: 1e-7, rounds: 2, kicks: 20, flipBudget: 120 };
+export const SEARCH_DEFAULTS: SearchOptions = { maxTriangulations: 6, maxSolves: 30, minIm: 1e-7, rounds: 3, unsimplifiedBases: 1, kicks: 20, flipBudget: 120, maxWork: 6e7 };
 
 export interface GeometricSolution {
   tri: Triangulation;
@@ -57,10 +68,15 @@ export interface GeometricSolution {
    * allowed) of which the geometric one is the carried image.
    */
   cuspSource?: { tri: Triangulation; cb: Combinatorics; re: Float64Array; im: Float64Array; map: Int32Array };
+  /** The meridians were simplified away and the solution could not be carried back to them. */
+  cuspLost?: boolean;
 }
 
 export interface SearchFailure {
   solves: number;
+  /** Solver work spent (see `SearchOptions.maxWork`); `capped` when the cap ended the search. */
+  work: number;
+  capped: boolean;
   triangulations: number;
   /** Best (largest) min Im z reached, for the reason text. */
   best: number;
@@ -75,6 +91,11 @@ interface Candidate {
   map: Int32Array;
   moves: number;
   base: number;
+  /**
+   * When `tri` was simplified with nothing frozen: the triangulation the meridians were placed on
+   * and the recorded moves from it to `tri`, to carry a solution back for the cusp.
+   */
+  back?: { tri: Triangulation; map: Int32Array; moves: MoveRecord[]; info: PDInfo };
 }
 
 const regular = (n: number): [Float64Array, Float64Array] => [new Float64Array(n).fill(0.5), new Float64Array(n).fill(Math.sqrt(3) / 2)];
@@ -85,7 +106,8 @@ const regular = (n: number): [Float64Array, Float64Array] => [new Float64Array(n
  * 2–3 / 3–2 moves that carry the solution to a triangulation where it is geometric (`flip.ts`),
  * confirmed by Newton's method in the half-plane from the carried shapes.
  */
-function trySolve(c: Candidate, opts: SearchOptions, frozen: readonly number[], cusps: number, rng: Rng): { sol?: GeometricSolution; minIm: number; solves: number; negative: boolean } {
+function trySolve(c: Candidate, opts: SearchOptions, cusps: number, rng: Rng, budget: Budget): { sol?: GeometricSolution; minIm: number; solves: number; negative: boolean } {
+  const solveOn = (tri: Triangulation, re: Float64Array, im: Float64Array, free: boolean): ReturnType<typeof solveWithin> => solveWithin(tri, re, im, free, budget);
   const first = solveOn(c.tri, ...regular(c.tri.n), false);
   if (!first) return { minIm: -Infinity, solves: 0, negative: false };
   const make = (tri: Triangulation, r: NewtonResult & { cb: Combinatorics }, map: Int32Array, moves: number): GeometricSolution => ({
@@ -101,7 +123,33 @@ function trySolve(c: Candidate, opts: SearchOptions, frozen: readonly number[], 
     unsimplified: c.unsimplified,
   });
   const minOf = (im: Float64Array): number => im.reduce((a, b) => Math.min(a, b), Infinity);
-  if (first.converged && minOf(first.im) > opts.minIm) return { sol: make(c.tri, first, c.map, 0), minIm: minOf(first.im), solves: 1, negative: false };
+  // with the meridians simplified away, the cusp is read where they are: the solution on c.tri
+  // (same representation as the geometric one) carried back through the recorded moves
+  const withCusp = (sol: GeometricSolution, src: { re: Float64Array; im: Float64Array; cb: Combinatorics }): GeometricSolution => {
+    if (!c.back) {
+      sol.cuspSource = { tri: c.tri, cb: src.cb, re: src.re, im: src.im, map: c.map };
+      return sol;
+    }
+    // back along the recorded moves only as far as the first triangulation where every meridian can be placed
+    const { moves, info } = c.back;
+    let shapes: { re: Float64Array; im: Float64Array } | undefined = src;
+    for (let k = moves.length; k >= 0 && shapes; k--) {
+      const tri = k === 0 ? c.back.tri : moves[k - 1]!.after;
+      const map = k === 0 ? c.back.map : moves[k - 1]!.track!;
+      if (typeof placeMeridians(info, tri, map) !== 'string') {
+        sol.cuspSource = { tri, cb: combinatorics(tri), re: shapes.re, im: shapes.im, map };
+        return sol;
+      }
+      if (k > 0) shapes = carryBackOne(moves[k - 1]!, shapes.re, shapes.im);
+      if (process.env.HSPEED_DEBUG && !shapes) console.error(`carry back failed at move ${k - 1} of ${moves.length}: ${moves[k - 1]!.kind} ${moves[k - 1]!.kind === 'twoZero' ? (moves[k - 1] as { invertible: boolean }).invertible : ''}`);
+    }
+    sol.cuspLost = true;
+    return sol;
+  };
+  if (first.converged && minOf(first.im) > opts.minIm) {
+    const sol = make(c.tri, first, c.map, 0);
+    return { sol: c.back ? withCusp(sol, first) : sol, minIm: minOf(first.im), solves: 1, negative: false };
+  }
   // continue from where the half-plane iteration stopped (usually at the boundary, next to a
   // solution with a few negatively oriented tetrahedra); else from the regular start
   let free = solveOn(c.tri, first.re, first.im, true);
@@ -112,15 +160,22 @@ function trySolve(c: Candidate, opts: SearchOptions, frozen: readonly number[], 
   const polished = solveOn(flipped.tri, flipped.re, flipped.im, false);
   if (polished && polished.converged && minOf(polished.im) > opts.minIm) {
     // the cusp is read where the meridians are (same representation, carried by the moves)
-    const sol = make(flipped.tri, polished, flipped.map, flipped.moves);
-    sol.cuspSource = { tri: c.tri, cb: free.cb, re: free.re, im: free.im, map: c.map };
+    const sol = withCusp(make(flipped.tri, polished, flipped.map, flipped.moves), free);
     return { sol, minIm: minOf(polished.im), solves: 3, negative: true };
   }
   return { minIm: minOf(free.im), solves: 3, negative: true };
 }
 
-/** Gluing and completeness equations of a triangulation solved from the given start. */
-function solveOn(tri: Triangulation, re: Float64Array, im: Float64Array, free: boolean): (NewtonResult & { cb: Combinatorics }) | undefined {
+/** Solver work spent and allowed (`SearchOptions.maxWork`). */
+interface Budget {
+  work: number;
+  max: number;
+  /** A solver stopped for want of work left. */
+  capped: boolean;
+}
+
+/** Gluing and completeness equations of a triangulation solved from the given start, within the budget. */
+function solveWithin(tri: Triangulation, re: Float64Array, im: Float64Array, free: boolean, budget: Budget): (NewtonResult & { cb: Combinatorics }) | undefined {
   const cb = combinatorics(tri);
   let curves: Passage[][];
   try {
@@ -129,7 +184,11 @@ function solveOn(tri: Triangulation, re: Float64Array, im: Float64Array, free: b
     return undefined;
   }
   const sys = gluingEquations(tri, cb, curves);
-  return { ...(free ? solveShapesFree(sys, re, im) : solveShapes(sys, re, im)), cb };
+  const left = budget.max - budget.work;
+  const r = free ? solveShapesFree(sys, re, im, undefined, undefined, left) : solveShapes(sys, re, im, undefined, undefined, left);
+  budget.work += r.work;
+  if (r.capped) budget.capped = true;
+  return { ...r, cb };
 }
 
 /** Search for a geometric solution; the failure says how far it got. */
@@ -138,28 +197,43 @@ export function findGeometricSolution(info: PDInfo, cusps: number, opts: SearchO
   let bases = 0;
   let best = -Infinity;
   let negativeSolutions = 0;
+  const budget: Budget = { work: 0, max: opts.maxWork, capped: false };
   const rng = new Rng(0x5eed);
+  // a geometric solution whose cusp cannot be measured, kept in case no other is found
+  let lost: GeometricSolution | undefined;
   for (const lt of linkTriangulations(info, cusps)) {
-    if (bases >= opts.maxTriangulations || solves >= opts.maxSolves) break;
+    if (bases >= opts.maxTriangulations || solves >= opts.maxSolves || budget.capped) break;
     bases++;
     // edges of valence ≤ 2 (bigons of the diagram) force flat tetrahedra: 2–0 moves remove them
     const low = removeLowValence(lt.tri, lt.keptIndex, cusps);
     // the tetrahedra that carry the meridians stay as they are; the rest is simplified
     const places = placeMeridians(info, low.tri, low.map);
     const frozen = typeof places === 'string' ? [] : places.flatMap((p) => [4 * p.c + p.j, 4 * p.c + ((p.j + 1) & 3)]);
-    for (let round = 0; round < opts.rounds && solves < opts.maxSolves; round++) {
-      // round 1 keeps the triangulation from the diagram (only the 2–0 moves): long twist regions
-      // often have a geometric solution there and none after simplification
-      const sm = round === 1 ? low : simplifyTriangulation({ tri: low.tri, map: low.map }, frozen, cusps, rng, round === 0 ? opts.kicks : 2 * opts.kicks);
-      const c: Candidate = { tri: sm.tri, map: sm.map, moves: low.moves, base: lt.attempt, unsimplified: lt };
-      const r = trySolve(c, opts, frozen, cusps, rng);
+    // round 0 simplifies everything (recording the moves, to carry the solution back to the
+    // meridians); round 1 keeps the meridians' tetrahedra; round 2 keeps the triangulation from
+    // the diagram (only the 2–0 moves): long twist regions are often geometric only there. The
+    // unsimplified triangulation (large) is tried on the first base only: on the bench diagrams
+    // it never gave a solution on another base.
+    const rounds = bases <= opts.unsimplifiedBases ? opts.rounds : Math.min(opts.rounds, 2);
+    for (let round = 0; round < rounds && solves < opts.maxSolves && !budget.capped; round++) {
+      let c: Candidate;
+      if (round === 0) {
+        const sm = simplifyTriangulation({ tri: low.tri, map: low.map }, [], cusps, rng, opts.kicks, true);
+        c = { tri: sm.tri, map: sm.map, moves: low.moves, base: lt.attempt, unsimplified: lt, back: { tri: low.tri, map: low.map, moves: sm.moves!, info } };
+      } else {
+        const sm = round === 2 ? low : simplifyTriangulation({ tri: low.tri, map: low.map }, frozen, cusps, rng, opts.kicks);
+        c = { tri: sm.tri, map: sm.map, moves: low.moves, base: lt.attempt, unsimplified: lt };
+      }
+      const r = trySolve(c, opts, cusps, rng, budget);
       solves += r.solves;
-      if (r.sol) return { ...r.sol, solves };
+      if (r.sol && r.sol.cuspLost) lost ??= { ...r.sol, solves };
+      else if (r.sol) return { ...r.sol, solves };
       if (r.negative) negativeSolutions++;
       best = Math.max(best, r.minIm);
     }
   }
-  return { solves, triangulations: bases, best, negativeSolutions };
+  if (lost) return { ...lost, solves };
+  return { solves, triangulations: bases, best, negativeSolutions, work: budget.work, capped: budget.capped };
 }
 
 /** Repeated 2–0 moves on edges of valence ≤ 2, each kept only if the result is still a cusped triangulation. */

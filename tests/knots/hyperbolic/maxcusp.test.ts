@@ -7,7 +7,7 @@ import { findGeometricSolution } from '../../../src/knots/hyperbolic/search.ts';
 import { removeKinks } from '../../../src/knots/hyperbolic/kinks.ts';
 import { analysePD, type Crossing } from '../../../src/knots/pd.ts';
 import { addKink, mirrorPD, relabelPD } from '../../../src/knots/generate.ts';
-import { randomKnotBraid } from '../../../src/knots/index.ts';
+import { braidClosurePD, randomKnotBraid } from '../../../src/knots/index.ts';
 import { twistKnotPD } from '../../../src/knots/plat.ts';
 import { Rng } from '../../../src/util/rng.ts';
 
@@ -91,11 +91,12 @@ describe('maximal cusp', () => {
       }
     }
   });
-  it('stopping rule: a triangulation whose largest horoball is off the edges gives the value of one where it is on an edge (6_2)', () => {
-    // a 21-letter braid found by a random search, with the volume of 6_2 (from the PD code above);
-    // the triangulation is the one of the braid the closed-braid search reaches (recognise.ts)
-    const off = hyp('4: -1 3 -1 2 -3 2 2 3 2 -2 1 -2 -2 -3 1 1 3 -3 -2 1 1');
-    const ref = small.get('6_2')!;
+  it('stopping rule: a triangulation whose largest horoball is off the edges gives the value of one where it is on an edge (same knot, braid and PD code)', () => {
+    // a 23-letter braid found by a random search: the geometric search ends on a triangulation
+    // whose largest horoball is off the edges; the PD code of its closure ends on one where it is on an edge
+    const word = [1, -1, -3, 3, 1, -3, 3, 2, 2, 1, -3, 2, 1, -1, 2, 2, 2, 1, 3, 2, -2, -2, -3];
+    const off = hyp(`4: ${word.join(' ')}`);
+    const ref = hyp(braidClosurePD({ strands: 4, word }).pd);
     expect(Math.abs(off.volume! - ref.volume!)).toBeLessThan(1e-9);
     expect(ref.maximalCusp!.onEdge).toBe(true);
     expect(off.maximalCusp!.onEdge).toBe(false); // the edge bound alone would be too large here

@@ -8,7 +8,7 @@ import { cuspBases } from '../../../src/knots/hyperbolic/cusp.ts';
 import { gluingEquations } from '../../../src/knots/hyperbolic/equations.ts';
 import { solveShapes, solveShapesFree } from '../../../src/knots/hyperbolic/newton.ts';
 import { blochWigner } from '../../../src/knots/hyperbolic/dilog.ts';
-import { crossRatio01, placeVertex, threeTwoShapes, twoThreeShapes } from '../../../src/knots/hyperbolic/pachner.ts';
+import { crossRatio01, placeVertex, threeTwoPreview, threeTwoShapes, twoThreePreview, twoThreeShapes } from '../../../src/knots/hyperbolic/pachner.ts';
 import { flipToGeometric } from '../../../src/knots/hyperbolic/flip.ts';
 import { Rng } from '../../../src/util/rng.ts';
 
@@ -102,5 +102,29 @@ describe('2–3 and 3–2 moves carrying shapes', () => {
     expect(Math.min(...f!.im)).toBeGreaterThan(1e-7);
     expect(Math.abs(volume(f!.im, f!.re) - v)).toBeLessThan(1e-9);
     expect(productResidual(f!.tri, f!.re, f!.im)).toBeLessThan(1e-9);
+  });
+  it('a previewed move names the tetrahedra it removes and gives exactly the shapes the move then gives (they come last)', () => {
+    const s = solved([1, 1, 1, 2, -1, 2], true);
+    let seen = 0;
+    for (let t = 0; t < s.tri.n; t++) {
+      const pairs = [
+        ...[0, 1, 2, 3].map((f) => [twoThreePreview(s.tri, s.re, s.im, t, f), twoThreeShapes(s.tri, s.re, s.im, t, f)] as const),
+        ...EDGE_VERTS.map(([a, b]) => [threeTwoPreview(s.tri, s.re, s.im, t, a, b), threeTwoShapes(s.tri, s.re, s.im, t, a, b)] as const),
+      ];
+      for (const [p, m] of pairs) {
+        expect(p === undefined).toBe(m === undefined);
+        if (!p || !m) continue;
+        seen++;
+        const k = p.re.length;
+        expect(m.tri.n).toBe(s.tri.n - p.olds.length + k);
+        expect(Array.from(m.re.subarray(m.tri.n - k))).toEqual(Array.from(p.re));
+        expect(Array.from(m.im.subarray(m.tri.n - k))).toEqual(Array.from(p.im));
+        for (const o of p.olds) expect(m.map[o]).toBe(-1);
+        const again = p.apply();
+        expect(Array.from(again.tri.nbr)).toEqual(Array.from(m.tri.nbr));
+        expect(Array.from(again.tri.perm)).toEqual(Array.from(m.tri.perm));
+      }
+    }
+    expect(seen).toBeGreaterThan(5);
   });
 });
