@@ -2,34 +2,40 @@
  * The options of rankFeatures: one table (key, type, range, default, meaning) that the library
  * checks its options against, the `rank` command builds its flags from and the run configuration
  * its keys from (`configKey` is the key path there: `network.epochs`, `attribution.seeds`, `seed`).
- * Defaults: chosen to finish 20,000 rows in < 60 s on 2 cores (bench/attribute.ts, Friedman #1).
+ * Defaults: chosen to finish 20,000 rows in < 60 s on 2 cores (bench/attribute.ts, Friedman #1). The
+ * network's rows are learn's NETWORK_OPTIONS as they are (one default per option).
  */
 import { defaultsOf, optionOf, type OptionTable } from '../util/option-table.ts';
 import type { IntegerRange } from '../util/integer.ts';
+import { MAX_AUTO_BATCH } from '../learn/batch-size.ts';
+import { NETWORK_OPTIONS, SEED_MAX } from '../learn/options.ts';
 import { ATTRIBUTION_METHODS } from './methods/index.ts';
 
-const SEED_MAX = 0xffffffff;
+/** A row of the network's table (learn's NETWORK_OPTIONS) as the ranking takes it: same range and default, config key `network.KEY`. */
+type NetworkRow = (typeof NETWORK_OPTIONS)[number];
+type AsRankRow<K extends NetworkRow['key'], A extends string> = Omit<Extract<NetworkRow, { key: K }>, 'key'> & { key: A; configKey: `network.${A}` };
+function net<K extends NetworkRow['key']>(key: K): AsRankRow<K, K>;
+function net<K extends NetworkRow['key'], A extends string>(key: K, as: A): AsRankRow<K, A>;
+function net(key: NetworkRow['key'], as: string = key): unknown {
+  return { ...optionOf(NETWORK_OPTIONS, key), key: as, configKey: `network.${as}` };
+}
 
-export const RANK_OPTIONS: OptionTable = [
+export const RANK_OPTIONS = [
   { key: 'features', type: 'list', default: null, description: 'use only these features (default: every numeric column but the target)' },
   { key: 'exclude', type: 'list', default: [], description: 'leave these columns out of the features' },
   { key: 'methods', type: 'list', min: 1, choices: ATTRIBUTION_METHODS, noun: 'an attribution method', default: ATTRIBUTION_METHODS, flag: 'method', configKey: 'attribution.methods', description: `attribution methods: ${ATTRIBUTION_METHODS.join('|')}|all, or a comma list` },
   { key: 'seeds', type: 'integer', min: 1, max: 100, default: 3, configKey: 'attribution.seeds', description: 'networks per split' },
   { key: 'folds', type: 'integer', min: 0, max: 50, default: 0, configKey: 'attribution.folds', description: '0 = one random split per seed; k ≥ 2 = k-fold cross-validation (1 is refused)' },
   { key: 'split', type: 'text', default: null, description: 'random | random:TRAIN,VALIDATION,TEST | kfold:K | where:CONDITION (default random 70/15/15, or kfold:K with folds K)' },
-  { key: 'task', type: 'choice', choices: ['auto', 'regression', 'classification'], default: 'auto', configKey: 'network.task', description: 'regression or classification; auto chooses from the target' },
-  { key: 'hidden', type: 'integers', min: 1, max: 4096, maxItems: 16, noun: 'layer width', default: [64, 64, 64], configKey: 'network.hidden', description: 'hidden layer widths (none or an empty list: a linear model)' },
-  { key: 'epochs', type: 'integer', min: 1, max: 10_000, default: 60, configKey: 'network.epochs', description: 'most training epochs (early stopping on the validation rows)' },
-  { key: 'activation', type: 'choice', choices: ['relu', 'gelu'], default: 'relu', configKey: 'network.activation', description: 'hidden-layer activation' },
-  { key: 'loss', type: 'choice', choices: ['mse', 'huber'], default: 'mse', configKey: 'network.loss', description: 'regression loss (huber is less swayed by outlying rows)' },
-  { key: 'patience', type: 'integer', min: 0, max: 10_000, default: 8, configKey: 'network.patience', description: 'epochs without improvement on the validation rows before training stops' },
-  { key: 'batchSize', type: 'integer', min: 1, max: 1 << 20, default: null, configKey: 'network.batchSize', description: 'mini-batch size (default: chosen from the training rows)' },
-  { key: 'learningRate', type: 'number', min: 0, max: 10, openMin: true, default: 2e-3, configKey: 'network.learningRate', description: 'Adam learning rate' },
-  {
-    key: 'engine', type: 'choice', choices: ['auto', 'native', 'tfjs'], default: 'auto', configKey: 'network.engine',
-    description: 'network engine: auto (native when it loads), native or tfjs',
-    inert: 'both engines train the same network from the same seeds; they agree to rounding, not bit for bit (tests/learn/engines.test.ts)',
-  },
+  net('task'),
+  net('hidden'),
+  net('maxEpochs', 'epochs'),
+  net('activation'),
+  net('loss'),
+  net('patience'),
+  net('batchSize'),
+  net('learningRate'),
+  net('engine'),
   {
     key: 'workers', type: 'integer', min: 0, max: 64, default: 0, configKey: 'network.workers',
     description: 'worker threads for training (0 = train in this thread)',
@@ -45,7 +51,7 @@ export const RANK_OPTIONS: OptionTable = [
   { key: 'integratedSteps', type: 'integer', min: 1, max: 10_000, default: 32, configKey: 'attribution.integratedSteps', description: 'Riemann steps of integrated gradients' },
   { key: 'permutationRepeats', type: 'integer', min: 1, max: 1000, default: 5, configKey: 'attribution.permutationRepeats', description: 'shuffles per feature group for permutation importance' },
   { key: 'resamples', type: 'integer', min: 10, max: 100_000, default: 1000, configKey: 'attribution.resamples', description: 'bootstrap resamples of the intervals' },
-];
+] as const satisfies OptionTable;
 
 /** The defaults of RANK_OPTIONS by key (`batchSize: null` = chosen from the training rows). */
 export const RANK_DEFAULTS = Object.freeze({
@@ -55,7 +61,7 @@ export const RANK_DEFAULTS = Object.freeze({
     integratedSteps: number; permutationRepeats: number; resamples: number; workers: number; probes: number; dropTop: number;
   }),
   /** The largest batch batchSizeFor chooses (a smaller table gets smaller batches). */
-  batchSize: 256,
+  batchSize: MAX_AUTO_BATCH,
 });
 
 const range = (key: string): IntegerRange => {

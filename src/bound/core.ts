@@ -1,6 +1,7 @@
 import { quantilesType7InPlace, QUANTILE_DEFINITION } from './quantile.ts';
 import { stratify, stratumStats, type Stratification, type Stratum } from './strata.ts';
 import { topK } from './topk.ts';
+import type { Note } from '../util/note.ts';
 import { slopeInterval } from './trend.ts';
 
 /** Probabilities at which the ratio's quantiles are reported (upper form; the lower form mirrors them). */
@@ -37,6 +38,15 @@ export interface Trend extends TrendLine {
 export const TREND_CAVEAT =
   'a trend towards a finite limit is still a trend, and "no trend detected" on this table is evidence, not a proof that a constant holds';
 
+/**
+ * A note of the bound stage: `kind` for code to choose on, `text` for people. nonPositive: the
+ * upper constant is ≤ 0; noLowerBound: the smallest ratio is ≤ 0 in the lower form; tiedStrata,
+ * fewRows: fewer strata than asked; rankBasis: `by` takes values ≤ 0; extremeStratum: the constant's
+ * row sits in an end stratum of `by`; noBy: strata taken along the rhs; lhsNonPositive: rows the
+ * right-hand-side search left out.
+ */
+export type BoundNote = Note<'nonPositive' | 'noLowerBound' | 'tiedStrata' | 'fewRows' | 'rankBasis' | 'extremeStratum' | 'noBy' | 'lhsNonPositive'>;
+
 export interface ArrayBound {
   /** Upper form: c* = max ratio; lower form: min ratio. */
   constant: number;
@@ -48,7 +58,7 @@ export interface ArrayBound {
   trend: Trend;
   /** Which end of `by` holds the overall constant's row, when it is an extreme stratum. */
   extremeStratum: 'lowest' | 'highest' | null;
-  notes: string[];
+  notes: BoundNote[];
 }
 
 export interface ArrayBoundOptions {
@@ -84,9 +94,9 @@ export function boundArrays(
   const ps = upper ? UPPER_PROBABILITIES : LOWER_PROBABILITIES;
   const qv = quantilesType7InPlace(used, ps); // `used` is our scratch copy
   const quantiles = ps.map((p, i) => ({ p, value: qv[i]! }));
-  const notes: string[] = [];
-  if (upper && constant <= 0) notes.push(`c* = ${constant} ≤ 0: lhs ≤ 0 on every row used, so lhs ≤ c·rhs holds for every c ≥ ${constant}`);
-  if (!upper && constant <= 0) notes.push(`the smallest ratio is ${constant} ≤ 0: lhs ≥ c·rhs gives no positive lower bound`);
+  const notes: BoundNote[] = [];
+  if (upper && constant <= 0) notes.push({ kind: 'nonPositive', text: `c* = ${constant} ≤ 0: lhs ≤ 0 on every row used, so lhs ≤ c·rhs holds for every c ≥ ${constant}` });
+  if (!upper && constant <= 0) notes.push({ kind: 'noLowerBound', text: `the smallest ratio is ${constant} ≤ 0: lhs ≥ c·rhs gives no positive lower bound` });
 
   let strata: Stratum[] = [];
   let trend: Trend = undetermined('no stratifying expression', 'median');
@@ -109,23 +119,23 @@ export function trendAlong(
   st: Stratification,
   opts: { upper: boolean; byName: string; bins: number },
   topRow: number,
-): { strata: Stratum[]; trend: Trend; extremeStratum: 'lowest' | 'highest' | null; notes: string[] } {
+): { strata: Stratum[]; trend: Trend; extremeStratum: 'lowest' | 'highest' | null; notes: BoundNote[] } {
   const { upper, byName, bins } = opts;
   const { by, rows } = st;
   const n = rows.length;
-  const notes: string[] = [];
+  const notes: BoundNote[] = [];
   const { strata, q } = stratumStats(st, ratio, upper, upper ? 0.9 : 0.1);
   const k = strata.length;
   const kWord = `${k} ${k === 1 ? 'stratum' : 'strata'}`;
   if (k < Math.min(bins, n)) {
-    notes.push(`${byName} has tied values, which are never split between strata: ${kWord} instead of ${Math.min(bins, n)}${k > 1 ? ', of unequal size' : ''}`);
+    notes.push({ kind: 'tiedStrata', text: `${byName} has tied values, which are never split between strata: ${kWord} instead of ${Math.min(bins, n)}${k > 1 ? ', of unequal size' : ''}` });
   } else if (n < bins) {
-    notes.push(`only ${n} rows: ${kWord} instead of ${bins}`);
+    notes.push({ kind: 'fewRows', text: `only ${n} rows: ${kWord} instead of ${bins}` });
   }
   let byMin = Infinity;
   for (let t = 0; t < n; t++) byMin = Math.min(byMin, by[rows[t]!]!);
   const basis: Trend['basis'] = byMin > 0 ? 'median' : 'rank';
-  if (basis === 'rank') notes.push(`${byName} takes values ≤ 0 (min ${byMin}), so the trend uses log of the stratum rank instead of log of its median`);
+  if (basis === 'rank') notes.push({ kind: 'rankBasis', text: `${byName} takes values ≤ 0 (min ${byMin}), so the trend uses log of the stratum rank instead of log of its median` });
   const trend = fitTrend(strata, basis, upper, byName, q, { ratio, by, rows });
   let extremeStratum: 'lowest' | 'highest' | null = null;
   const s = strata.findIndex((x) => x.witness === topRow);
@@ -133,7 +143,7 @@ export function trendAlong(
   if (k >= 2 && s === k - 1) extremeStratum = 'highest';
   if (extremeStratum) {
     const x = strata[s]!;
-    notes.push(`the overall ${upper ? 'maximum' : 'minimum'} ratio sits in the ${extremeStratum} stratum of ${byName} (${fmt(x.low)} ≤ ${byName} ≤ ${fmt(x.high)})`);
+    notes.push({ kind: 'extremeStratum', text: `the overall ${upper ? 'maximum' : 'minimum'} ratio sits in the ${extremeStratum} stratum of ${byName} (${fmt(x.low)} ≤ ${byName} ≤ ${fmt(x.high)})` });
   }
   return { strata, trend, extremeStratum, notes };
 }

@@ -3,7 +3,7 @@ import { checkOptions } from '../util/option-table.ts';
 import { DISCOVER_OPTIONS } from './options.ts';
 import type { Table } from '../table/types.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
-import { trendAlong, type Trend } from './core.ts';
+import { trendAlong, type BoundNote, type Trend } from './core.ts';
 import { tightestEnvelope } from './envelope.ts';
 import type { BoundStratum, BoundWitness, DropCounts } from './find.ts';
 import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
@@ -92,7 +92,7 @@ export interface DiscoverResult {
   /** How many exponent vectors were checked. */
   candidates: number;
   proposals: BoundProposal[];
-  notes: string[];
+  notes: BoundNote[];
   method: { envelope: string; supremum: string; ranking: string };
 }
 
@@ -161,8 +161,8 @@ export function discoverBound(table: Table, spec: DiscoverSpec): DiscoverResult 
   const rows = keepAll.slice(0, kept);
   const m = rows.length;
   if (m < 20) throw new SurmiseError('bound.tooFewRows', `${table.source}: only ${m} usable rows to search ${o.lhs} over ${o.from.join(', ')}; at least 20 are needed`);
-  const notes: string[] = [];
-  if (lhsNonPositive > 0) notes.push(`${lhsNonPositive} rows with lhs ≤ 0 satisfy every such bound with c ≥ 0 and were left out of the search`);
+  const notes: BoundNote[] = [];
+  if (lhsNonPositive > 0) notes.push({ kind: 'lhsNonPositive', text: `${lhsNonPositive} rows with lhs ≤ 0 satisfy every such bound with c ≥ 0 and were left out of the search` });
 
   // seeded split of the usable rows
   const perm = new Rng(deriveSeed(o.seed, 'bound', 'split')).permutation(m);

@@ -2,7 +2,7 @@ import { checkOptions } from '../util/option-table.ts';
 import { BOUND_OPTIONS, type BoundForm } from './options.ts';
 import { SurmiseError } from '../errors.ts';
 import type { Table } from '../table/types.ts';
-import { boundArrays, fmt, type Trend } from './core.ts';
+import { boundArrays, fmt, type BoundNote, type Trend } from './core.ts';
 import { affineEnvelope } from './affine.ts';
 import { realColumn, withDerived, type DeriveSpec, type RealValues } from '../table/expr/index.ts';
 import { idColumns, labelsOf, lineOf } from './inputs.ts';
@@ -99,7 +99,7 @@ export interface BoundCandidate {
   extremeStratum: 'lowest' | 'highest' | null;
   /** With form 'affine' (one side, by --lower) or 'two-sided' (both sides). */
   affine?: AffineBound[];
-  notes: string[];
+  notes: BoundNote[];
   /** The ratio against `by` on the rows used, for plotting (at most PLOT_POINTS, sampled with a fixed seed). */
   points: RatioPoints;
 }
@@ -183,7 +183,7 @@ export function findBound(table: Table, spec: BoundSpec): BoundResult {
       return { form: a.form, slope: a.slope, offset: a.offset, meanGap: a.meanGap, atLimit: a.atLimit, witnesses: Array.from(a.witnessRows, witnessOf) };
     });
     const core = boundArrays(ratio, by.values, used, { bins: opts.bins, top: opts.top, upper, byName });
-    if (opts.by === null) core.notes.push(`no stratifying expression (by) given: strata are taken along the rhs ${rhsSrc}`);
+    if (opts.by === null) core.notes.push({ kind: 'noBy', text: `no stratifying expression (by) given: strata are taken along the rhs ${rhsSrc}` });
     const rowNo = (i: number) => i + 1;
     results.push({
       rhs: rhsSrc,

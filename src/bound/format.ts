@@ -49,7 +49,7 @@ export function formatBound(res: BoundResult): string {
           ` (mean gap ${fmt(a.meanGap)}; closest rows ${a.witnesses.map((w) => w.row).join(', ')})${a.atLimit ? '; the slope sits at its search limit' : ''}`,
       );
     }
-    for (const note of r.notes) out.push(`  note: ${note}`);
+    for (const note of r.notes) out.push(`  note: ${note.text}`);
   }
   if (res.results.length > 1) {
     out.push('');
@@ -91,7 +91,7 @@ export function formatDiscovery(res: DiscoverResult): string {
     `${res.used} of ${res.n} rows used; exponents fitted on ${res.selectionRows} selection rows, checked on ${res.heldOutRows} held-out rows (seed ${res.seed}); ${res.candidates} exponent vectors checked`,
   );
   if (res.dropped.total > 0) out.push(`dropped ${res.dropped.total} rows (invalid rows skipped as asked): ${res.dropped.missing} with a missing cell, ${res.dropped.nonFinite} not finite, ${res.dropped.rhsNonPositive} with a value ≤ 0`);
-  for (const note of res.notes) out.push(`note: ${note}`);
+  for (const note of res.notes) out.push(`note: ${note.text}`);
   out.push('');
   out.push(
     ...table(

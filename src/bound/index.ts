@@ -1,5 +1,5 @@
 export { findBound, type BoundSpec, type BoundResult, type BoundCandidate, type BoundWitness, type BoundStratum, type DropCounts } from './find.ts';
-export { boundArrays, type ArrayBound, type ArrayBoundOptions, type Trend, UPPER_PROBABILITIES, LOWER_PROBABILITIES } from './core.ts';
+export { boundArrays, type ArrayBound, type ArrayBoundOptions, type BoundNote, type Trend, UPPER_PROBABILITIES, LOWER_PROBABILITIES } from './core.ts';
 export { quantilesType7, QUANTILE_DEFINITION } from './quantile.ts';
 export { equalCountStrata, type Stratum } from './strata.ts';
 export { topK } from './topk.ts';

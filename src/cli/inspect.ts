@@ -13,8 +13,10 @@ import { COLUMN_KINDS } from '../table/columns.ts';
 import { parseComplexPairsOption } from '../table/complex-pairs.ts';
 import { profileTable, type ColumnProfile, type TableProfile } from '../table/profile.ts';
 import type { ColumnKind, Table } from '../table/types.ts';
-import { deriveColumn, parseDerive } from '../table/expr/index.ts';
+import { parseDerive, withDerived } from '../table/expr/index.ts';
 import { toJson } from '../util/json.ts';
+import { INSPECT_OPTIONS } from '../table/options.ts';
+import { addTableOptions, readTableOptions } from './options.ts';
 
 interface InspectOptions {
   derive: string[];
@@ -44,19 +46,6 @@ export function parseKindOptions(specs: string[]): Record<string, ColumnKind> {
     kinds[name] = kind as ColumnKind;
   }
   return kinds;
-}
-
-/** Append `--derive` columns to a table, in order (later ones may use earlier ones). */
-export function applyDerives(table: Table, specs: string[]): Table {
-  let t = table;
-  for (const s of specs) {
-    const { name, source } = parseDerive(s);
-    if (t.columns.some((c) => c.name === name))
-      throw new SurmiseError('table.duplicateColumn', `--derive ${s}: a column '${name}' already exists in ${t.source}`);
-    const col = deriveColumn(t, name, source);
-    t = { ...t, columns: [...t.columns, col] };
-  }
-  return t;
 }
 
 function fmtNum(x: number | null | undefined): string {
@@ -114,7 +103,7 @@ export function formatProfile(p: TableProfile): string {
 }
 
 export function registerInspect(program: Command, io: CliIO): void {
-  program
+  const cmd = program
     .command('inspect')
     .description('Read a table (CSV, TSV, JSON, JSON Lines) and summarise its columns, duplicates and rank correlations')
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
@@ -128,32 +117,33 @@ export function registerInspect(program: Command, io: CliIO): void {
     )
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text view')
-    .option('--no-progress', 'do not report reading progress on stderr')
-    .action(async (file: string, opts: InspectOptions) => {
-      const kinds = parseKindOptions(opts.kind);
-      const complexPairs = parseComplexPairsOption(opts.complexPairs);
-      if (opts.format !== undefined && !TABLE_FORMATS.includes(opts.format as TableFormat))
-        throw new SurmiseError(
-          'cli.badFormat',
-          `--format ${opts.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(opts.format, TABLE_FORMATS)}`,
-        );
-      const path = resolve(io.cwd, file);
-      const reading = readingProgress(io, file, opts.progress);
-      let table: Table;
-      try {
-        table = await readTable(path, {
-          displayName: file,
-          kinds: Object.keys(kinds).length ? kinds : undefined,
-          complexPairs,
-          format: opts.format as TableFormat | undefined,
-          onProgress: reading.onProgress,
-        });
-      } finally {
-        reading.stop();
-      }
-      table = applyDerives(table, opts.derive);
-      const profile = profileTable(table);
-      if (opts.json) io.stdout(toJson(profile) + '\n');
-      else io.stdout(formatProfile(profile));
-    });
+    .option('--no-progress', 'do not report reading progress on stderr');
+  addTableOptions(cmd, INSPECT_OPTIONS);
+  cmd.action(async (file: string, opts: InspectOptions) => {
+    const kinds = parseKindOptions(opts.kind);
+    const complexPairs = parseComplexPairsOption(opts.complexPairs);
+    if (opts.format !== undefined && !TABLE_FORMATS.includes(opts.format as TableFormat))
+      throw new SurmiseError(
+        'cli.badFormat',
+        `--format ${opts.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(opts.format, TABLE_FORMATS)}`,
+      );
+    const path = resolve(io.cwd, file);
+    const reading = readingProgress(io, file, opts.progress);
+    let table: Table;
+    try {
+      table = await readTable(path, {
+        displayName: file,
+        kinds: Object.keys(kinds).length ? kinds : undefined,
+        complexPairs,
+        format: opts.format as TableFormat | undefined,
+        onProgress: reading.onProgress,
+      });
+    } finally {
+      reading.stop();
+    }
+    table = withDerived(table, opts.derive.map((d) => parseDerive(d)));
+    const profile = profileTable(table, readTableOptions(INSPECT_OPTIONS, opts as unknown as Record<string, unknown>));
+    if (opts.json) io.stdout(toJson(profile) + '\n');
+    else io.stdout(formatProfile(profile));
+  });
 }

@@ -9,7 +9,9 @@ import type { Command } from 'commander';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import type { CliIO } from './io.ts';
 import { makeProgress } from './progress.ts';
-import { parseIntOption, parseNonNegativeInt, parsePositiveInt } from './options.ts';
+import { addTableOptions, parseIntOption, parsePositiveInt, readTableOptions } from './options.ts';
+import { KNOTS_OPTIONS } from '../knots/options.ts';
+import { defaultsOf } from '../util/option-table.ts';
 import { readTable } from '../table/read.ts';
 import { writeTable } from '../table/write.ts';
 import { tableFromRecords } from '../table/columns.ts';
@@ -18,10 +20,7 @@ import { formatNumber } from '../table/cell.ts';
 import type { Column, Table } from '../table/types.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import {
-  DEFAULT_INVARIANTS,
-  DIAGRAM_KINDS,
   exactOut,
-  INVARIANT_NAMES,
   parseCode,
   randomBraid,
   randomKnotBraid,
@@ -53,11 +52,8 @@ const CONVENTIONS =
   'Delta(t) = Delta(1/t), Delta(1) = 1 for knots; determinant = |Delta(-1)|.';
 
 interface KnotsOptions {
-  kind?: string;
   column?: string;
   nameColumn?: string;
-  invariants?: string;
-  omega?: string;
   out?: string;
   join?: string;
   on?: string;
@@ -65,40 +61,22 @@ interface KnotsOptions {
   force?: boolean;
   json?: boolean;
   progress?: boolean;
-  workers?: string;
 }
 
-function parseKind(k: string | undefined): DiagramKind | undefined {
-  if (k === undefined) return undefined;
-  if (!DIAGRAM_KINDS.includes(k as DiagramKind))
-    throw new SurmiseError('knots.option', `--kind ${k}: expected one of ${DIAGRAM_KINDS.join(', ')}${didYouMean(k, DIAGRAM_KINDS)}`);
-  return k as DiagramKind;
-}
-
-function parseInvariants(raw: string | undefined, omega: boolean): InvariantName[] {
-  let list: InvariantName[] = raw === undefined ? [...DEFAULT_INVARIANTS] : [];
-  if (raw !== undefined) {
-    for (const part of raw.split(',').map((s) => s.trim()).filter((s) => s.length > 0)) {
-      if (part === 'all') {
-        list = [...INVARIANT_NAMES];
-        continue;
-      }
-      if (!INVARIANT_NAMES.includes(part as InvariantName))
-        throw new SurmiseError('knots.option', `--invariants: unknown invariant '${part}'${didYouMean(part, INVARIANT_NAMES)} (known: ${INVARIANT_NAMES.join(', ')}, all)`);
-      if (!list.includes(part as InvariantName)) list.push(part as InvariantName);
-    }
-    if (list.length === 0) throw new SurmiseError('knots.option', '--invariants: the list is empty');
-  }
-  if (omega && !list.includes('levine_tristram')) list.push('levine_tristram');
-  return list;
-}
-
-function parseOmega(raw: string | undefined): number | undefined {
-  if (raw === undefined) return undefined;
-  const v = Number(raw);
-  if (raw.trim() === '' || !Number.isFinite(v) || v < 0 || v > 1)
-    throw new SurmiseError('knots.option', `--omega ${raw}: expected x in [0, 1], meaning omega = exp(2 pi i x) (0.5 is omega = -1)`);
-  return v;
+/** The options of KNOTS_OPTIONS given on the command line (absent: the table's defaults), `--omega` adding levine_tristram. */
+function knotsOptions(o: KnotsOptions): { kind?: DiagramKind; invariants: InvariantName[]; omega?: number; prefix: string; workers: number } {
+  const given = { ...defaultsOf(KNOTS_OPTIONS), ...readTableOptions(KNOTS_OPTIONS, o as unknown as Record<string, unknown>) } as {
+    kind: DiagramKind | null; invariants: InvariantName[]; omega: number | null; prefix: string | null; workers: number;
+  };
+  const invariants = [...given.invariants];
+  if (given.omega !== null && !invariants.includes('levine_tristram')) invariants.push('levine_tristram');
+  return {
+    ...(given.kind !== null ? { kind: given.kind } : {}),
+    invariants,
+    ...(given.omega !== null ? { omega: given.omega } : {}),
+    prefix: given.prefix ?? '',
+    workers: given.workers,
+  };
 }
 
 function cellOut(c: Column, i: number): string {
@@ -148,14 +126,11 @@ function jsonRow(name: string, r: KnotInvariants, inv: readonly InvariantName[])
 
 async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void> {
   // options, checked once
-  const kind = parseKind(o.kind);
-  const omega = parseOmega(o.omega);
-  const inv = parseInvariants(o.invariants, omega !== undefined);
+  const { kind, invariants: inv, omega, prefix, workers } = knotsOptions(o);
   if ((o.join === undefined) !== (o.on === undefined)) throw new SurmiseError('knots.option', '--join TABLE and --on KEY go together');
   const path = resolve(io.cwd, file);
   const sources = await readDiagramFile(path, { column: o.column, nameColumn: o.nameColumn, displayName: file });
   if (sources.length === 0) throw new SurmiseError('knots.empty', `${file} holds no diagrams`);
-  const workers = parseNonNegativeInt('--workers', o.workers ?? '2', 64);
   const slow = inv.includes('hyperbolic');
   // long batches: many diagrams, or long ones (a few hundred crossings and up), or the slow hyperbolic invariants; lines at most every 5 s on a pipe
   const long = sources.length >= 200 || sources.some((s) => s.code.length > 2000) || (slow && sources.length >= 20);
@@ -167,7 +142,6 @@ async function runKnots(file: string, o: KnotsOptions, io: CliIO): Promise<void>
     progress.stop();
   }
 
-  const prefix = o.prefix ?? '';
   const records = sources.map((s, k) => tableRecord(s.name, results[k]!, inv));
   const kinds: Record<string, 'label' | 'integer' | 'real' | 'complex'> = { name: 'label' };
   for (const k of inv) kinds[k] = k === 'alexander' || k === 'linking' || k === 'jumps' || k === 'unit_roots' ? 'label' : k === 'levine_tristram' || k === 'genus_bound' ? 'real' : 'integer';
@@ -299,19 +273,14 @@ export function registerKnots(program: Command, io: CliIO): void {
     .command('knots')
     .description('Invariants of knots and links from PD codes, braid words or DT codes, one table row per diagram')
     .argument('[file]', 'diagrams: lines "name<TAB>code", or a CSV/JSON table with a column of codes')
-    .option('--kind <kind>', `kind of every code: ${DIAGRAM_KINDS.join('|')} (default: detected)`)
-    .option('--column <name>', 'column of codes in a CSV/TSV/JSON table (default: code)')
-    .option('--name-column <name>', 'column of names in a table (default: name)')
-    .option('--invariants <list>', `comma-separated: ${INVARIANT_NAMES.join(',')} or all (default: ${DEFAULT_INVARIANTS.join(',')})`)
-    .option('--omega <x>', 'Levine–Tristram signature at omega = exp(2 pi i x), x in [0, 1] (0.5: omega = -1)')
     .option('--out <table>', 'write the table (CSV/TSV/JSON by extension) instead of CSV on stdout')
     .option('--join <table>', 'add the new columns to this table, matching diagram names to --on')
     .option('--on <key>', 'key column of the --join table')
-    .option('--prefix <text>', 'prefix for the new column names', '')
     .option('--force', 'replace an existing output file')
     .option('--json', 'print one JSON object (Alexander polynomials as coefficient lists, lowest power first)')
-    .option('--no-progress', 'no progress on stderr')
-    .option('--workers <n>', 'worker threads for the hyperbolic invariants (0-64; 0 or 1: this thread)', '2')
+    .option('--no-progress', 'no progress on stderr');
+  addTableOptions(knots, KNOTS_OPTIONS);
+  knots
     .addHelpText('after', `\n${CONVENTIONS}\n\nCodes: PD [[1,5,2,4],[3,1,4,6],[5,3,6,2]] or X[1,5,2,4] X[3,1,4,6] X[5,3,6,2]; braid "1 -2 1 -2",\n"4: 1 2 3" (4 strands) or {"strands":4,"word":[1,2,3]}; DT[4,6,2] (or "4 6 2" with --kind dt).\nA DT code fixes a knot only up to mirror image.\n`)
     .action(async (file: string | undefined, o: KnotsOptions) => {
       if (file === undefined) throw new SurmiseError('knots.option', 'give a file of diagrams (surmise knots FILE), or a subcommand: generate');

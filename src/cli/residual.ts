@@ -7,7 +7,7 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
-import { addTableOptions, collect, parsePositiveInt, rangeHelp, readTableOptions } from './options.ts';
+import { addTableOptions, collect, readTableOptions } from './options.ts';
 import { makeProgress } from './progress.ts';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
@@ -15,24 +15,19 @@ import { parseDerive, withDerived } from '../table/expr/derive.ts';
 import { toJson } from '../util/json.ts';
 import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
-import { residualRanking, RESIDUAL_LIMITS, type ResidualResult, type ResidualSpec } from '../run/residual.ts';
+import { residualRanking, RESIDUAL_OPTIONS, type ResidualResult, type ResidualSpec } from '../run/residual.ts';
 import { RANK_OPTIONS } from '../attribute/options.ts';
 import { COLUMN_KINDS } from '../table/columns.ts';
 import { parseKindOptions } from './inspect.ts';
-import { parseNameList, rankingTable } from './rank.ts';
+import { rankingTable } from './rank.ts';
 import { splitTerms } from './fit.ts';
 import { parsePowers } from './search.ts';
 
 interface ResidualCliOptions {
   target: string;
   terms: string;
-  intercept: boolean;
-  from?: string;
   derive: string[];
   kind: string[];
-  absolute: boolean;
-  maxTerms: string;
-  powers: string;
   format?: string;
   json?: boolean;
   progress: boolean;
@@ -81,15 +76,11 @@ export function registerResidual(program: Command, io: CliIO): void {
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
     .requiredOption('--target <expr>', 'expression the formula predicts, e.g. sig')
     .requiredOption('--terms <list>', 'the formula\'s terms separated by ";", e.g. "ux; uy^2"')
-    .option('--no-intercept', 'fit without the constant term')
-    .option('--from <a,b>', 'rank only these columns (default: every numeric column the target and terms do not read)')
     .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
     .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[]);
+  addTableOptions(cmd, RESIDUAL_OPTIONS);
   addTableOptions(cmd, RANK_OPTIONS, RANK_KEYS);
   cmd
-    .option('--no-absolute', 'do not rank the absolute residual')
-    .option('--max-terms <k>', `most terms the next-term search adds${rangeHelp(RESIDUAL_LIMITS.maxTerms)}`, '1')
-    .option('--powers <lo..hi>', 'integer powers for the next-term search', '-3..3')
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object')
     .option('--no-progress', 'do not report progress on stderr')
@@ -97,12 +88,11 @@ export function registerResidual(program: Command, io: CliIO): void {
       if (o.format !== undefined && !TABLE_FORMATS.includes(o.format as TableFormat)) {
         throw new SurmiseError('cli.badFormat', `--format ${o.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(o.format, TABLE_FORMATS)}`);
       }
-      const maxTerms = parsePositiveInt('--max-terms', o.maxTerms, RESIDUAL_LIMITS.maxTerms.max);
+      const own = readTableOptions(RESIDUAL_OPTIONS, o, { powers: parsePowers }) as Pick<ResidualSpec, 'intercept' | 'from' | 'absolute'> &
+        NonNullable<ResidualSpec['search']>;
       const rank = readTableOptions(RANK_OPTIONS, o, {}, RANK_KEYS) as NonNullable<ResidualSpec['rank']>;
       const seed = rank.seed ?? RANK_DEFAULTS.seed;
       const terms = splitTerms(o.terms);
-      const powers = parsePowers(o.powers);
-      const from = o.from !== undefined ? parseNameList('--from', o.from) : undefined;
       const derive = o.derive.map((d) => parseDerive(d));
       const kinds = parseKindOptions(o.kind);
       const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}), ...(Object.keys(kinds).length ? { kinds } : {}) });
@@ -113,11 +103,11 @@ export function registerResidual(program: Command, io: CliIO): void {
         result = await residualRanking(table, {
           target: o.target,
           terms,
-          intercept: o.intercept,
-          ...(from ? { from } : {}),
-          absolute: o.absolute,
+          ...(own.intercept !== undefined ? { intercept: own.intercept } : {}),
+          ...(own.from ? { from: own.from } : {}),
+          ...(own.absolute !== undefined ? { absolute: own.absolute } : {}),
           rank,
-          search: { maxTerms, powers },
+          search: { maxTerms: own.maxTerms, powers: own.powers, columns: own.columns },
           seed,
           onProgress: (e) => progress.update(e.done, e.total, `${e.ranking}: ${e.message}`),
         });

@@ -25,6 +25,8 @@ import { Rng, deriveSeed } from '../util/rng.ts';
 import { quoteField } from '../table/write.ts';
 import { computeInvariants, diagramFrom, randomKnotBraid, torusBraid, twistedBraid, valueAtMinusOne, type Braid, type InvariantName } from '../knots/index.ts';
 import { gcd } from '../util/gcd.ts';
+import { checkOption, optionOf } from '../util/option-table.ts';
+import { DEMO_DATA_OPTIONS } from './options.ts';
 
 export const DEMO_KNOT_COLUMNS = [
   'name', 'family', 'code', 'strands', 'crossings', 'writhe', 'seifert_circles', 'genus_bound',
@@ -96,6 +98,7 @@ export function demoRow(d: DemoDiagram, decoy: number): string {
 
 /** The demo table as CSV text (header + one line per diagram, LF line ends). Deterministic in `seed`. */
 export function generateDemoKnots(seed: number, onRow?: (done: number, total: number) => void): string {
+  checkOption(optionOf(DEMO_DATA_OPTIONS, 'seed'), seed);
   const diagrams = demoDiagrams(seed);
   const decoy = new Rng(deriveSeed(seed, 'demo-knots', 'decoy'));
   const lines = [DEMO_KNOT_COLUMNS.join(',')];

@@ -11,6 +11,8 @@ import { invariantsOf } from './batch.ts';
 import { parseDiagram } from './diagram.ts';
 import type { ComputeOptions, KnotInvariants } from './invariants.ts';
 import type { DiagramKind, DiagramSource } from './parse.ts';
+import { checkOptions } from '../util/option-table.ts';
+import { KNOTS_OPTIONS } from './options.ts';
 
 export interface ManyJob {
   type: 'job';
@@ -40,9 +42,7 @@ const WORKER_URL = import.meta.url.endsWith('.js') ? new URL('./worker.js', impo
 
 /** Invariants of every source, in order. */
 export async function invariantsMany(sources: DiagramSource[], file: string, kind: DiagramKind | undefined, opts: ComputeOptions, many: ManyOptions = {}): Promise<KnotInvariants[]> {
-  const nWorkers = many.workers ?? 2;
-  if (!(Number.isInteger(nWorkers) && nWorkers >= 0 && nWorkers <= 64))
-    throw new SurmiseError('knots.option', `expected workers to be an integer from 0 to 64, got ${nWorkers}`, { option: 'workers' });
+  const nWorkers = checkOptions<{ workers: number }>(KNOTS_OPTIONS, { kind, invariants: opts.invariants, omega: opts.omega, workers: many.workers }).workers;
   const slow = (opts.invariants ?? []).includes('hyperbolic');
   const local = (): KnotInvariants[] => {
     const out: KnotInvariants[] = [];

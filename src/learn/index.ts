@@ -2,7 +2,7 @@
 export { ENGINES, ENGINE_CHOICES, loadEngine, engineFailure, defaultEngineChoice, type Engine, type EngineChoice, type EngineName } from './engines.ts';
 export { initBackend, ensureBackend, currentBackend, type BackendName } from './backend.ts';
 export { type TrainData } from './data.ts';
-export { DEFAULT_NETWORK_OPTIONS, MAX_CLASSES, chooseTask, resolveNetworkOptions, type Activation, type LossName, type NetworkOptions, type Task } from './options.ts';
+export { DEFAULT_NETWORK_OPTIONS, NETWORK_OPTIONS, MAX_CLASSES, chooseTask, resolveNetworkOptions, type Activation, type LossName, type NetworkOptions, type Task } from './options.ts';
 export { trainNetwork, type EpochCallback } from './train.ts';
 export { networkFromJSON, type EpochRecord, type NetworkState, type TrainedNetwork } from './trained.ts';
 export { fitConstant, type ConstantModel } from './constant.ts';

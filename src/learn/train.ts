@@ -6,6 +6,7 @@
 import { SurmiseError } from '../errors.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import { kahanSum } from '../util/sum.ts';
+import { batchSizeFor } from './batch-size.ts';
 import { checkData, type TrainData } from './data.ts';
 import { loadEngine, loadedTrainer, type EngineName, type Trainer } from './engines.ts';
 import { makeLayout, type Layout } from './layout.ts';
@@ -135,7 +136,8 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
   const p = train.p;
   const L = makeLayout([p, ...o.hidden, K]);
   const xt = toF32(train.x);
-  const B = Math.min(o.batchSize, train.n);
+  const batchSize = o.batchSize ?? batchSizeFor(train.n);
+  const B = Math.min(batchSize, train.n);
   const trainer: Trainer = loadedTrainer(engineName)({ layout: L, options: o, prep, K, B, xv: toF32(validation.x), nVal: validation.n, P: initParams(L, o.seed) });
   let best = trainer.parameters().slice();
   let bestLoss = Infinity;
@@ -193,7 +195,7 @@ export function trainToState(train: TrainData, validation: TrainData, o: Network
       epochs: Math.min(epoch, o.maxEpochs),
       bestEpoch,
       history,
-      options: { ...o, hidden: [...o.hidden], task },
+      options: { ...o, hidden: [...o.hidden], batchSize, task }, // as used
       unseenValidationRows: prep.unseen,
       engine: engineName,
     };

@@ -16,7 +16,7 @@ const SPLIT = {
   description: 'fit on one part and measure on the other: random:TRAIN,VALIDATION,TEST (fit on train, measure on test) or where:CONDITION',
 } as const;
 
-export const FIT_OPTIONS: OptionTable = [
+export const FIT_OPTIONS = [
   { key: 'intercept', type: 'boolean', default: true, description: 'fit the constant term too (without it R² is uncentred)' },
   SPLIT,
   { key: 'seed', type: 'integer', min: 0, max: SEED_MAX, default: 1, description: 'seed of the split and of the cross-validation folds' },
@@ -24,9 +24,9 @@ export const FIT_OPTIONS: OptionTable = [
   { key: 'level', type: 'number', min: 0, max: 1, openMin: true, openMax: true, default: 0.95, description: 'confidence level of the intervals' },
   { key: 'keepDuplicates', type: 'boolean', default: false, description: 'keep rows that repeat an earlier row in every column used (default: drop and count them)' },
   { key: 'noisyTerms', type: 'list', default: [], flag: 'noisy', configKey: 'noisy', separator: ';', description: 'terms measured with error (errors-in-variables: their slopes are attenuated)' },
-];
+] as const satisfies OptionTable;
 
-export const SEARCH_OPTIONS: OptionTable = [
+export const SEARCH_OPTIONS = [
   { key: 'maxTerms', type: 'integer', min: 1, max: 6, default: 2, description: 'largest number of terms besides the intercept' },
   { key: 'powers', type: 'text', default: '-3..3', pattern: { re: INTEGER_RANGE_PATTERN, expected: 'a range such as -3..3' }, shell: 'read as the library\'s [lo, hi]', description: 'integer powers in the grammar' },
   { key: 'maxComplexity', type: 'integer', min: 1, max: 12, default: 7, description: 'largest complexity of one term' },
@@ -40,4 +40,4 @@ export const SEARCH_OPTIONS: OptionTable = [
   { key: 'maxExhaustive', type: 'integer', min: 1, max: 50_000_000, default: 1_000_000, description: 'most subsets of the exhaustive subset search (the screened terms are cut to fit)' },
   { key: 'screenRows', type: 'integer', min: 50, max: 1_000_000, default: 2000, description: 'selection rows used for screening' },
   { key: 'maxCells', type: 'integer', min: 10_000, max: 2_000_000_000, default: 25_000_000, description: 'memory bound in float64 cells for stored term values' },
-];
+] as const satisfies OptionTable;

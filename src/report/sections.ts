@@ -8,6 +8,7 @@ import { scatterSpec } from './plots/scatter.ts';
 import { predictionSpec } from './plots/predictions.ts';
 import { residualSpec } from './plots/residuals.ts';
 import { boundSpec } from './plots/bound.ts';
+import { ATTRIBUTION_REGISTRY } from '../attribute/methods/index.ts';
 import { dependenceSpec } from './plots/dependence.ts';
 import { plotLibraryVersions } from './render-plot.ts';
 import { searchesOf } from './searches.ts';
@@ -191,6 +192,9 @@ function noiseParagraph(ranking: readonly Interval[], noise: NonNullable<ReportI
   }];
 }
 
+/** How prose names a method: its registered strategy's label (`integrated gradients`), else the name as given. */
+export const methodLabel = (name: string): string => ATTRIBUTION_REGISTRY.find((m) => m.name === name)?.label ?? name;
+
 /** The combined ranking, then per method its plot, table and Kendall τ; the target-against-top-feature plot. */
 export function attributionSection(input: ReportInput, plan: PlotPlan, set: SectionSettings): Block[] {
   const r = input.rank;
@@ -218,11 +222,12 @@ export function attributionSection(input: ReportInput, plan: PlotPlan, set: Sect
           m.kendallTau === null ? ' (not defined: a single repeat or all ties).' : '.',
         ],
       });
-      const title = `Attribution by ${method}`;
-      const name = plan.add(`attribution-${method}`, title, attributionSpec(method, m.ranking));
+      const label = methodLabel(method);
+      const title = `Attribution by ${label}`;
+      const name = plan.add(`attribution-${method}`, title, attributionSpec(label, m.ranking));
       inner.push({ kind: 'plot', name, title });
       inner.push(rankingTable(m.ranking));
-      out.push({ kind: 'details', summary: `Method: ${method}`, blocks: inner });
+      out.push({ kind: 'details', summary: `Method: ${label}`, blocks: inner });
     }
   }
   if (s && s.x.length > 0) {
@@ -435,6 +440,7 @@ export function boundsSection(input: ReportInput, plan: PlotPlan, set: SectionSe
           ],
         });
       }
+      for (const n of r.notes ?? []) out.push({ kind: 'paragraph', parts: [`Note: ${n.text}`] });
       if (r.witnesses.length > 0) {
         const labelKeys: string[] = [];
         for (const w of r.witnesses) for (const k of Object.keys(w.labels ?? {})) if (!labelKeys.includes(k)) labelKeys.push(k);

@@ -157,6 +157,8 @@ export interface ReportBoundResult {
   trend: { slope: number | null; low: number | null; high: number | null; kind?: 'none' | 'up' | 'down'; verdict: string } | null;
   /** `sampledFrom`: the rows used, when the points are a sample of them. */
   points?: { by: number[]; ratio: number[]; labels?: { name: string; values: string[] }; sampledFrom?: number };
+  /** The bound stage's notes (optional: older inputs lack them); listed as they are. */
+  notes?: ReportNote[];
 }
 
 export interface ReportBound {

@@ -9,16 +9,11 @@ import { isMap, isScalar, isSeq, LineCounter, parseDocument, type Node as YamlNo
 import { z } from 'zod';
 import { SurmiseError, didYouMean, fileErrorReason, printable } from '../errors.ts';
 import type { IntegerRange } from '../util/integer.ts';
-import { configKeyOf, type OptionSpec, type OptionTable } from '../util/option-table.ts';
+import { configKeyOf, type ConfigKeyOf, type OptionSpec, type OptionTable, type OptionValue } from '../util/option-table.ts';
 import { RANK_LIMITS, RANK_OPTIONS } from '../attribute/options.ts';
 import { FIT_OPTIONS, SEARCH_OPTIONS } from '../relate/options.ts';
-import { BOUND_OPTIONS, DISCOVER_OPTIONS, type BoundForm } from '../bound/options.ts';
-import type { DiscoverSpec } from '../bound/discover.ts';
-import type { Activation, LossName } from '../learn/options.ts';
-import type { EngineChoice } from '../learn/engines.ts';
-import type { AttributionMethod } from '../attribute/types.ts';
-import { RESIDUAL_LIMITS } from './residual.ts';
-import { INTEGER_RANGE_PATTERN } from '../util/range.ts';
+import { BOUND_OPTIONS, DISCOVER_OPTIONS } from '../bound/options.ts';
+import { RESIDUAL_OPTIONS } from './residual.ts';
 
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
 const count = (r: IntegerRange) => z.number().int().min(r.min).max(r.max);
@@ -63,11 +58,20 @@ function zodOf(o: OptionSpec): z.ZodType {
   return t.default((Array.isArray(o.default) ? [...o.default] : o.default) as never);
 }
 
+/** A config key path's key within block `B` (`network.epochs` is `epochs` in `network`; `''`: the top level). */
+type InBlock<K extends string, B extends string> = B extends '' ? (K extends `${string}.${string}` ? never : K) : K extends `${B}.${infer R}` ? R : never;
+
+/** The zod type of an option as the compiler sees it: its value, optional when it has no default. */
+type ZodOfOption<O extends OptionSpec> = O extends { default: null } ? z.ZodOptional<z.ZodType<OptionValue<O>>> : z.ZodDefault<z.ZodType<OptionValue<O>>>;
+
+/** The shape tableShape builds, as a type: RunConfig follows from the tables through it. */
+type TableShape<T extends OptionTable, B extends string> = { [O in T[number] as InBlock<ConfigKeyOf<O>, B>]: ZodOfOption<O> };
+
 /**
  * The keys of `table` that live in the configuration block `block` (`''`: the top level, or
  * `network`, `attribution` for the ranking's table whose config keys are paths).
  */
-function tableShape(table: OptionTable, block = ''): Record<string, z.ZodType> {
+function tableShape<T extends OptionTable, B extends string = ''>(table: T, block: B = '' as B): TableShape<T, B> {
   const shape: Record<string, z.ZodType> = {};
   for (const o of table) {
     const k = configKeyOf(o);
@@ -76,7 +80,7 @@ function tableShape(table: OptionTable, block = ''): Record<string, z.ZodType> {
     if ((dot < 0 ? '' : k.slice(0, dot)) !== block) continue;
     shape[k.slice(dot + 1)] = zodOf(o);
   }
-  return shape;
+  return shape as TableShape<T, B>;
 }
 
 /** The library options of `table` read from a configuration block (key paths resolved, absent left out). */
@@ -156,11 +160,7 @@ const SearchesSchema = z.preprocess(
 const ResidualSchema = z.strictObject({
   target: exprString,
   terms: listOf(exprString, 1),
-  intercept: z.boolean().default(true),
-  from: listOf(z.string().min(1), 1).optional(),
-  absolute: z.boolean().default(true),
-  maxTerms: count(RESIDUAL_LIMITS.maxTerms).default(1),
-  powers: z.string().regex(INTEGER_RANGE_PATTERN, 'expected a range such as -3..3').default('-3..3'),
+  ...tableShape(RESIDUAL_OPTIONS),
 });
 
 const BoundSchema = z.strictObject({
@@ -196,76 +196,11 @@ export const RunConfigSchema = z.strictObject({
 });
 
 /**
- * The validated configuration with defaults filled in. The schema above is built from the stages'
- * options tables; this type spells its shape out for the compiler (tests/run/option-parity.test.ts
- * checks that the parsed defaults have exactly these keys).
+ * The validated configuration with defaults filled in: the schema's output type, which the
+ * stages' options tables (declared `as const`) give through tableShape, so a key or a default
+ * changed in a table changes this type too.
  */
-export interface RunConfig {
-  table: string;
-  format?: 'csv' | 'tsv' | 'json' | 'jsonl';
-  kinds: Record<string, 'real' | 'integer' | 'complex' | 'label'>;
-  derive: Record<string, string>;
-  target: string;
-  groups: Record<string, string[]>;
-  features?: string[];
-  exclude: string[];
-  split?: string;
-  seed: number;
-  network: {
-    task: 'auto' | 'regression' | 'classification';
-    hidden: number[];
-    epochs: number;
-    activation: Activation;
-    loss: LossName;
-    patience: number;
-    batchSize?: number;
-    learningRate: number;
-    engine: EngineChoice;
-    workers: number;
-  };
-  attribution: {
-    methods: AttributionMethod[];
-    seeds: number;
-    folds: number;
-    dropTop: number;
-    probes: number;
-    permutationLoss: 'error' | 'cross-entropy';
-    rows: number;
-    smoothGradSamples: number;
-    smoothGradNoise: number;
-    integratedSteps: number;
-    permutationRepeats: number;
-    resamples: number;
-  };
-  fits: Array<{ target: string; terms: string[]; intercept: boolean; split?: string; seed?: number; folds: number; level: number; keepDuplicates: boolean; noisy: string[] }>;
-  /** Every `search` block in the order written (one block written as a mapping is a list of one), each named. */
-  search: Array<{
-    name: string;
-    target: string;
-    from: string[];
-    maxTerms: number;
-    powers: string;
-    maxComplexity: number;
-    timeLimit: number;
-    lattice: string;
-    split?: string;
-    top: number;
-    seed?: number;
-    keepDuplicates: boolean;
-    beam: number;
-    maxExhaustive: number;
-    screenRows: number;
-    maxCells: number;
-  }>;
-  residual?: z.infer<typeof ResidualSchema>;
-  bounds: Array<{ lhs: string; rhs: string[]; by?: string; bins: number; top: number; id?: string[]; skipInvalid: boolean; lower: boolean; form: BoundForm }>;
-  discover: Array<
-    { lhs: string; from: string[]; id?: string[]; seed?: number; exceedances?: number } & Required<
-      Pick<DiscoverSpec, 'skipInvalid' | 'lower' | 'maxExponent' | 'maxDenominator' | 'proposals' | 'top' | 'bins' | 'heldOut'>
-    >
-  >;
-  output: string;
-}
+export type RunConfig = z.output<typeof RunConfigSchema>;
 
 /** Key path (list indices as `#`) → library option key, for every table option of the configuration. */
 const OPTION_AT = new Map<string, string>(
@@ -276,6 +211,7 @@ const OPTION_AT = new Map<string, string>(
       [SEARCH_OPTIONS, 'search.#.'],
       [BOUND_OPTIONS, 'bounds.#.'],
       [DISCOVER_OPTIONS, 'discover.#.'],
+      [RESIDUAL_OPTIONS, 'residual.'],
     ] as const
   ).flatMap(([table, prefix]) => table.flatMap((o) => (configKeyOf(o) === null ? [] : [[prefix + configKeyOf(o)!, o.key] as [string, string]]))),
 );
@@ -463,7 +399,7 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
     // a bad value of a table option is option.badValue, as in the library and on the command line
     throw new SurmiseError(option.option ? 'option.badValue' : 'config.badValue', `${where(node?.range?.[0])}: ${keyPath(path)}: ${expected}, got ${describe(got)}`, { key: keyPath(path), ...option });
   }
-  const config = parsed.data as unknown as RunConfig;
+  const config: RunConfig = parsed.data;
   const base = baseDir ?? dirname(resolve(file));
   config.table = resolve(base, config.table);
   config.output = resolve(base, config.output);

@@ -182,6 +182,7 @@ export function buildReportInput(
               ? { slope: r.trend.slope, low: r.trend.low, high: r.trend.high, kind: r.trend.kind, verdict: r.trend.verdict }
               : null,
             points: { by: r.points.by, ratio: r.points.ratio, sampledFrom: r.points.sampledFrom, ...labelsOfRows(r.points.rows) },
+            notes: r.notes,
           };
         }),
       };

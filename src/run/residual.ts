@@ -7,7 +7,9 @@
  * top of them. Evidence on this table, not a proof.
  */
 import { SurmiseError, didYouMean } from '../errors.ts';
-import { checkInteger, type IntegerRange } from '../util/integer.ts';
+import type { IntegerRange } from '../util/integer.ts';
+import { checkOptions, optionOf, type OptionTable } from '../util/option-table.ts';
+import { INTEGER_RANGE_PATTERN } from '../util/range.ts';
 import type { Column, Table } from '../table/types.ts';
 import { expressionColumns, parseExpression } from '../table/expr/index.ts';
 import { rankFeatures, type RankOptions, type RankProgress, type RankResult } from '../attribute/rank.ts';
@@ -15,13 +17,40 @@ import { fitRelation, type FitResult } from '../relate/fit.ts';
 import { searchRelations, type SearchCandidate, type SearchResult } from '../relate/search.ts';
 import type { Note } from '../util/note.ts';
 
-/** Ranges of the residual ranking's own count options (the ranking's are RANK_LIMITS). */
+/**
+ * The residual ranking's own options (the ranking's are RANK_OPTIONS): one table that
+ * residualRanking checks against and the `residual` command and the configuration's `residual`
+ * block are built from. In the library the next-term search's options sit under `search`
+ * (`search.maxTerms`, `search.powers` as [lo, hi], `search.columns`).
+ */
+export const RESIDUAL_OPTIONS = [
+  { key: 'intercept', type: 'boolean', default: true, description: 'fit the formula with the constant term' },
+  { key: 'from', type: 'list', min: 1, default: null, description: 'rank only these columns (default: every numeric column the target and terms do not read)' },
+  { key: 'absolute', type: 'boolean', default: true, description: 'also rank the absolute residual (the size of the error, for bounds)' },
+  // each more term multiplies the subsets the next-term search tries
+  { key: 'maxTerms', type: 'integer', min: 1, max: 3, default: 1, description: 'most terms the next-term search adds' },
+  { key: 'powers', type: 'text', default: '-3..3', pattern: { re: INTEGER_RANGE_PATTERN, expected: 'a range such as -3..3' }, shell: 'read as the library\'s [lo, hi]', description: 'integer powers for the next-term search' },
+  { key: 'columns', type: 'integer', min: 1, max: 20, default: 3, description: 'leading columns of the residual ranking the next-term search draws from' },
+] as const satisfies OptionTable;
+
+const range = (key: string): IntegerRange => {
+  const o = optionOf(RESIDUAL_OPTIONS, key) as IntegerRange;
+  return { min: o.min, max: o.max };
+};
+
+/** Ranges of the residual ranking's own count options, read from RESIDUAL_OPTIONS. */
 export const RESIDUAL_LIMITS = Object.freeze({
-  /** Terms the next-term search may add: each more multiplies the subsets tried. */
-  maxTerms: { min: 1, max: 3 },
-  /** Leading columns the next-term search draws from. */
-  columns: { min: 1, max: 20 },
+  maxTerms: range('maxTerms'),
+  columns: range('columns'),
 } satisfies Record<string, IntegerRange>);
+
+interface ResidualChecked {
+  intercept: boolean;
+  from: string[] | null;
+  absolute: boolean;
+  maxTerms: number;
+  columns: number;
+}
 
 export interface ResidualSpec {
   target: string;
@@ -83,15 +112,20 @@ function realColumn(name: string, n: number, rows: Int32Array, values: ArrayLike
 /** Fit, rank the remaining columns on the residual (and |residual|), and search the next term. */
 export async function residualRanking(table: Table, spec: ResidualSpec): Promise<ResidualResult> {
   const seed = spec.seed ?? spec.rank?.seed ?? 1;
-  if (spec.search?.maxTerms !== undefined) checkInteger('maxTerms', spec.search.maxTerms, RESIDUAL_LIMITS.maxTerms);
-  if (spec.search?.columns !== undefined) checkInteger('columns', spec.search.columns, RESIDUAL_LIMITS.columns);
-  const fitFull = fitRelation(table, { target: spec.target, terms: spec.terms, intercept: spec.intercept ?? true, seed, keepResiduals: true });
+  const o = checkOptions<ResidualChecked & Record<string, unknown>>(RESIDUAL_OPTIONS, {
+    intercept: spec.intercept,
+    from: spec.from,
+    absolute: spec.absolute,
+    maxTerms: spec.search?.maxTerms,
+    columns: spec.search?.columns,
+  });
+  const fitFull = fitRelation(table, { target: spec.target, terms: spec.terms, intercept: o.intercept, seed, keepResiduals: true });
   const { residuals, ...fit } = fitFull;
   const res = residuals!;
   const notes: ResidualResult['notes'] = [];
   const used = new Set([spec.target, ...spec.terms].flatMap((e) => expressionColumns(parseExpression(e))));
   const features =
-    spec.from ??
+    o.from ??
     table.columns.filter((c) => c.kind !== 'label' && !used.has(c.name)).map((c) => c.name);
   for (const f of features) {
     if (!table.columns.some((c) => c.name === f)) {
@@ -118,10 +152,10 @@ export async function residualRanking(table: Table, spec: ResidualSpec): Promise
       ...(spec.onProgress ? { onProgress: (e: RankProgress) => spec.onProgress!({ ...e, ranking: which }) } : {}),
     });
   const ranking = await rankWith(residualName, 'residual');
-  const absolute = spec.absolute === false ? null : await rankWith(absName, 'absolute residual');
+  const absolute = !o.absolute ? null : await rankWith(absName, 'absolute residual');
 
   // next term: the leading columns, those above the noise level when any are
-  const k = spec.search?.columns ?? 3;
+  const k = o.columns;
   const above = ranking.ranking.filter((e) => e.aboveNoise);
   const lead = (above.length ? above : ranking.ranking).slice(0, k).map((e) => e.feature);
   if (ranking.noise && above.length === 0) notes.push({ kind: 'noise', text: 'no column lies above the noise level on the residual: the next-term search below ranges over the top columns anyway and is weak evidence' });
@@ -130,7 +164,7 @@ export async function residualRanking(table: Table, spec: ResidualSpec): Promise
     const search = searchRelations(withRes, {
       target: residualName,
       from: lead,
-      maxTerms: spec.search?.maxTerms ?? 1,
+      maxTerms: o.maxTerms,
       powers: spec.search?.powers ?? [-3, 3],
       top: spec.search?.top ?? 5,
       seed,

@@ -185,7 +185,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
       ...(rc.from ? { from: rc.from } : {}),
       absolute: rc.absolute,
       rank: (({ features: _f, exclude: _e, ...o }) => o)(rankOptions),
-      search: { maxTerms: rc.maxTerms, powers: parsePowers(rc.powers) },
+      search: { maxTerms: rc.maxTerms, powers: parsePowers(rc.powers), columns: rc.columns },
       seed: config.seed,
       ...(opts.onRankProgress ? { onProgress: opts.onRankProgress } : {}),
     });

@@ -7,6 +7,8 @@
 import { kahanSum } from '../util/sum.ts';
 import { Rng, deriveSeed } from '../util/rng.ts';
 import type { Column, ColumnKind, Table } from './types.ts';
+import { checkOptions, optionOf } from '../util/option-table.ts';
+import { INSPECT_OPTIONS } from './options.ts';
 
 export interface Stats {
   /** finite, non-missing values used */
@@ -57,7 +59,8 @@ export interface TableProfile {
   notes: string[];
 }
 
-export const CORRELATION_SAMPLE = 200_000;
+/** The rows rank correlations are computed on by default (INSPECT_OPTIONS.sampleRows). */
+export const CORRELATION_SAMPLE = optionOf(INSPECT_OPTIONS, 'sampleRows').default as number;
 export const TOP_CORRELATIONS = 10;
 /** Most pairs of numeric series correlated (10,000 columns would make 50 million). */
 export const MAX_CORRELATION_PAIRS = 500_000;
@@ -326,7 +329,8 @@ function countMissing(m: Uint8Array): number {
 }
 
 /** The profile of a table; correlations on at most 200,000 rows drawn with a fixed seed. */
-export function profileTable(table: Table, opts: { sampleRows?: number; seed?: number } = {}): TableProfile {
+export function profileTable(table: Table, options: { sampleRows?: number; seed?: number } = {}): TableProfile {
+  const opts = checkOptions<{ sampleRows: number; seed: number }>(INSPECT_OPTIONS, options);
   const notes: string[] = [];
   const columns: ColumnProfile[] = table.columns.map((c) => {
     const missing = countMissing(c.missing);
@@ -363,11 +367,11 @@ export function profileTable(table: Table, opts: { sampleRows?: number; seed?: n
     if (c.kind === 'integer') p.distinct = distinctCount(c);
     return p;
   });
-  const limit = opts.sampleRows ?? CORRELATION_SAMPLE;
+  const limit = opts.sampleRows;
   const sampled = table.nRows > limit;
   let rows: Int32Array;
   if (sampled) {
-    const perm = new Rng(deriveSeed(opts.seed ?? 0, 'profile', 'correlation-sample')).permutation(table.nRows);
+    const perm = new Rng(deriveSeed(opts.seed, 'profile', 'correlation-sample')).permutation(table.nRows);
     rows = perm.subarray(0, limit).sort();
     notes.push(`correlations on ${limit.toLocaleString('en-US')} of ${table.nRows.toLocaleString('en-US')} rows, drawn at random with a fixed seed`);
   } else {

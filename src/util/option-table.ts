@@ -51,6 +51,32 @@ export type OptionSpec = OptionBase &
 
 export type OptionTable = readonly OptionSpec[];
 
+/** The value of an option as the library and the configuration hold it (a table declared `as const` gives the literal types). */
+export type OptionValue<O extends OptionSpec> = O extends { type: 'integer' | 'number' }
+  ? number
+  : O extends { type: 'choice'; choices: readonly (infer C)[] }
+    ? C
+    : O extends { type: 'boolean' }
+      ? boolean
+      : O extends { type: 'text' }
+        ? string
+        : O extends { type: 'list'; choices: readonly (infer C)[] }
+          ? C[]
+          : O extends { type: 'list' }
+            ? string[]
+            : O extends { type: 'integers' }
+              ? number[]
+              : never;
+
+/** The configuration key (path) of an option, or never when the configuration has none (see configKeyOf). */
+export type ConfigKeyOf<O extends OptionSpec> = O extends { configKey: false } ? never : O extends { configKey: infer K extends string } ? K : O['key'];
+
+/** The largest seed (seeds are 32-bit unsigned). */
+export const SEED_MAX = 0xffffffff;
+
+/** The row of a `seed` option: every seed of the project defaults to 1. */
+export const seedOption = (description: string) => ({ key: 'seed', type: 'integer', min: 0, max: SEED_MAX, default: 1, description }) as const;
+
 /** `dropTop` → `drop-top`. */
 export const kebab = (key: string): string => key.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
 

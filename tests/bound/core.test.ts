@@ -226,7 +226,8 @@ describe('trend of the per-stratum constant', () => {
     const ratio = Float64Array.from(t, (v) => Math.exp(3 * v) * rng.next());
     const res = boundArrays(ratio, Float64Array.from(t), all(t.length), { bins: 10, top: 1, upper: true, byName: 't' });
     expect(res.trend.basis).toBe('rank');
-    expect(res.notes.join(' ')).toMatch(/values ≤ 0.*rank/);
+    expect(res.notes.map((n) => n.text).join(' ')).toMatch(/values ≤ 0.*rank/);
+    expect(res.notes.map((n) => n.kind)).toContain('rankBasis');
     expect(res.trend.kind).toBe('up');
   });
 
@@ -236,6 +237,7 @@ describe('trend of the per-stratum constant', () => {
     expect(res.trend.kind).toBe('none');
     expect(res.trend.determined).toBe(false);
     expect(res.trend.verdict).toMatch(/^no trend detected: not testable/);
-    expect(res.notes.join(' ')).toMatch(/c\* = -1 ≤ 0/);
+    expect(res.notes.map((n) => n.text).join(' ')).toMatch(/c\* = -1 ≤ 0/);
+    expect(res.notes.map((n) => n.kind)).toContain('nonPositive');
   });
 });

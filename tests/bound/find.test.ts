@@ -94,7 +94,8 @@ describe('findBound through the expression language', () => {
     const t = table([real('a', [-3, -1, -2, -5]), real('b', [1, 2, 3, 4])]);
     const r = findBound(t, { lhs: 'a', rhs: 'b', bins: 2 }).results[0]!;
     expect(r.constant).toBe(-0.5);
-    expect(r.notes.join(' ')).toMatch(/≤ 0/);
+    expect(r.notes.map((n) => n.text).join(' ')).toMatch(/≤ 0/);
+    expect(r.notes[0]!.kind).toBe('nonPositive');
   });
 
   it('compares several rhs candidates side by side, in the order given', () => {

@@ -45,7 +45,7 @@ describe('surmise residual', () => {
     const cases: Array<[string[], RegExp]> = [
       [['--max-terms', '4'], /expected --max-terms to be at most 3 \(its ceiling\), got 4/],
       [['--probes', '99'], /expected --probes to be at most 50 \(its ceiling\), got 99/],
-      [['--from', 'a,,b'], /--from a,,b: expected comma-separated names with none empty/],
+      [['--from', 'a,,b'], /--from a,,b: expected comma-separated entries with none empty/], // the options table's wording for every list flag
       [['--powers', '3..1'], /--powers 3\.\.1: the lower end 3 exceeds the upper end 1/],
     ];
     for (const [args, re] of cases) {

@@ -5,6 +5,9 @@ import { initBackend, trainNetwork, networkFromJSON, evaluate, selectRidge, type
 import { Rng } from '../../src/util/rng.ts';
 import { friedman } from '../helpers/friedman.ts';
 import { SurmiseError } from '../../src/errors.ts';
+import { DEFAULT_NETWORK_OPTIONS, NETWORK_OPTIONS } from '../../src/learn/options.ts';
+import { RANK_DEFAULTS, RANK_OPTIONS } from '../../src/attribute/options.ts';
+import { configKeyOf } from '../../src/util/option-table.ts';
 
 
 /** Float64 reference forward pass written from the saved state (independent of tfjs). */
@@ -84,7 +87,8 @@ describe('network', () => {
     const tr = friedman(4000, 21);
     const va = friedman(1000, 22);
     const te = friedman(1000, 23);
-    const net = await trainNetwork(tr, va, { hidden: [64, 64, 64], seed: 5, maxEpochs: 150 });
+    // the settings this check was made with (before the network's defaults became the ranking's)
+    const net = await trainNetwork(tr, va, { hidden: [64, 64, 64], seed: 5, maxEpochs: 150, learningRate: 1e-3, patience: 10, batchSize: 256 });
     const nn = evaluate(net, te);
     const ridge = evaluate(selectRidge(tr, va, 'regression').model, te);
     // Friedman 1991: the sin and square terms are not linear, so a linear fit leaves ~25% of the variance
@@ -196,12 +200,37 @@ describe('network', () => {
 
   it('rejects bad options and bad data with typed errors naming the place', async () => {
     const tr = friedman(50, 1);
-    await expect(trainNetwork(tr, tr, { batchSize: 0 })).rejects.toThrow('expected batchSize to be a positive integer, got 0');
+    await expect(trainNetwork(tr, tr, { batchSize: 0 })).rejects.toThrow('expected batchSize to be an integer ≥ 1, got 0'); // NETWORK_OPTIONS' wording, as every options table
     await expect(trainNetwork(tr, tr, { hiden: [3] } as never)).rejects.toThrow(SurmiseError);
     const bad = { ...tr, x: Float64Array.from(tr.x) };
     bad.x[2 * 10 + 3] = NaN;
     await expect(trainNetwork(bad, tr, {})).rejects.toThrow('training rows: input row 3, column 4 is NaN');
     // a real-valued target forced into classification: every row its own class
     await expect(trainNetwork(friedman(600, 2), tr, { task: 'classification' })).rejects.toThrow(/600 distinct target values/);
+  });
+});
+
+describe('one table of network options (NETWORK_OPTIONS), shared with the ranking', () => {
+  it('has one default per option: the ranking takes the network rows as they are', () => {
+    // each network row of RANK_OPTIONS is learn's row under its config key network.* (maxEpochs is `epochs`)
+    for (const o of NETWORK_OPTIONS) {
+      const r = RANK_OPTIONS.find((x) => x.key === (o.key === 'maxEpochs' ? 'epochs' : o.key) && configKeyOf(x)?.startsWith('network.'));
+      if (o.key === 'seed') continue; // the ranking's seed is the one every network seed is derived from (deriveSeed)
+      expect(r, o.key).toBeDefined();
+      expect(r!.default, o.key).toEqual(o.default);
+      expect({ ...r, key: o.key, configKey: undefined }, o.key).toEqual({ ...o, configKey: undefined });
+    }
+    // common practice: every seed of the project defaults to 1
+    expect(DEFAULT_NETWORK_OPTIONS.seed).toBe(1);
+    expect(RANK_DEFAULTS.seed).toBe(1);
+  });
+
+  it('records the options used: a batch size chosen from the training rows is written into the state', async () => {
+    const tr = friedman(90, 61);
+    const net = await trainNetwork(tr, friedman(30, 62), { hidden: [4], maxEpochs: 1 });
+    // batchSizeFor: 2^⌊log₂(90/8)⌋ = 8 (our rule, src/learn/batch-size.ts)
+    expect(net.toJSON().options.batchSize).toBe(8);
+    expect(net.toJSON().options.learningRate).toBe(DEFAULT_NETWORK_OPTIONS.learningRate);
+    net.dispose();
   });
 });

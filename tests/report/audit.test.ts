@@ -191,3 +191,26 @@ describe('residual section (what the first fit leaves over)', () => {
     expect(md).toContain('Fit next with the terms `a^2; b^2`.');
   });
 });
+
+describe('bound notes', () => {
+  it('lists the bound stage’s notes as given (the report never reads their words)', async () => {
+    const note = { kind: 'extremeStratum', text: 'the overall maximum ratio sits in the highest stratum of w (3 ≤ w ≤ 4)' };
+    const result = { rhs: 'b', constant: 2, witnesses: [], quantiles: {}, strata: [], trend: null, notes: [note] };
+    const md = (await renderReport({ ...header(), bounds: [{ lhs: 'a', by: 'w', results: [result] }] }, { png: false })).markdown;
+    expect(md).toContain(`Note: ${note.text}`);
+    const without = (await renderReport({ ...header(), bounds: [{ lhs: 'a', by: 'w', results: [{ ...result, notes: [] }] }] }, { png: false })).markdown;
+    expect(without).not.toContain('Note:');
+  });
+});
+
+describe('methods named by their registered labels', () => {
+  it('titles each method by the label of its strategy (src/attribute/methods), keeping the name in the plot file', async () => {
+    const ranking = [iv('a', 0.6, 0.5, 0.7), iv('b', 0.4, 0.3, 0.5)];
+    const methods = { integrated: { ranking, kendallTau: 1 }, smoothgrad: { ranking, kendallTau: 1 }, other: { ranking, kendallTau: 1 } };
+    const md = (await renderReport({ ...header(), rank: rank(ranking, { methods }) }, { png: false })).markdown;
+    expect(md).toContain('**Method: integrated gradients**');
+    expect(md).toContain('![Attribution by integrated gradients](plots/attribution-integrated.svg)');
+    expect(md).toContain('**Method: SmoothGrad**');
+    expect(md).toContain('**Method: other**'); // a name no strategy has is shown as given
+  });
+});

@@ -1,6 +1,9 @@
-import { describe, it, expect } from 'vitest';
+import { describe, it, expect, expectTypeOf } from 'vitest';
 import { fileURLToPath } from 'node:url';
-import { parseConfig, loadConfig } from '../../src/run/config.ts';
+import { parseConfig, loadConfig, type RunConfig } from '../../src/run/config.ts';
+import type { EngineChoice } from '../../src/learn/engines.ts';
+import type { AttributionMethod } from '../../src/attribute/types.ts';
+import type { BoundForm } from '../../src/bound/options.ts';
 import { SurmiseError } from '../../src/errors.ts';
 
 function refusal(text: string): { code: string; message: string } {
@@ -72,7 +75,7 @@ describe('run configuration', () => {
 
   it('residual: defaults filled; probes and maxTerms have ceilings, refused at their key', () => {
     const { config } = parseConfig('table: a.csv\ntarget: y\nresidual:\n  target: y\n  terms: a^2\n', 'cfg.yaml');
-    expect(config.residual).toEqual({ target: 'y', terms: ['a^2'], intercept: true, absolute: true, maxTerms: 1, powers: '-3..3' });
+    expect(config.residual).toEqual({ target: 'y', terms: ['a^2'], intercept: true, absolute: true, maxTerms: 1, powers: '-3..3', columns: 3 }); // columns: the new key (RESIDUAL_OPTIONS)
     expect(config.attribution.probes).toBe(6);
     expect(refusal('table: a.csv\ntarget: y\nattribution:\n  probes: 51\n')).toEqual({
       code: 'option.tooLarge',
@@ -144,5 +147,24 @@ describe('run configuration', () => {
       code: 'option.badValue',
       message: "cfg.yaml:6:11: search.powers: expected a range such as -3..3, got '1-3'",
     });
+  });
+});
+
+describe('RunConfig is the schema\'s output type, built from the options tables', () => {
+  it('keys and value types follow the tables (these checks are made by tsc in npm test)', () => {
+    expectTypeOf<RunConfig['network']['epochs']>().toEqualTypeOf<number>();
+    expectTypeOf<RunConfig['network']['batchSize']>().toEqualTypeOf<number | undefined>(); // no default in the table: optional
+    expectTypeOf<RunConfig['network']['engine']>().toEqualTypeOf<EngineChoice>();
+    expectTypeOf<RunConfig['attribution']['methods']>().toEqualTypeOf<AttributionMethod[]>();
+    expectTypeOf<RunConfig['bounds'][number]['form']>().toEqualTypeOf<BoundForm>();
+    expectTypeOf<RunConfig['search'][number]['maxTerms']>().toEqualTypeOf<number>();
+    expectTypeOf<NonNullable<RunConfig['residual']>['columns']>().toEqualTypeOf<number>();
+    expectTypeOf<RunConfig['seed']>().toEqualTypeOf<number>();
+    expectTypeOf<RunConfig['features']>().toEqualTypeOf<string[] | undefined>();
+    // and at run time the parsed values are those types
+    const { config } = parseConfig('table: t.csv\ntarget: y\n', 'cfg.yaml');
+    expect(config.network.epochs).toBe(60);
+    expect(config.network.batchSize).toBeUndefined();
+    expect(config.attribution.methods).toEqual(['saliency', 'smoothgrad', 'integrated', 'permutation']);
   });
 });

@@ -14,6 +14,10 @@ import { parseConfig, RunConfigSchema } from '../../src/run/config.ts';
 import { RANK_OPTIONS } from '../../src/attribute/options.ts';
 import { FIT_OPTIONS, SEARCH_OPTIONS } from '../../src/relate/options.ts';
 import { BOUND_OPTIONS, DISCOVER_OPTIONS } from '../../src/bound/options.ts';
+import { RESIDUAL_OPTIONS } from '../../src/run/residual.ts';
+import { INSPECT_OPTIONS } from '../../src/table/options.ts';
+import { DEMO_DATA_OPTIONS } from '../../src/demo/options.ts';
+import { KNOTS_OPTIONS } from '../../src/knots/options.ts';
 import { configKeyOf, flagOf, type OptionTable } from '../../src/util/option-table.ts';
 import { Rng } from '../../src/util/rng.ts';
 
@@ -34,6 +38,7 @@ const STAGES: Stage[] = [
   { name: 'search', table: SEARCH_OPTIONS, command: 'search', path: ['search'], parsed: ['search', 0], yaml: 'search:\n  target: y\n  from: [x]\n' },
   { name: 'bound', table: BOUND_OPTIONS, command: 'bound', path: ['bounds', 0], yaml: 'bounds:\n  - lhs: y\n    rhs: x\n' },
   { name: 'discover', table: DISCOVER_OPTIONS, command: 'bound', path: ['discover', 0], yaml: 'discover:\n  - lhs: y\n    from: [x]\n' },
+  { name: 'residual', table: RESIDUAL_OPTIONS, command: 'residual', path: ['residual'], yaml: 'residual:\n  target: y\n  terms: [x]\n' },
 ];
 
 const at = (v: unknown, path: ReadonlyArray<string | number>): unknown =>
@@ -104,6 +109,8 @@ async function json(args: string[]): Promise<Record<string, unknown>> {
   return JSON.parse(io.out) as Record<string, unknown>;
 }
 
+type RankOutcome = { model: { score: number }; ranking: unknown };
+
 /** What a run found, without the settings it echoes back (those always differ). */
 function outcome(r: Record<string, unknown>, stage: string): string {
   if (r.refused !== undefined) return `refused: ${String(r.refused)}`;
@@ -115,6 +122,11 @@ function outcome(r: Record<string, unknown>, stage: string): string {
   if (stage === 'fit') return JSON.stringify(pick(r, ['terms', 'n', 'r2', 'rmse', 'cvRmse', 'heldOut', 'orthogonal', 'errorsInVariables']));
   if (stage === 'search') return JSON.stringify(pick(r, ['candidates', 'front', 'lattice', 'nCandidateTerms', 'nCandidatesTried', 'selectionRows']));
   if (stage === 'bound') return JSON.stringify(pick(r, ['results', 'n', 'dropped', 'form']));
+  if (stage === 'residual') {
+    const ranked = (k: RankOutcome | null) => (k ? { score: k.model.score, ranking: k.ranking } : null);
+    const next = r.next as { from: string[]; proposal: unknown; search: { nCandidatesTried: number; nCandidateTerms: number } } | null;
+    return JSON.stringify({ fit: r.fit, features: r.features, ranking: ranked(r.ranking as RankOutcome), absolute: ranked(r.absolute as RankOutcome | null), next: next && { from: next.from, proposal: next.proposal, tried: next.search.nCandidatesTried, terms: next.search.nCandidateTerms } });
+  }
   return JSON.stringify(pick(r, ['proposals', 'used', 'selectionRows', 'dropped', 'form']));
 }
 
@@ -205,6 +217,17 @@ const DISCOVER_VARIANTS: Record<string, Variant> = {
   exceedances: { args: ['--exceedances', '30'] },
 };
 
+// residual: y = 2·x1 + x2 + noise, fitted on x1 alone; the rest ranked on what it leaves over
+const RESIDUAL_BASE = ['residual', 't.csv', '--target', 'y', '--terms', 'x1', '--from', 'x2,x3,r', '--epochs', '3', '--seeds', '1', '--hidden', '4', '--probes', '0', '--resamples', '10', '--method', 'saliency', '--attribution-rows', '30'];
+const RESIDUAL_VARIANTS: Record<string, Variant> = {
+  intercept: { args: ['--no-intercept'] },
+  from: { args: ['--from', 'x2,x3'] },
+  absolute: { args: ['--no-absolute'] },
+  maxTerms: { args: ['--max-terms', '2'], with: ['--columns', '3'] },
+  powers: { args: ['--powers', '1..2'] },
+  columns: { args: ['--columns', '1'] },
+};
+
 /** Replace the values of flags given in `w` (each flag followed by one value, or alone when boolean). */
 function withFlags(base: string[], w: string[] = []): string[] {
   const out = [...base];
@@ -224,6 +247,7 @@ const RUNS: Array<[string, OptionTable, string[], Record<string, Variant>]> = [
   ['search', SEARCH_OPTIONS, SEARCH_BASE, SEARCH_VARIANTS],
   ['bound', BOUND_OPTIONS, BOUND_BASE, BOUND_VARIANTS],
   ['discover', DISCOVER_OPTIONS, DISCOVER_BASE, DISCOVER_VARIANTS],
+  ['residual', RESIDUAL_OPTIONS, RESIDUAL_BASE, RESIDUAL_VARIANTS],
 ];
 
 describe('every option changes the outcome, or its table says why not', () => {
@@ -251,7 +275,7 @@ describe('every option changes the outcome, or its table says why not', () => {
 });
 
 describe('one failure, one code: a value below an option\'s range is option.badValue on the command line and in a configuration', () => {
-  const BASES: Record<string, string[]> = { rank: RANK_BASE, fit: FIT_BASE, search: SEARCH_BASE, bound: BOUND_BASE, discover: DISCOVER_BASE };
+  const BASES: Record<string, string[]> = { rank: RANK_BASE, fit: FIT_BASE, search: SEARCH_BASE, bound: BOUND_BASE, discover: DISCOVER_BASE, residual: RESIDUAL_BASE };
   for (const s of STAGES) {
     it(s.name, async () => {
       let checked = 0;
@@ -297,4 +321,78 @@ describe('an inert option leaves the outcome as it is', () => {
     expect((r.cuts as { time: boolean }).time).toBe(false);
     expect(outcome(r, 'search')).toBe(outcome(await json(SEARCH_BASE), 'search'));
   }, 120_000);
+});
+
+// ---------------------------------------------------------------------------------------------
+// Tables of commands that make or look at tables outside a run (inspect, demo-data, knots): every
+// option has a flag on its command, says why the configuration has no key, and changes what the
+// command prints (or says in the table why not).
+
+interface CommandTable {
+  name: string;
+  table: OptionTable;
+  /** The command path (`knots`, `demo-data`) and the base arguments after it. */
+  base: string[];
+  variants: Record<string, Variant>;
+}
+
+const COMMAND_TABLES: CommandTable[] = [
+  {
+    name: 'inspect',
+    table: INSPECT_OPTIONS,
+    base: ['inspect', 't.csv', '--json', '--no-progress'],
+    variants: { sampleRows: { args: ['--sample-rows', '50'] }, seed: { args: ['--seed', '7'], with: ['--sample-rows', '50'] } },
+  },
+  { name: 'demo-data', table: DEMO_DATA_OPTIONS, base: ['demo-data', '--no-progress'], variants: { seed: { args: ['--seed', '2'] } } },
+  {
+    name: 'knots',
+    table: KNOTS_OPTIONS,
+    // codes.csv: the trefoil's DT code 4 6 2 (read as a braid it is another link), its braid word 1 1 1
+    base: ['knots', 'codes.csv', '--kind', 'braid', '--column', 'code', '--no-progress'],
+    variants: {
+      kind: { args: ['--kind', 'dt'] },
+      column: { args: ['--column', 'alt'] },
+      nameColumn: { args: ['--name-column', 'id'] },
+      invariants: { args: ['--invariants', 'crossings'] },
+      omega: { args: ['--omega', '0.25'] },
+      prefix: { args: ['--prefix', 'k_'] },
+    },
+  },
+];
+
+/** What a command printed, or `refused: code`. */
+async function printed(args: string[]): Promise<string> {
+  const io = memoryIO(dir);
+  const code = await runCli(args, io);
+  if (code === 2) return `refused: ${/\[([\w.]+)\]\n$/.exec(io.err)?.[1]}`;
+  expect(code, `${args.join(' ')}: ${io.err}`).toBe(0);
+  return io.out;
+}
+
+describe('command-only tables: a flag each, no configuration key (and why), and each option changes what is printed', () => {
+  beforeAll(() => {
+    writeFileSync(join(dir, 'codes.csv'), 'name,code,alt,id\ntrefoil,4 6 2,1 1 1,k3a1\n');
+  });
+  const program = buildProgram(memoryIO());
+  for (const c of COMMAND_TABLES) {
+    it(`${c.name}: every option has a flag and says why it has no configuration key`, () => {
+      const cmd = program.commands.find((x) => x.name() === c.base[0])!;
+      for (const o of c.table) {
+        const flag = flagOf(o)!;
+        expect(cmd.options.some((x) => x.long === flag), `${c.name}.${o.key}: no ${flag}`).toBe(true);
+        expect(configKeyOf(o) === null || o.configAbsent !== undefined, `${c.name}.${o.key}`).toBe(true);
+        expect(o.configAbsent, `${c.name}.${o.key}: no reason for the missing configuration key`).toBeTruthy();
+        if (o.inert) expect(c.variants[o.key], `${c.name}.${o.key} is inert and also demonstrated`).toBeUndefined();
+        else expect(c.variants[o.key], `${c.name}.${o.key}: neither inert nor demonstrated`).toBeDefined();
+      }
+    });
+    for (const [key, v] of Object.entries(c.variants)) {
+      it(`${c.name}: ${v.args.join(' ')} changes what is printed`, async () => {
+        const b = withFlags(c.base, v.with);
+        const before = await printed(b);
+        expect(before).not.toMatch(/^refused/);
+        expect(await printed(withFlags(b, v.args)), `${c.name}.${key}`).not.toBe(before);
+      }, 120_000);
+    }
+  }
 });

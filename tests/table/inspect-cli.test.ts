@@ -95,7 +95,8 @@ describe('surmise inspect', () => {
   it('--derive naming an existing column is table.duplicateColumn; a missing column is reported by the expression layer', async () => {
     const dup = await run(['inspect', 'census.csv', '--derive', 'amp=2']);
     expect(dup.code).toBe(2);
-    expect(dup.err).toBe("surmise: --derive amp=2: a column 'amp' already exists in census.csv [table.duplicateColumn]\n");
+    // the one derive service's wording (withDerived), as on rank, fit, search and bound
+    expect(dup.err).toBe("surmise: census.csv: derived column 'amp' would replace the table's column of the same name; choose another name [table.duplicateColumn]\n");
     const unk = await run(['inspect', 'census.csv', '--derive', 'x=volume*2']);
     expect(unk.code).toBe(2);
     // the expression layer adds a caret line under the expression (its own format); no stack trace
