@@ -26,6 +26,7 @@ import { recogniseTorusBraid } from './torus.ts';
 import { braidSummands, isKnotted, simplifyBraid } from './reduce.ts';
 import { pdToBraid } from '../vogel.ts';
 import { recogniseClosure } from './recognise.ts';
+import { recogniseDiagram } from './diagramsum.ts';
 import { combinatorics } from './triangulation.ts';
 import { cuspBases } from './cusp.ts';
 import { gluingEquations } from './equations.ts';
@@ -94,7 +95,15 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   if (k.freeLoops > 0 && d.info.nComponents > 1) return { geometry: 'not hyperbolic', reason: 'split link: a component is an unknotted loop apart from the rest' };
   if (k.pd.length === 0) return { geometry: 'not hyperbolic', reason: 'unknot (no crossings left after removing kinks)' };
   if (k.pd.length <= 2) return { geometry: 'not hyperbolic', reason: `${k.pd.length} crossings after removing kinks: unknot or Hopf link` };
-  const info = analysePD(k.pd);
+  // knots: circles meeting the diagram twice (connected sums; unknotted summands dropped)
+  let pdUsed = k.pd;
+  if (d.info.nComponents === 1 && k.pd.length <= VOGEL_LIMIT) {
+    const ds = recogniseDiagram(k.pd, { splits: 16 }, true);
+    if (ds.status === 'unknot') return { geometry: 'not hyperbolic', reason: 'unknot: the diagram is a connected sum of unknotted summands (circles meeting it twice), each recognised as the unknot' };
+    if (ds.status === 'not hyperbolic') return { geometry: 'not hyperbolic', reason: ds.reason };
+    if (ds.dropped > 0) pdUsed = ds.pd;
+  }
+  const info = analysePD(pdUsed);
   if (info.nPieces > 1) return { geometry: 'not hyperbolic', reason: 'split link: the diagram falls into separate pieces (an essential sphere)' };
   for (let comp = 0; comp < info.nComponents; comp++) {
     let over = false;
