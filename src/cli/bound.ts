@@ -1,32 +1,25 @@
 import type { Command } from 'commander';
 import { resolve } from 'node:path';
-import { readingProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
 import { addTableOptions, collect, flagFor, readTableOptions } from './options.ts';
 import { SurmiseError } from '../errors.ts';
-import { readTable, type TableFormat } from '../table/read.ts';
 import { writeTable } from '../table/write.ts';
-import { COLUMN_KINDS } from '../table/columns.ts';
 import { findBound } from '../bound/find.ts';
 import { discoverBound, type DiscoverSpec } from '../bound/discover.ts';
 import { BOUND_OPTIONS, DISCOVER_OPTIONS } from '../bound/options.ts';
 import type { OptionSpec, OptionTable } from '../util/option-table.ts';
-import { parseKindOptions } from './inspect.ts';
+import { addReadFlags, parseReadFlags, readWithFlags, type ReadFlags } from './read-flags.ts';
 import { formatBound, formatDiscovery } from '../bound/format.ts';
 import { witnessTable } from '../bound/witness-table.ts';
 import { toJson } from '../util/json.ts';
-import { parseDerive } from '../table/expr/derive.ts';
 
-interface BoundOptions {
+interface BoundOptions extends ReadFlags {
   lhs: string;
   rhs: string[];
   from?: string;
-  derive: string[];
-  kind: string[];
   witnesses?: string;
   force?: boolean;
   json?: boolean;
-  format?: string;
   progress: boolean;
   [table: string]: unknown;
 }
@@ -46,15 +39,13 @@ export function registerBound(program: Command, io: CliIO): void {
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
     .requiredOption('--lhs <expr>', 'left-hand side expression, e.g. "abs(3*k - z)"')
     .option('--rhs <expr>', 'right-hand side expression, > 0 on every row (repeat to compare candidates)', collect, [])
-    .option('--from <exprs>', 'search the rhs among monomials of these positive quantities (comma-separated, 1 to 6)')
-    .option('--derive <name=expr>', 'add a derived column before evaluating, e.g. ratio=re(zb/za) (repeatable)', collect, [])
-    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, []);
+    .option('--from <exprs>', 'search the rhs among monomials of these positive quantities (comma-separated, 1 to 6)');
+  addReadFlags(cmd);
   addTableOptions(cmd, BOUND_OPTIONS);
   addTableOptions(cmd, DISCOVER_OPTIONS);
   cmd
     .option('--witnesses <file>', 'write the witness rows with every column to this CSV/TSV/JSON file (atomically)')
     .option('--force', 'replace an existing --witnesses file')
-    .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
     .option('--json', 'print one JSON object on standard output')
     .option('--no-progress', 'no progress output on standard error')
     .action(async (file: string, opts: BoundOptions) => {
@@ -71,16 +62,10 @@ export function registerBound(program: Command, io: CliIO): void {
         }
       }
       const given = readTableOptions(own, opts);
-      const kinds = parseKindOptions(opts.kind);
+      const read = parseReadFlags(opts);
       const witnessPath = opts.witnesses !== undefined ? resolve(io.cwd, opts.witnesses) : null;
-      const reading = readingProgress(io, file, opts.progress);
-      const table = await readTable(resolve(io.cwd, file), {
-        displayName: file,
-        ...(opts.format !== undefined ? { format: opts.format as TableFormat } : {}),
-        ...(Object.keys(kinds).length ? { kinds } : {}),
-        onProgress: reading.onProgress,
-      }).finally(() => reading.stop());
-      const common = { ...given, derive: opts.derive.map((d) => parseDerive(d)) };
+      const table = await readWithFlags(io, file, read, opts.progress);
+      const common = { ...given, derive: read.derive };
       let text: string;
       let json: unknown;
       let groups: Array<{ rhs: string; witnesses: Array<{ row: number; ratio: number; lhs: number; rhs: number }> }>;

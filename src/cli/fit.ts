@@ -3,29 +3,23 @@
  * given terms (Householder QR), with intervals, simplest rationals, held-out and cross-validated
  * error. A thin shell over fitRelation (src/relate/fit.ts).
  */
-import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
-import { addTableOptions, collect, readTableOptions } from './options.ts';
+import { addTableOptions, readTableOptions } from './options.ts';
 import { FIT_OPTIONS } from '../relate/options.ts';
 import { optionOf } from '../util/option-table.ts';
 import { SurmiseError } from '../errors.ts';
-import { readTable } from '../table/read.ts';
-import { COLUMN_KINDS } from '../table/columns.ts';
-import type { ColumnKind, Table } from '../table/types.ts';
-import { parseDerive, withDerived } from '../table/expr/derive.ts';
+import type { Table } from '../table/types.ts';
+import { withDerived } from '../table/expr/derive.ts';
 import { fitRelation, type FitResult, type FitSpec } from '../relate/fit.ts';
-import { parseKindOptions } from './inspect.ts';
+import { addReadFlags, parseReadFlags, readWithFlags, type ReadFlags } from './read-flags.ts';
 import { splitRows } from '../relate/split-option.ts';
 import { alignTable, num } from '../relate/text.ts';
 import { toJson } from '../util/json.ts';
 
-export interface FitOptions {
+export interface FitOptions extends ReadFlags {
   target: string;
   terms: string;
-  derive: string[];
-  kind: string[];
-  format?: string;
   json?: boolean;
   [table: string]: unknown;
 }
@@ -106,18 +100,15 @@ export function registerFit(program: Command, io: CliIO): void {
     .description('least squares of a target expression on given terms, with intervals and simplest rational constants')
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
     .requiredOption('--target <expr>', 'expression to predict, e.g. "re(zb/za)"')
-    .requiredOption('--terms <list>', 'terms separated by ";", e.g. "sig; ux/uy^3"')
-    .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
-    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[]);
+    .requiredOption('--terms <list>', 'terms separated by ";", e.g. "sig; ux/uy^3"');
+  addReadFlags(cmd);
   addTableOptions(cmd, FIT_OPTIONS);
   cmd
-    .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
     .option('--json', 'print one JSON object')
     .action(async (file: string, o: FitOptions) => {
       const given = readTableOptions(FIT_OPTIONS, o) as { split?: string } & Omit<FitSpec, 'target' | 'terms' | 'split'>;
       const terms = splitTerms(o.terms);
-      const kinds = parseKindOptions(o.kind);
-      const table = await readDerived(io, file, o.derive, o.format, kinds);
+      const table = await readDerived(io, file, o);
       const { split: spec, ...options } = given;
       let split: FitSpec['split'];
       if (spec !== undefined) {
@@ -132,9 +123,8 @@ export function registerFit(program: Command, io: CliIO): void {
 
 const FIT_DEFAULT_SEED = optionOf(FIT_OPTIONS, 'seed').default as number;
 
-/** Read a table for fit or search, with declared kinds and `--derive` columns added. */
-export async function readDerived(io: CliIO, file: string, derives: string[], format: string | undefined, kinds: Record<string, ColumnKind>): Promise<Table> {
-  const derive = derives.map((d) => parseDerive(d));
-  const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(format ? { format: format as 'csv' } : {}), ...(Object.keys(kinds).length ? { kinds } : {}) });
-  return withDerived(table0, derive);
+/** Read a table as the reading flags say, with the `--derive` columns added (fit, search, residual). */
+export async function readDerived(io: CliIO, file: string, flags: ReadFlags): Promise<Table> {
+  const read = parseReadFlags(flags);
+  return withDerived(await readWithFlags(io, file, read, flags.progress ?? false), read.derive);
 }

@@ -4,48 +4,17 @@
  * strongest Spearman rank correlations. `--derive NAME=EXPR` adds computed columns first.
  */
 import type { Command } from 'commander';
-import { resolve } from 'node:path';
-import { readingProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
-import { SurmiseError, didYouMean } from '../errors.ts';
-import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
-import { COLUMN_KINDS } from '../table/columns.ts';
-import { parseComplexPairsOption } from '../table/complex-pairs.ts';
 import { profileTable, type ColumnProfile, type TableProfile } from '../table/profile.ts';
-import type { ColumnKind, Table } from '../table/types.ts';
-import { parseDerive, withDerived } from '../table/expr/index.ts';
+import { withDerived } from '../table/expr/index.ts';
 import { toJson } from '../util/json.ts';
 import { INSPECT_OPTIONS } from '../table/options.ts';
 import { addTableOptions, readTableOptions } from './options.ts';
+import { addReadFlags, parseReadFlags, readWithFlags, type ReadFlags } from './read-flags.ts';
 
-interface InspectOptions {
-  derive: string[];
-  kind: string[];
-  complexPairs: string[];
-  format?: string;
+interface InspectOptions extends ReadFlags {
   json?: boolean;
   progress: boolean;
-}
-
-const collect = (v: string, prev: string[]) => [...prev, v];
-
-/** `--kind name=kind` values into a kinds record (errors name the option). */
-export function parseKindOptions(specs: string[]): Record<string, ColumnKind> {
-  const kinds: Record<string, ColumnKind> = {};
-  for (const s of specs) {
-    const eq = s.lastIndexOf('=');
-    const name = eq < 0 ? '' : s.slice(0, eq).trim();
-    const kind = eq < 0 ? '' : s.slice(eq + 1).trim();
-    if (eq < 0 || name === '')
-      throw new SurmiseError('cli.badKind', `--kind ${s}: expected NAME=KIND, e.g. --kind crossings=integer`);
-    if (!COLUMN_KINDS.includes(kind as ColumnKind))
-      throw new SurmiseError(
-        'cli.badKind',
-        `--kind ${s}: '${kind}' is not a column kind; expected one of ${COLUMN_KINDS.join(', ')}${didYouMean(kind, COLUMN_KINDS)}`,
-      );
-    kinds[name] = kind as ColumnKind;
-  }
-  return kinds;
 }
 
 function fmtNum(x: number | null | undefined): string {
@@ -106,42 +75,14 @@ export function registerInspect(program: Command, io: CliIO): void {
   const cmd = program
     .command('inspect')
     .description('Read a table (CSV, TSV, JSON, JSON Lines) and summarise its columns, duplicates and rank correlations')
-    .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
-    .option('--derive <name=expr>', 'add a computed column before profiling (repeatable), e.g. ratio=re(zb/za)', collect, [])
-    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [])
-    .option(
-      '--complex-pairs <rule>',
-      'join real/imaginary column pairs: auto (X_re/X_im and X.re/X.im, unless a kind is declared for a part or, other than complex, for X), none, or NAME=RE,IM (repeatable)',
-      collect,
-      [],
-    )
-    .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
+    .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)');
+  addReadFlags(cmd)
     .option('--json', 'print one JSON object instead of the text view')
     .option('--no-progress', 'do not report reading progress on stderr');
   addTableOptions(cmd, INSPECT_OPTIONS);
   cmd.action(async (file: string, opts: InspectOptions) => {
-    const kinds = parseKindOptions(opts.kind);
-    const complexPairs = parseComplexPairsOption(opts.complexPairs);
-    if (opts.format !== undefined && !TABLE_FORMATS.includes(opts.format as TableFormat))
-      throw new SurmiseError(
-        'cli.badFormat',
-        `--format ${opts.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(opts.format, TABLE_FORMATS)}`,
-      );
-    const path = resolve(io.cwd, file);
-    const reading = readingProgress(io, file, opts.progress);
-    let table: Table;
-    try {
-      table = await readTable(path, {
-        displayName: file,
-        kinds: Object.keys(kinds).length ? kinds : undefined,
-        complexPairs,
-        format: opts.format as TableFormat | undefined,
-        onProgress: reading.onProgress,
-      });
-    } finally {
-      reading.stop();
-    }
-    table = withDerived(table, opts.derive.map((d) => parseDerive(d)));
+    const read = parseReadFlags(opts);
+    const table = withDerived(await readWithFlags(io, file, read, opts.progress), read.derive);
     const profile = profileTable(table, readTableOptions(INSPECT_OPTIONS, opts as unknown as Record<string, unknown>));
     if (opts.json) io.stdout(toJson(profile) + '\n');
     else io.stdout(formatProfile(profile));

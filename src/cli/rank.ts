@@ -8,8 +8,7 @@ import type { Command } from 'commander';
 import { existsSync, mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { CliIO } from './io.ts';
-import { SurmiseError, didYouMean } from '../errors.ts';
-import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
+import { SurmiseError } from '../errors.ts';
 import { formatDropReport } from '../table/dataset.ts';
 import { rankFeatures, type RankOptions, type RankResult, type RankEntry } from '../attribute/rank.ts';
 import type { AttributionMethod } from '../attribute/types.ts';
@@ -17,19 +16,14 @@ import { describeProbes } from '../attribute/probes.ts';
 import { addTableOptions, collect, parseTableOption, readTableOptions } from './options.ts';
 import { RANK_OPTIONS } from '../attribute/options.ts';
 import { optionOf } from '../util/option-table.ts';
-import { COLUMN_KINDS } from '../table/columns.ts';
-import { parseKindOptions } from './inspect.ts';
+import { addReadFlags, parseReadFlags, readWithFlags, type ReadFlags } from './read-flags.ts';
 import { makeProgress } from './progress.ts';
 import { writeFileAtomic } from '../util/atomic-write.ts';
 import { toJson } from '../util/json.ts';
-import { parseDerive } from '../table/expr/derive.ts';
 
-interface RankCliOptions {
+interface RankCliOptions extends ReadFlags {
   target: string;
-  derive: string[];
   group: string[];
-  kind: string[];
-  format?: string;
   json?: boolean;
   out?: string;
   force?: boolean;
@@ -177,25 +171,20 @@ export function registerRank(program: Command, io: CliIO): void {
     .description('rank the features of a table as predictors of a target: network skill against baselines, attribution with intervals')
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
     .requiredOption('--target <col>', 'the column (or expression) to predict, e.g. sig')
-    .option('--derive <name=expr>', 'add a computed column first (repeatable), e.g. ratio=re(zb/za)', collect, [])
-    .option('--group <name=a,b>', 'score these features as one group (repeatable); a complex column is always one group', collect, [])
-    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, []);
+    .option('--group <name=a,b>', 'score these features as one group (repeatable); a complex column is always one group', collect, []);
+  addReadFlags(cmd);
   addTableOptions(cmd, RANK_OPTIONS);
   cmd
-    .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object instead of the text report')
     .option('--out <dir>', 'also write rank.json into this folder')
     .option('--force', 'replace an existing rank.json in --out')
     .option('--no-progress', 'do not report progress on stderr')
     .action(async (file: string, o: RankCliOptions) => {
       // every option checked here, before any work
-      if (o.format !== undefined && !TABLE_FORMATS.includes(o.format as TableFormat)) {
-        throw new SurmiseError('cli.badFormat', `--format ${o.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(o.format, TABLE_FORMATS)}`);
-      }
-      const kinds = parseKindOptions(o.kind);
+      const read = parseReadFlags(o);
       const options = {
         target: o.target,
-        derive: o.derive.map((d) => parseDerive(d)),
+        derive: read.derive,
         ...(o.group.length ? { groups: parseGroups(o.group) } : {}),
         ...(readTableOptions(RANK_OPTIONS, o) as Omit<RankOptions, 'target'>),
       };
@@ -212,7 +201,7 @@ export function registerRank(program: Command, io: CliIO): void {
         // refuse before the work, not after it
         writeFileAtomicCheck(outFile, o.out, Boolean(o.force));
       }
-      const table = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}), ...(Object.keys(kinds).length ? { kinds } : {}) });
+      const table = await readWithFlags(io, file, read, o.progress);
       const progress = makeProgress(io, 'rank', o.progress);
       let result: RankResult;
       try {

@@ -4,31 +4,24 @@
  * network, baselines, methods and noise level of `rank`, and propose the next term. A thin shell
  * over residualRanking (src/run/residual.ts).
  */
-import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { CliIO } from './io.ts';
-import { addTableOptions, collect, readTableOptions } from './options.ts';
+import { addTableOptions, readTableOptions } from './options.ts';
 import { makeProgress } from './progress.ts';
-import { SurmiseError, didYouMean } from '../errors.ts';
-import { readTable, TABLE_FORMATS, type TableFormat } from '../table/read.ts';
-import { parseDerive, withDerived } from '../table/expr/derive.ts';
+import { withDerived } from '../table/expr/derive.ts';
 import { toJson } from '../util/json.ts';
 import { RANK_DEFAULTS, type RankResult } from '../attribute/rank.ts';
 import { describeProbes } from '../attribute/probes.ts';
 import { residualRanking, RESIDUAL_OPTIONS, type ResidualResult, type ResidualSpec } from '../run/residual.ts';
 import { RANK_OPTIONS } from '../attribute/options.ts';
-import { COLUMN_KINDS } from '../table/columns.ts';
-import { parseKindOptions } from './inspect.ts';
+import { addReadFlags, parseReadFlags, readWithFlags, type ReadFlags } from './read-flags.ts';
 import { rankingTable } from './rank.ts';
 import { splitTerms } from './fit.ts';
 import { parsePowers } from './search.ts';
 
-interface ResidualCliOptions {
+interface ResidualCliOptions extends ReadFlags {
   target: string;
   terms: string;
-  derive: string[];
-  kind: string[];
-  format?: string;
   json?: boolean;
   progress: boolean;
   [table: string]: unknown;
@@ -75,28 +68,21 @@ export function registerResidual(program: Command, io: CliIO): void {
     .description('fit a formula, then rank the remaining columns by how well they predict what it leaves over (and its size), and propose the next term')
     .argument('<table>', 'the table file (.csv .tsv .tab .json .jsonl .ndjson)')
     .requiredOption('--target <expr>', 'expression the formula predicts, e.g. sig')
-    .requiredOption('--terms <list>', 'the formula\'s terms separated by ";", e.g. "ux; uy^2"')
-    .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
-    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[]);
+    .requiredOption('--terms <list>', 'the formula\'s terms separated by ";", e.g. "ux; uy^2"');
+  addReadFlags(cmd);
   addTableOptions(cmd, RESIDUAL_OPTIONS);
   addTableOptions(cmd, RANK_OPTIONS, RANK_KEYS);
   cmd
-    .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`)
     .option('--json', 'print one JSON object')
     .option('--no-progress', 'do not report progress on stderr')
     .action(async (file: string, o: ResidualCliOptions) => {
-      if (o.format !== undefined && !TABLE_FORMATS.includes(o.format as TableFormat)) {
-        throw new SurmiseError('cli.badFormat', `--format ${o.format}: expected one of ${TABLE_FORMATS.join(', ')}${didYouMean(o.format, TABLE_FORMATS)}`);
-      }
+      const read = parseReadFlags(o);
       const own = readTableOptions(RESIDUAL_OPTIONS, o, { powers: parsePowers }) as Pick<ResidualSpec, 'intercept' | 'from' | 'absolute'> &
         NonNullable<ResidualSpec['search']>;
       const rank = readTableOptions(RANK_OPTIONS, o, {}, RANK_KEYS) as NonNullable<ResidualSpec['rank']>;
       const seed = rank.seed ?? RANK_DEFAULTS.seed;
       const terms = splitTerms(o.terms);
-      const derive = o.derive.map((d) => parseDerive(d));
-      const kinds = parseKindOptions(o.kind);
-      const table0 = await readTable(resolve(io.cwd, file), { displayName: file, ...(o.format ? { format: o.format as TableFormat } : {}), ...(Object.keys(kinds).length ? { kinds } : {}) });
-      const table = withDerived(table0, derive);
+      const table = withDerived(await readWithFlags(io, file, read, o.progress), read.derive);
       const progress = makeProgress(io, 'residual', o.progress);
       let result: ResidualResult;
       try {

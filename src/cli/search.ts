@@ -3,13 +3,11 @@
  * predict the target? Chosen on a selection part of the rows, measured on a held-out part.
  * A thin shell over searchRelations (src/relate/search.ts).
  */
-import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { makeProgress } from './progress.ts';
 import type { CliIO } from './io.ts';
-import { addTableOptions, collect, readTableOptions } from './options.ts';
+import { addTableOptions, readTableOptions } from './options.ts';
 import { SurmiseError } from '../errors.ts';
-import { COLUMN_KINDS } from '../table/columns.ts';
 import { searchRelations, type SearchCandidate, type SearchResult, type SearchSpec } from '../relate/search.ts';
 import { splitRows } from '../relate/split-option.ts';
 import { alignTable, num } from '../relate/text.ts';
@@ -17,15 +15,12 @@ import { toJson } from '../util/json.ts';
 import { SEARCH_OPTIONS } from '../relate/options.ts';
 import { optionOf } from '../util/option-table.ts';
 import { readDerived } from './fit.ts';
-import { parseKindOptions } from './inspect.ts';
+import { addReadFlags, type ReadFlags } from './read-flags.ts';
 import { parseIntegerRange } from '../util/range.ts';
 
-interface SearchOptions {
+interface SearchOptions extends ReadFlags {
   target: string;
   from: string;
-  derive: string[];
-  kind: string[];
-  format?: string;
   json?: boolean;
   progress: boolean;
   [table: string]: unknown;
@@ -102,12 +97,10 @@ export function registerSearch(program: Command, io: CliIO): void {
     .description('search formulas target ≈ c0 + Σ c·term over terms built from chosen columns; chosen on one part of the rows, measured on another')
     .argument('<table>', 'CSV, TSV, JSON or JSON Lines file')
     .requiredOption('--target <expr>', 'expression to predict')
-    .requiredOption('--from <columns>', 'columns to build terms from, comma-separated')
-    .option('--derive <name=expr>', 'add a derived column first (repeatable)', collect, [] as string[])
-    .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[]);
+    .requiredOption('--from <columns>', 'columns to build terms from, comma-separated');
+  addReadFlags(cmd);
   addTableOptions(cmd, SEARCH_OPTIONS);
   cmd
-    .option('--format <fmt>', 'table format when the extension does not tell (csv, tsv, json, jsonl)')
     .option('--json', 'print one JSON object')
     .option('--no-progress', 'no progress output on stderr')
     .action(async (file: string, o: SearchOptions) => {
@@ -116,7 +109,7 @@ export function registerSearch(program: Command, io: CliIO): void {
       from.forEach((c, i) => {
         if (c === '') throw new SurmiseError('option.badList', `--from: column ${i + 1} of the list is empty (columns are separated by ',')`);
       });
-      const table = await readDerived(io, file, o.derive, o.format, parseKindOptions(o.kind));
+      const table = await readDerived(io, file, o);
       const { split: spec, ...options } = given;
       let split: SearchSpec['split'];
       if (spec !== undefined) {

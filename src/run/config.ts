@@ -14,6 +14,7 @@ import { RANK_LIMITS, RANK_OPTIONS } from '../attribute/options.ts';
 import { FIT_OPTIONS, SEARCH_OPTIONS } from '../relate/options.ts';
 import { BOUND_OPTIONS, DISCOVER_OPTIONS } from '../bound/options.ts';
 import { RESIDUAL_OPTIONS } from './residual.ts';
+import { parseComplexPairsOption } from '../table/complex-pairs.ts';
 
 /** An integer count within the stage's documented range (its ceiling is refused as option.tooLarge). */
 const count = (r: IntegerRange) => z.number().int().min(r.min).max(r.max);
@@ -112,6 +113,9 @@ const FitSchema = z.strictObject({
 /** Most `search` blocks in one configuration (a count ceiling, refused as option.tooLarge). */
 export const MAX_SEARCHES = 20;
 
+/** The ceiling of each list of blocks (each block is a stage's work over the whole table). */
+export const MAX_BLOCKS = { search: MAX_SEARCHES, fits: 50, bounds: 50, discover: 20 } as const;
+
 /** The name a search block gets when it has none: `search 1`, `search 2`, … in the order written. */
 export const defaultSearchName = (i: number): string => `search ${i + 1}`;
 
@@ -177,21 +181,35 @@ const DiscoverSchema = z.strictObject({
   ...BLOCK_SEED,
 });
 
+/** The complex-pair rule as `--complex-pairs` takes it: `auto` (the default), `none`, or NAME=RE,IM items. */
+const ComplexPairsSchema = listOf(z.string().min(1))
+  .default([])
+  .superRefine((list, ctx) => {
+    try {
+      parseComplexPairsOption(list);
+    } catch (e) {
+      if (!(e instanceof SurmiseError)) throw e;
+      // the key path is named by the config layer; the message keeps the value and the rule
+      ctx.addIssue({ code: 'custom', message: e.message.replaceAll('`complexPairs`', 'complexPairs').replace(/^complexPairs /, '') });
+    }
+  });
+
 export const RunConfigSchema = z.strictObject({
   table: z.string().min(1),
   format: z.enum(['csv', 'tsv', 'json', 'jsonl']).optional(),
   kinds: z.record(z.string(), z.enum(['real', 'integer', 'complex', 'label'])).default({}),
+  complexPairs: ComplexPairsSchema,
   derive: z.record(z.string(), exprString).default({}),
   target: exprString,
   groups: z.record(z.string(), z.array(z.string().min(1)).min(1)).default({}),
   ...tableShape(RANK_OPTIONS),
   network: NetworkSchema.prefault({}),
   attribution: AttributionSchema.prefault({}),
-  fits: z.array(FitSchema).default([]),
+  fits: z.array(FitSchema).max(MAX_BLOCKS.fits).default([]),
   search: SearchesSchema.default([]),
   residual: ResidualSchema.optional(),
-  bounds: z.array(BoundSchema).default([]),
-  discover: z.array(DiscoverSchema).default([]),
+  bounds: z.array(BoundSchema).max(MAX_BLOCKS.bounds).default([]),
+  discover: z.array(DiscoverSchema).max(MAX_BLOCKS.discover).default([]),
   output: z.string().min(1).default('surmise-run'),
 });
 
@@ -367,11 +385,12 @@ export function parseConfig(text: string, file: string, baseDir?: string): Loade
         `${where(node?.range?.[0])}: ${keyPath(path)}: expected at most ${Number(issue.maximum).toLocaleString('en-US')} (its ceiling), got ${describe(got)}`,
         { key: keyPath(path), ...option },
       );
-    } else if (issue.code === 'too_big' && issue.origin === 'array' && path.length === 1 && path[0] === 'search') {
+    } else if (issue.code === 'too_big' && issue.origin === 'array' && path.length === 1 && String(path[0]) in MAX_BLOCKS) {
+      const key = String(path[0]) as keyof typeof MAX_BLOCKS;
       throw new SurmiseError(
         'option.tooLarge',
-        `${where(node?.range?.[0])}: search: expected at most ${MAX_SEARCHES} search blocks (its ceiling), got ${(got as unknown[]).length}`,
-        { key: 'search' },
+        `${where(node?.range?.[0])}: ${key}: expected at most ${MAX_BLOCKS[key]} ${key === 'search' ? 'search' : key === 'discover' ? 'discover' : key.replace(/s$/, '')} blocks (its ceiling), got ${(got as unknown[]).length}`,
+        { key },
       );
     } else if (issue.code === 'too_big' && issue.origin === 'array') expected = `expected a list of at most ${String(issue.maximum)} item(s)`;
     else if (issue.code === 'too_small' && issue.origin === 'array') expected = `expected a list of at least ${String(issue.minimum)} item(s)`;

@@ -7,6 +7,7 @@ import { stringify } from 'yaml';
 import { SurmiseError, wordOptionError } from '../errors.ts';
 import { VERSION } from '../version.ts';
 import { readTable, withDerived } from '../table/index.ts';
+import { parseComplexPairsOption } from '../table/complex-pairs.ts';
 import { rankFeatures, type RankOptions, type RankProgress, type RankResult } from '../attribute/rank.ts';
 import { RANK_OPTIONS } from '../attribute/options.ts';
 import { FIT_OPTIONS, SEARCH_OPTIONS } from '../relate/options.ts';
@@ -114,6 +115,7 @@ export async function executeRun(loaded: LoadedConfig, opts: RunOptions = {}): P
   let table = await readTable(config.table, {
     ...(config.format ? { format: config.format } : {}),
     kinds: config.kinds,
+    complexPairs: parseComplexPairsOption(config.complexPairs),
   });
   const { sha256, bytes } = await sha256File(config.table);
   const inputColumns = table.columns.map((c) => c.name);

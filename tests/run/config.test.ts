@@ -87,6 +87,16 @@ describe('run configuration', () => {
     });
   });
 
+  it('every list of blocks has a ceiling (fits 50, bounds 50, discover 20, search 20), refused at its key', () => {
+    const fits = 'fits:\n' + '  - { target: y, terms: [a] }\n'.repeat(51);
+    expect(refusal(`table: a.csv\ntarget: y\n${fits}`)).toEqual({ code: 'option.tooLarge', message: 'cfg.yaml:4:3: fits: expected at most 50 fit blocks (its ceiling), got 51' });
+    expect(parseConfig(`table: a.csv\ntarget: y\nfits:\n${'  - { target: y, terms: [a] }\n'.repeat(50)}`, 'cfg.yaml').config.fits).toHaveLength(50);
+    const bounds = 'bounds:\n' + '  - { lhs: y, rhs: a }\n'.repeat(51);
+    expect(refusal(`table: a.csv\ntarget: y\n${bounds}`)).toEqual({ code: 'option.tooLarge', message: 'cfg.yaml:4:3: bounds: expected at most 50 bound blocks (its ceiling), got 51' });
+    const discover = 'discover:\n' + '  - { lhs: y, from: [a] }\n'.repeat(21);
+    expect(refusal(`table: a.csv\ntarget: y\n${discover}`)).toEqual({ code: 'option.tooLarge', message: 'cfg.yaml:4:3: discover: expected at most 20 discover blocks (its ceiling), got 21' });
+  });
+
   it('refuses a wrong type', () => {
     expect(refusal('table: a.csv\ntarget: sig\nnetwork:\n  hidden: 12\n')).toEqual({
       code: 'option.badValue',

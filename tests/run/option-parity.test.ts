@@ -74,7 +74,7 @@ describe('every table option has a flag and a config key with the same default',
 
   it('the configuration knows no option key the tables do not list (besides what to compute and where)', () => {
     const listed = new Set(RANK_OPTIONS.map((o) => (configKeyOf(o) ?? '').split('.')[0]));
-    const own = ['table', 'format', 'kinds', 'derive', 'target', 'groups', 'network', 'attribution', 'fits', 'search', 'residual', 'bounds', 'discover', 'output'];
+    const own = ['table', 'format', 'kinds', 'complexPairs', 'derive', 'target', 'groups', 'network', 'attribution', 'fits', 'search', 'residual', 'bounds', 'discover', 'output'];
     for (const k of Object.keys(RunConfigSchema.shape)) expect(listed.has(k) || own.includes(k), k).toBe(true);
   });
 });

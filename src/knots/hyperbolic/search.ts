@@ -21,7 +21,7 @@ import { flipToGeometric } from './flip.ts';
 import { simplifyTriangulation } from './simplify.ts';
 import { placeMeridians } from './peripheral.ts';
 import { Rng } from '../../util/rng.ts';
-import { carryBackOne, type MoveRecord } from './carryback.ts';
+import { carryBackOne, twoZeroRecord, type MoveRecord } from './carryback.ts';
 
 export interface SearchOptions {
   /** Base triangulations tried (different collapsed arcs). */
@@ -141,7 +141,6 @@ function trySolve(c: Candidate, opts: SearchOptions, cusps: number, rng: Rng, bu
         return sol;
       }
       if (k > 0) shapes = carryBackOne(moves[k - 1]!, shapes.re, shapes.im);
-      if (process.env.HSPEED_DEBUG && !shapes) console.error(`carry back failed at move ${k - 1} of ${moves.length}: ${moves[k - 1]!.kind} ${moves[k - 1]!.kind === 'twoZero' ? (moves[k - 1] as { invertible: boolean }).invertible : ''}`);
     }
     sol.cuspLost = true;
     return sol;
@@ -216,14 +215,10 @@ export function findGeometricSolution(info: PDInfo, cusps: number, opts: SearchO
     // it never gave a solution on another base.
     const rounds = bases <= opts.unsimplifiedBases ? opts.rounds : Math.min(opts.rounds, 2);
     for (let round = 0; round < rounds && solves < opts.maxSolves && !budget.capped; round++) {
-      let c: Candidate;
-      if (round === 0) {
-        const sm = simplifyTriangulation({ tri: low.tri, map: low.map }, [], cusps, rng, opts.kicks, true);
-        c = { tri: sm.tri, map: sm.map, moves: low.moves, base: lt.attempt, unsimplified: lt, back: { tri: low.tri, map: low.map, moves: sm.moves!, info } };
-      } else {
-        const sm = round === 2 ? low : simplifyTriangulation({ tri: low.tri, map: low.map }, frozen, cusps, rng, opts.kicks);
-        c = { tri: sm.tri, map: sm.map, moves: low.moves, base: lt.attempt, unsimplified: lt };
-      }
+      // every round records its moves from the triangulation of the diagram (before the 2–0 moves
+      // on bigons), so that the cusp can be read wherever the meridians still are
+      const sm = round === 2 ? { tri: low.tri, map: low.map, moves: [] } : simplifyTriangulation({ tri: low.tri, map: low.map }, round === 0 ? [] : frozen, cusps, rng, opts.kicks, true);
+      const c: Candidate = { tri: sm.tri, map: sm.map, moves: low.moves, base: lt.attempt, unsimplified: lt, back: { tri: lt.tri, map: lt.keptIndex, moves: [...low.records, ...sm.moves!], info } };
       const r = trySolve(c, opts, cusps, rng, budget);
       solves += r.solves;
       if (r.sol && r.sol.cuspLost) lost ??= { ...r.sol, solves };
@@ -237,10 +232,11 @@ export function findGeometricSolution(info: PDInfo, cusps: number, opts: SearchO
 }
 
 /** Repeated 2–0 moves on edges of valence ≤ 2, each kept only if the result is still a cusped triangulation. */
-export function removeLowValence(tri: Triangulation, map: Int32Array, cusps: number): { tri: Triangulation; map: Int32Array; moves: number } {
+export function removeLowValence(tri: Triangulation, map: Int32Array, cusps: number): { tri: Triangulation; map: Int32Array; moves: number; records: MoveRecord[] } {
   let cur = tri;
   let m = map;
   let moves = 0;
+  const records: MoveRecord[] = [];
   for (let guard = 0; guard < tri.n; guard++) {
     const cb = combinatorics(cur);
     const val = new Array<number>(cb.nEdges).fill(0);
@@ -250,12 +246,15 @@ export function removeLowValence(tri: Triangulation, map: Int32Array, cusps: num
       if (val[e]! > 2) continue;
       const r = twoZero(cur, cb.edgeOf, e);
       if (!r || !isCuspedTriangulation(r.tri, cusps)) continue;
+      const rec = twoZeroRecord(cur, cb.edgeOf, e, r.tri, r.map);
+      if (!rec) continue;
       m = m.map((x) => (x < 0 ? -1 : r.map[x]!));
+      records.push({ ...rec, track: m });
       cur = r.tri;
       moves++;
       progressed = true;
     }
     if (!progressed) break;
   }
-  return { tri: cur, map: m, moves };
+  return { tri: cur, map: m, moves, records };
 }

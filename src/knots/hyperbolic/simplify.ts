@@ -39,6 +39,9 @@ function reducingMove(cur: Tracked, frozen: ReadonlySet<number>, cusps: number, 
     for (const t of ts) if (frozen.has(t)) return false;
     return true;
   };
+  // when recording, a 2–0 move that a carry cannot go back through is taken only when no other
+  // move lowers the count (it is remembered on the first pass and made after it)
+  let lastResort: (Tracked & { rec?: MoveRecord }) | undefined;
   for (let e = 0; e < cb.nEdges; e++) {
     if (val[e] === 2) {
       const occ: number[] = [];
@@ -48,6 +51,10 @@ function reducingMove(cur: Tracked, frozen: ReadonlySet<number>, cusps: number, 
       if (!r || !isCuspedTriangulation(r.tri, cusps)) continue;
       const rec = record ? twoZeroRecord(tri, cb.edgeOf, e, r.tri, r.map) : undefined;
       if (record && !rec) continue;
+      if (rec && rec.kind === 'twoZero' && !rec.invertible) {
+        lastResort ??= { tri: r.tri, map: compose(cur.map, r.map), rec };
+        continue;
+      }
       return { tri: r.tri, map: compose(cur.map, r.map), rec };
     } else if (val[e] === 3) {
       const t = Math.floor(at[e]! / 6);
@@ -58,7 +65,7 @@ function reducingMove(cur: Tracked, frozen: ReadonlySet<number>, cusps: number, 
       if (r && isCuspedTriangulation(r.tri, cusps)) return { tri: r.tri, map: compose(cur.map, r.map), rec: { kind: 'ball', ball: r.ball, map: r.map, after: r.tri } };
     }
   }
-  return undefined;
+  return lastResort;
 }
 
 /** The smallest triangulation reached by reducing moves and up to `kicks` random 2–3 moves between them. */

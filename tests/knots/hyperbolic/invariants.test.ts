@@ -237,4 +237,15 @@ describe('hyperbolic invariants of small knots', () => {
     // the default cap leaves it alone
     expect(hyp(braid('5_2')).geometry).toBe('hyperbolic');
   });
+  it('6_2 from 4-braids where no crossing keeps its meridian tetrahedra after the 2–0 moves on bigons: the solution is carried back to the triangulation from the diagram, cusp shape of the PD code up to mirror (to 1e-9)', () => {
+    const ref = hyp(pd('6_2'));
+    for (const w of ['2 3 1 -2 3 -1 -1 -3 -1 -3 -1 3 3', '-2 3 -1 -3 1 -3 1 3 3 -2 3 1 2 -3 1']) {
+      const h = hyp(`4: ${w}`);
+      expect(h.geometry).toBe('hyperbolic');
+      expect(h.reason).toBeUndefined();
+      expect(Math.abs(h.volume! - ref.volume!)).toBeLessThan(1e-9);
+      expect(Math.abs(Math.abs(h.naturalSlope!) - Math.abs(ref.naturalSlope!))).toBeLessThan(1e-9);
+      expect(Math.abs(h.cuspShape![1] - ref.cuspShape![1])).toBeLessThan(1e-9);
+    }
+  });
 });
