@@ -145,7 +145,6 @@ export function writeRunFolder(outDir: string, files: OutputFile[], force: boole
       writeFileSync(target, f.data);
     }
     writeFileSync(join(staging, RUN_MARKER), JSON.stringify(manifestOf(files), null, 1) + '\n');
-    rmSync(join(staging, PARTIAL_MARKER));
     if (existsSync(outDir)) {
       old = beginPartial(outDir);
       writeFileSync(join(outDir, PARTIAL_MARKER), String(process.pid));
@@ -155,6 +154,9 @@ export function writeRunFolder(outDir: string, files: OutputFile[], force: boole
     } else {
       renameSync(staging, outDir);
     }
+    // the partial marker goes only once the folder is in place: until then a SIGKILL leaves a
+    // folder the next run recognises as debris (a stray marker in a complete folder is ignored)
+    rmSync(join(outDir, PARTIAL_MARKER), { force: true });
   } catch (e) {
     rmSync(staging, { recursive: true, force: true });
     if (e instanceof SurmiseError) throw e;

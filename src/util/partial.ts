@@ -63,7 +63,7 @@ function alive(pid: number): boolean {
 
 /**
  * Remove partial outputs for `target` left by processes that no longer run (e.g. killed with
- * SIGKILL). A folder is removed only when it holds our marker; a file only by its name. Returns
+ * SIGKILL). A folder is removed only when it holds our marker or is empty; a file only by its name. Returns
  * the names removed.
  */
 export function removeStalePartials(target: string): string[] {
@@ -81,7 +81,8 @@ export function removeStalePartials(target: string): string[] {
     if (!m || alive(Number(m[1]))) continue;
     const p = join(dir, name);
     try {
-      if (statSync(p).isDirectory() && !existsSync(join(p, PARTIAL_MARKER))) continue;
+      // a folder of ours holds the marker, or is still empty (killed between mkdir and the marker)
+      if (statSync(p).isDirectory() && !existsSync(join(p, PARTIAL_MARKER)) && readdirSync(p).length > 0) continue;
       rmSync(p, { recursive: true, force: true });
       removed.push(name);
     } catch {

@@ -61,4 +61,22 @@ describe('surmise knots --invariants hyperbolic', () => {
     expect(j.rows[0].cusp_volume).toBeCloseTo(Math.sqrt(3), 9);
     expect(j.rows[1].cusp_volume).toBeNull();
   });
+  it('a generated twist family goes straight into bound: volume ≤ c·crossings with c below v_oct (D. Thurston: one ideal octahedron per crossing)', async () => {
+    // full twists on strands 1..2 of the figure-eight's braid 1 -2 1 -2; q = 1 is 6_2 (volume 4.400832516, from memory)
+    expect((await run(['knots', 'generate', 'twist', '--braid', '1 -2 1 -2', '--strands', '3', '--on', '1..2', '--twists', '0..12', '--out', 'tw.txt'])).code).toBe(0);
+    expect((await run(['knots', 'tw.txt', '--invariants', 'crossings,hyperbolic', '--out', 'tw.csv', '--no-progress'])).code).toBe(0);
+    const b = await run(['bound', 'tw.csv', '--lhs', 'volume', '--rhs', 'crossings', '--json']);
+    expect(b.code, b.err).toBe(0);
+    const res = JSON.parse(b.out);
+    expect(res.n).toBe(13);
+    const c = res.results[0].constant as number;
+    // regular ideal octahedron volume 3.663862376708876 (= 4 × Catalan, from memory) bounds the volume per crossing
+    expect(c).toBeLessThan(3.663862376708876);
+    expect(res.results[0].witnesses[0].labels.name).toBe('twist_q1');
+    expect(res.results[0].witnesses[0].lhs).toBeCloseTo(4.400832516123, 8);
+    // Thurston's hyperbolic Dehn surgery: the volumes increase with the twists
+    const vol = (await run(['knots', 'tw.txt', '--invariants', 'hyperbolic', '--json', '--no-progress'])).out;
+    const v = (JSON.parse(vol).rows as Array<{ volume: number }>).map((r) => r.volume);
+    for (let k = 1; k < v.length; k++) expect(v[k]!).toBeGreaterThan(v[k - 1]!);
+  });
 });

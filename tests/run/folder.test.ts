@@ -126,4 +126,14 @@ describe('run folder marker: --force removes only what surmise wrote', () => {
     expect(readFileSync(join(lookalike, 'mine.txt'), 'utf8')).toBe('keep');
     expect(readdirSync(dir).sort()).toEqual(['.run.surmise-partial-4194305-2', 'run']);
   });
+
+  it('a dead process killed between making its folder and marking it left an empty folder: removed too', () => {
+    const { dir, out } = fresh();
+    const empty = join(dir, '.run.surmise-partial-4194305-4'); // pid above pid_max, as above
+    mkdirSync(empty);
+    writeRunFolder(out, [{ path: 'b.txt', data: '2' }], true);
+    expect(existsSync(empty)).toBe(false);
+    // the written folder keeps no partial marker
+    expect(readdirSync(out).sort()).toEqual(['.surmise-run', 'b.txt']);
+  });
 });
