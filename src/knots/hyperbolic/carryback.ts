@@ -18,8 +18,8 @@
 import { crossRatio01, placeTetrahedron, placeVertex, type BallMove } from './pachner.ts';
 import { pillow } from './moves.ts';
 import type { Triangulation } from './triangulation.ts';
+import type { C } from './cpair.ts';
 
-type C = [number, number];
 
 export type MoveRecord =
   | { kind: 'ball'; ball: BallMove; map: Int32Array; after: Triangulation; track?: Int32Array }

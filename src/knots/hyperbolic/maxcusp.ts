@@ -32,6 +32,7 @@
 import { cuspBases } from './cusp.ts';
 import { curveTranslation, developCusps, edgeShape, nextCorner, type Shapes } from './develop.ts';
 import { edgeIndex, type Combinatorics, type Triangulation } from './triangulation.ts';
+import { sub, mul, div, abs, abs2, type C } from './cpair.ts';
 
 export interface MaximalCusp {
   /** Volume of the maximal cusp = half the area of its boundary torus. */
@@ -57,15 +58,6 @@ export interface MaximalCuspOptions {
 }
 export const MAXIMAL_CUSP_DEFAULTS: MaximalCuspOptions = { maxTetrahedra: 20000, deeper: 1 };
 
-type C = [number, number];
-const sub = (a: C, b: C): C => [a[0] - b[0], a[1] - b[1]];
-const mul = (a: C, b: C): C => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];
-const div = (a: C, b: C): C => {
-  const d = b[0] * b[0] + b[1] * b[1];
-  return [(a[0] * b[0] + a[1] * b[1]) / d, (a[1] * b[0] - a[0] * b[1]) / d];
-};
-const abs = (a: C): number => Math.hypot(a[0], a[1]);
-const abs2 = (a: C): number => a[0] * a[0] + a[1] * a[1];
 
 /**
  * Highest point of the ideal triangle with vertices a, b, c ∈ ℂ (on the hemisphere through them):

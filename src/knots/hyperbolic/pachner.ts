@@ -11,14 +11,8 @@
  */
 import type { Triangulation } from './triangulation.ts';
 import { EDGE_SHAPE, edgeIndex } from './triangulation.ts';
+import { sub, mul, div, type C } from './cpair.ts';
 
-type C = [number, number];
-const sub = (a: C, b: C): C => [a[0] - b[0], a[1] - b[1]];
-const mul = (a: C, b: C): C => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];
-const div = (a: C, b: C): C => {
-  const d = b[0] * b[0] + b[1] * b[1];
-  return [(a[0] * b[0] + a[1] * b[1]) / d, (a[1] * b[0] - a[0] * b[1]) / d];
-};
 
 /** Shape at edge 01 of the ideal tetrahedron (p0, p1, p2, p3): (p3 − p1)(p2 − p0) / ((p2 − p1)(p3 − p0)); (∞, 0, 1, z) ↦ z. */
 export function crossRatio01(p: readonly C[]): C {

@@ -11,27 +11,9 @@ import { solveShapes, solveShapesFree } from '../../../src/knots/hyperbolic/newt
 import { carryBack, carryBackOne } from '../../../src/knots/hyperbolic/carryback.ts';
 import { blochWigner } from '../../../src/knots/hyperbolic/dilog.ts';
 import { Rng } from '../../../src/util/rng.ts';
+import { productResidual } from './product-residual.ts';
 
 const volume = (s: { re: Float64Array; im: Float64Array }): number => s.re.reduce((v, _, t) => v + blochWigner(s.re[t]!, s.im[t]!), 0);
-/** Largest residual of the gluing and completeness equations in product form (arguments mod 2π). */
-function productResidual(tri: Triangulation, re: Float64Array, im: Float64Array): number {
-  const cb = combinatorics(tri);
-  const sys = gluingEquations(tri, cb, cuspBases(tri, cb).flat());
-  let worst = 0;
-  for (let r = 0; r < sys.rows; r++) {
-    let sr = 0;
-    let si = -Math.PI * sys.c[r]!;
-    for (let t = 0; t < sys.n; t++) {
-      const a = sys.A[r * sys.n + t]!;
-      const b = sys.B[r * sys.n + t]!;
-      sr += a * Math.log(Math.hypot(re[t]!, im[t]!)) + b * Math.log(Math.hypot(1 - re[t]!, im[t]!));
-      si += a * Math.atan2(im[t]!, re[t]!) + b * Math.atan2(-im[t]!, 1 - re[t]!);
-    }
-    si -= 2 * Math.PI * Math.round(si / (2 * Math.PI));
-    worst = Math.max(worst, Math.abs(sr), Math.abs(si));
-  }
-  return worst;
-}
 
 const regular = (n: number): [Float64Array, Float64Array] => [new Float64Array(n).fill(0.5), new Float64Array(n).fill(Math.sqrt(3) / 2)];
 function solve(tri: Triangulation): { re: Float64Array; im: Float64Array } {

@@ -11,27 +11,9 @@ import { blochWigner } from '../../../src/knots/hyperbolic/dilog.ts';
 import { crossRatio01, placeVertex, threeTwoPreview, threeTwoShapes, twoThreePreview, twoThreeShapes } from '../../../src/knots/hyperbolic/pachner.ts';
 import { flipToGeometric } from '../../../src/knots/hyperbolic/flip.ts';
 import { Rng } from '../../../src/util/rng.ts';
+import { productResidual } from './product-residual.ts';
 
 const volume = (im: Float64Array, re: Float64Array): number => re.reduce((s, _, t) => s + blochWigner(re[t]!, im[t]!), 0);
-/** Largest residual of the gluing and completeness equations in product form (arguments mod 2π). */
-function productResidual(tri: Triangulation, re: Float64Array, im: Float64Array): number {
-  const cb = combinatorics(tri);
-  const sys = gluingEquations(tri, cb, cuspBases(tri, cb).flat());
-  let worst = 0;
-  for (let r = 0; r < sys.rows; r++) {
-    let sr = 0;
-    let si = -Math.PI * sys.c[r]!;
-    for (let t = 0; t < sys.n; t++) {
-      const a = sys.A[r * sys.n + t]!;
-      const b = sys.B[r * sys.n + t]!;
-      sr += a * Math.log(Math.hypot(re[t]!, im[t]!)) + b * Math.log(Math.hypot(1 - re[t]!, im[t]!));
-      si += a * Math.atan2(im[t]!, re[t]!) + b * Math.atan2(-im[t]!, 1 - re[t]!);
-    }
-    si -= 2 * Math.PI * Math.round(si / (2 * Math.PI));
-    worst = Math.max(worst, Math.abs(sr), Math.abs(si));
-  }
-  return worst;
-}
 function solved(word: number[], free: boolean): { tri: Triangulation; re: Float64Array; im: Float64Array } {
   const info = analysePD(braidClosurePD({ strands: Math.max(...word.map(Math.abs)) + 1, word }).pd);
   const lt = linkTriangulations(info, info.nComponents).next().value!;
