@@ -27,6 +27,8 @@ export interface ClosedBraidOptions {
   maxStates: number;
   /** Letters of neighbouring words looked at in all (bounds the time on long words). */
   maxWork: number;
+  /** Letters a word may grow by (cancelling pairs inserted) before it has to shrink; 0 = length-preserving only. */
+  slack?: number;
 }
 export const CLOSED_BRAID_DEFAULTS: ClosedBraidOptions = { maxStates: 200, maxWork: 100_000 };
 
@@ -259,8 +261,14 @@ export function simplifyClosedBraid(b0: Braid, opts: ClosedBraidOptions = CLOSED
       if (e >= buckets.length) break;
       const w = buckets[e]![heads[e]!++]!;
       states++;
-      for (const v of neighbours(n, w)) {
-        work += L;
+      const around = neighbours(n, w);
+      // with slack: a cancelling pair σ_k^ε σ_k^{−ε} inserted anywhere (an isotopy; the word grows by 2)
+      if (opts.slack && w.length < L + opts.slack)
+        for (let p = 0; p <= w.length; p++)
+          for (let g = 1; g < n; g++)
+            for (const e of [g, -g]) around.push({ word: [...w.slice(0, p), e, -e, ...w.slice(p)], at: [p], relation: false });
+      for (const v of around) {
+        work += v.word.length;
         if (mayReduce(n, v)) {
           const r = normaliseClosedBraid({ strands: n, word: v.word });
           if (r.split || r.sum || r.braid.strands < n || r.braid.word.length < L) {

@@ -98,7 +98,12 @@ export function recogniseDiagram(pd0: readonly Crossing[], budget = { splits: 16
     knotted = r.knotted;
   }
   if (budget.splits <= 0) return { status: 'unknown', pd, knotted, dropped: 0 };
-  const parts = diagramSummands(pd);
+  let parts: [Crossing[], Crossing[]] | undefined;
+  try {
+    parts = diagramSummands(pd);
+  } catch {
+    parts = undefined; // a summand code that does not validate is not used (nothing is claimed)
+  }
   if (!parts) return { status: 'unknown', pd, knotted, dropped: 0 };
   budget.splits--;
   const [A, B] = parts.map((p) => recogniseDiagram(p, budget)) as [DiagramRecognition, DiagramRecognition];

@@ -116,6 +116,11 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
       return { geometry: 'not hyperbolic', reason: `split link: component ${comp + 1} passes ${over ? 'over' : 'under'} everything it meets, so it lifts off the rest` };
   }
   const sol = findGeometricSolution(info, info.nComponents, opts);
+  if (!('tri' in sol) && small && small.word.length > 0) {
+    // no geometric solution: a deeper closed-braid search (words may grow by a cancelling pair)
+    const again = recogniseClosure(small, d.info.nComponents, DEEP_RECOGNITION);
+    if (again.status === 'not hyperbolic') return { geometry: 'not hyperbolic', reason: again.reason };
+  }
   if (!('tri' in sol))
     return {
       geometry: 'unresolved',
@@ -158,6 +163,14 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   }
   return out;
 }
+
+/**
+ * The closed-braid search run again when the geometric search found nothing (so it costs nothing
+ * on hyperbolic rows): 100 times the default budget, and words may grow by one cancelling pair
+ * σ_k^ε σ_k^{−ε} before they shrink (some unknots, trefoils and sums of random 20-letter braids
+ * need it).
+ */
+const DEEP_RECOGNITION = { maxStates: 20_000, maxWork: 5_000_000, slack: 2 };
 
 /** PD codes up to this many crossings are turned into braids to look for torus and composite knots. */
 const VOGEL_LIMIT = 400;

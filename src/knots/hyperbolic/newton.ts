@@ -286,29 +286,27 @@ function solveNormal(n: number, Mr: Float64Array, Mi: Float64Array, yr: Float64A
   return complexSolve(n, Lr, Li, xr, xi);
 }
 
+/** The arrays one Newton or Levenberg–Marquardt solve works in: residuals F, Jacobian J, normal matrix M, its Cholesky factor L, steps y, trial point t (real and imaginary parts). */
+function workspace(n: number, rows: number) {
+  const vec = () => new Float64Array(n);
+  const eqs = () => new Float64Array(rows);
+  const mat = () => new Float64Array(n * n);
+  return {
+    Fr: eqs(), Fi: eqs(), tFr: eqs(), tFi: eqs(),
+    Jr: new Float64Array(rows * n), Ji: new Float64Array(rows * n),
+    Mr: mat(), Mi: mat(), Lr: mat(), Li: mat(),
+    yr: vec(), yi: vec(), y0r: vec(), y0i: vec(), tre: vec(), tim: vec(),
+  };
+}
+
 /** Newton iteration from the given start (modified in place copies). */
 export function solveShapes(sys: EquationSystem, startRe: Float64Array, startIm: Float64Array, tol = 1e-13, maxIter = 60, maxWork = Infinity): NewtonResult {
   const { n, rows } = sys;
   const re = Float64Array.from(startRe);
   const im = Float64Array.from(startIm);
-  const Fr = new Float64Array(rows);
-  const Fi = new Float64Array(rows);
+  const { Fr, Fi, Jr, Ji, Mr, Mi, yr, yi, y0r, y0i, tre, tim, tFr, tFi, Lr, Li } = workspace(n, rows);
   let res = residuals(sys, re, im, Fr, Fi);
-  const Jr = new Float64Array(rows * n);
-  const Ji = new Float64Array(rows * n);
-  const Mr = new Float64Array(n * n);
-  const Mi = new Float64Array(n * n);
-  const yr = new Float64Array(n);
-  const yi = new Float64Array(n);
-  const tre = new Float64Array(n);
-  const tim = new Float64Array(n);
-  const tFr = new Float64Array(rows);
-  const tFi = new Float64Array(rows);
   const support = rowSupports(sys);
-  const Lr = new Float64Array(n * n);
-  const Li = new Float64Array(n * n);
-  const y0r = new Float64Array(n);
-  const y0i = new Float64Array(n);
   const unit = (n * n * n) / 6;
   let work = 0;
   let capped = false;
@@ -374,27 +372,12 @@ export function solveShapesFree(sys: EquationSystem, startRe: Float64Array, star
     args.w[t] = Math.atan2(-im[t]!, 1 - re[t]!);
   }
   const trial = { z: new Float64Array(n), w: new Float64Array(n) };
-  const Fr = new Float64Array(rows);
-  const Fi = new Float64Array(rows);
+  const { Fr, Fi, Jr, Ji, Mr, Mi, yr, yi, y0r, y0i, tre, tim, tFr, tFi, Lr, Li } = workspace(n, rows);
   let res = residuals(sys, re, im, Fr, Fi, args);
   let ss = sumSquares(Fr, Fi);
-  const Jr = new Float64Array(rows * n);
-  const Ji = new Float64Array(rows * n);
-  const Mr = new Float64Array(n * n);
-  const Mi = new Float64Array(n * n);
   const M0 = new Float64Array(n * n);
   const M1 = new Float64Array(n * n);
-  const yr = new Float64Array(n);
-  const yi = new Float64Array(n);
-  const y0r = new Float64Array(n);
-  const y0i = new Float64Array(n);
-  const tre = new Float64Array(n);
-  const tim = new Float64Array(n);
-  const tFr = new Float64Array(rows);
-  const tFi = new Float64Array(rows);
   const support = rowSupports(sys);
-  const Lr = new Float64Array(n * n);
-  const Li = new Float64Array(n * n);
   let lambda = 1e-3;
   const unit = (n * n * n) / 6;
   let work = 0;

@@ -20,7 +20,7 @@ export type Recognition =
   /** Not recognised: the simplest braid reached, for the geometric search. */
   | { status: 'unknown'; braid: Braid };
 
-const UNKNOT_MOVES = 'braid relations, conjugation, exchange moves (Birman–Menasco) and Markov destabilisation';
+const UNKNOT_MOVES = 'braid relations, conjugation, cancelling pairs, exchange moves (Birman–Menasco) and Markov destabilisation';
 const delta = (p: number): string => (p === 2 ? 'σ1' : `(σ1…σ${p - 1})`);
 
 /** What the braid's closure is, when it can be proved not hyperbolic (see the module comment). */
@@ -48,7 +48,7 @@ export function recogniseClosure(b: Braid, components: number, opts: ClosedBraid
       return t ?? { status: 'unknown', braid: out.braid };
     }
     // a connected sum: drop an unknotted summand, or prove both knotted
-    if (components !== 1) return { status: 'unknown', braid: out.braid };
+    if (components !== 1) return { status: 'unknown', braid: smaller(out.braid, cur) };
     const [A, B] = out.summands;
     const ra = recogniseClosure(A, 1, opts);
     const rb = recogniseClosure(B, 1, opts);
@@ -62,9 +62,14 @@ export function recogniseClosure(b: Braid, components: number, opts: ClosedBraid
     const knotted = (x: Braid, r: Recognition): boolean => isKnotted(x) || (r.status === 'not hyperbolic' && (r.reason.startsWith('torus') || r.reason.startsWith('composite')));
     if (knotted(A, ra) && knotted(B, rb))
       return { status: 'not hyperbolic', reason: `composite knot (satellite): ${UNKNOT_MOVES} give a connected sum of two knotted closures (split between σ${out.at - 1} and σ${out.at})${via}` };
-    return { status: 'unknown', braid: out.braid };
+    return { status: 'unknown', braid: smaller(out.braid, cur) };
   }
   return { status: 'unknown', braid: cur };
+}
+
+/** The braid with fewer strands, then fewer letters (a search with slack may end on a longer word). */
+function smaller(a: Braid, b: Braid): Braid {
+  return a.strands < b.strands || (a.strands === b.strands && a.word.length <= b.word.length) ? a : b;
 }
 
 function missing(b: Braid): number {

@@ -57,7 +57,8 @@ describe('moves on closed braids', () => {
     let sums = 0;
     for (let t = 0; t < 150; t++) {
       const b = randomKnotBraid(rng, 3 + rng.int(3), 10 + rng.int(12));
-      const out = simplifyClosedBraid(b);
+      // every other word with slack: cancelling pairs inserted (R2 moves) before the word shrinks
+      const out = simplifyClosedBraid(b, t % 2 ? { maxStates: 2000, maxWork: 500_000, slack: 2 } : undefined);
       if (out.kind === 'braid' && out.braid.strands === 1) {
         expect(invariants(b), b.word.join(' ')).toMatch(/^1 σ=0$/);
         continue;
