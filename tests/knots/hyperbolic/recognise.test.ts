@@ -122,6 +122,24 @@ describe('non-hyperbolic closures recognised by isotopies and exact tests', () =
       expect(recogniseClosure(simplifyBraid(b), 1, deep).status, k).toBe('unknown');
     }
   });
+  it('links: disguised torus links T(2,4), T(3,3), T(4,6) are "torus link"; the Whitehead link and Borromean rings (hyperbolic) are not refused', () => {
+    const rng = new Rng(37);
+    for (const [p, q, comps] of [[2, 4, 2], [3, 3, 3], [4, 6, 2], [2, -6, 2]] as const) {
+      for (let k = 0; k < 3; k++) {
+        const b = disguise(torusBraid(p, q), rng, 0);
+        const r = recogniseClosure(simplifyBraid(b), comps);
+        expect(r.status === 'not hyperbolic' && r.reason, `T(${p},${q})`).toMatch(new RegExp(`^torus link T\\(${p},${q}\\)`));
+      }
+    }
+    // Whitehead link σ1σ2⁻¹σ1σ2⁻²  and Borromean rings (σ1σ2⁻¹)³ (from memory; their volumes are
+    // checked in invariants.test.ts), disguised by conjugation and relators
+    for (const [name, word, comps] of [['Whitehead', [1, -2, 1, -2, -2], 2], ['Borromean', [1, -2, 1, -2, 1, -2], 3]] as const)
+      for (let k = 0; k < 5; k++) {
+        const b = disguise({ strands: 3, word: [...word] }, rng, 0);
+        expect(recogniseClosure(simplifyBraid(b), comps).status, name).toBe('unknown');
+        expect(recogniseClosure(simplifyBraid(b), comps, { maxStates: 20_000, maxWork: 5_000_000, slack: 2 }).status, name).toBe('unknown');
+      }
+  });
   it('never refuses a random knot that has a geometric solution (certified on the closure before the search)', () => {
     const rng = new Rng(35);
     let certified = 0;
