@@ -156,7 +156,7 @@ export const ERROR_CODES = {
   'api.badArgument': 'a library function got an argument of the wrong kind, or an options object with an unknown key',
   // command line only
   'cli.badFormat': 'a --format value surmise does not read',
-  'cli.badKind': 'a --kind value is not NAME=KIND',
+  'cli.badKind': 'a --kind value is not NAME=KIND, or names a column already given a kind',
   'cli.badComplexPairs': 'a --complex-pairs value cannot be read',
 } as const;
 

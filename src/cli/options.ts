@@ -132,6 +132,8 @@ export function parseTableOption(o: OptionSpec, raw: string | string[] | boolean
       if (parts.some((s) => s === '')) throw new SurmiseError('option.badList', `${flag} ${text}: expected ${sep === ',' ? 'comma' : 'semicolon'}-separated entries with none empty`, details);
       if (o.choices) {
         if (parts.length === 1 && parts[0] === 'all') return [...o.choices];
+        if (parts.includes('all'))
+          throw new SurmiseError('option.badValue', `${flag} ${text}: 'all' already means every ${o.noun?.replace(/^an? /, '') ?? 'choice'}; give it alone or list the ones wanted`, details);
         const wrong = parts.find((p) => !o.choices!.includes(p));
         if (wrong !== undefined) {
           const what = `${o.noun ?? 'one of the choices'}; expected ${o.choices.join(', ')} or all${didYouMean(wrong, [...o.choices, 'all'])}`;

@@ -4,7 +4,7 @@
  * They are the command-line form of readTable's options and withDerived's derived columns (the
  * run configuration's `derive`, `kinds`, `complexPairs`, `format` keys).
  */
-import type { Command } from 'commander';
+import { Option, type Command } from 'commander';
 import { resolve } from 'node:path';
 import { SurmiseError, didYouMean } from '../errors.ts';
 import { COLUMN_KINDS } from '../table/columns.ts';
@@ -40,11 +40,14 @@ export function addReadFlags(cmd: Command): Command {
   return cmd
     .option('--derive <name=expr>', 'add a computed column first (repeatable), e.g. ratio=re(zb/za)', collect, [] as string[])
     .option('--kind <name=kind>', `declare a column's kind: ${COLUMN_KINDS.join(', ')} (repeatable)`, collect, [] as string[])
-    .option(
-      '--complex-pairs <rule>',
-      'join real/imaginary column pairs: auto (X_re/X_im and X.re/X.im, unless a kind is declared for a part or, other than complex, for X), none, or NAME=RE,IM (repeatable)',
-      collect,
-      [] as string[],
+    .addOption(
+      new Option(
+        '--complex-pairs <rule>',
+        'join real/imaginary column pairs: auto (X_re/X_im and X.re/X.im, unless a kind is declared for a part or, other than complex, for X), none, or NAME=RE,IM (repeatable)',
+      )
+        .argParser(collect)
+        // no value given is the rule `auto` (parseComplexPairsOption), not `none`
+        .default([] as string[], 'auto'),
     )
     .option('--format <format>', `read the file as ${TABLE_FORMATS.join(', ')} whatever its extension`);
 }
@@ -57,6 +60,7 @@ export function parseKindOptions(specs: readonly string[]): Record<string, Colum
     const name = eq < 0 ? '' : s.slice(0, eq).trim();
     const kind = eq < 0 ? '' : s.slice(eq + 1).trim();
     if (eq < 0 || name === '') throw new SurmiseError('cli.badKind', `--kind ${s}: expected NAME=KIND, e.g. --kind crossings=integer`);
+    if (Object.hasOwn(kinds, name)) throw new SurmiseError('cli.badKind', `--kind ${s}: column '${name}' already has a kind (${kinds[name]}); give each column one --kind`);
     if (!COLUMN_KINDS.includes(kind as ColumnKind))
       throw new SurmiseError('cli.badKind', `--kind ${s}: '${kind}' is not a column kind; expected one of ${COLUMN_KINDS.join(', ')}${didYouMean(kind, COLUMN_KINDS)}`);
     kinds[name] = kind as ColumnKind;

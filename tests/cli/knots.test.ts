@@ -38,6 +38,11 @@ describe('surmise knots', () => {
     expect(lines[4]).toBe('hopf,2,2,2,-1,2,t^(1/2) - t^(-1/2)');
   });
 
+  it("--invariants 'all' with others is refused on one line that says why (it said 'all' was not an invariant)", async () => {
+    const r = await run(['knots', 'd.txt', '--invariants', 'all,crossings']);
+    expect(r.code).toBe(2);
+    expect(r.err).toBe("surmise: --invariants all,crossings: 'all' already means every invariant; give it alone or list the ones wanted [option.badValue]\n");
+  });
   it('--json prints one object with coefficient lists; --omega adds Levine–Tristram', async () => {
     const r = await run(['knots', 'd.txt', '--json', '--invariants', 'signature,alexander,linking,jumps', '--omega', '0.1']);
     expect(r.code).toBe(0);

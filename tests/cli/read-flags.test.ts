@@ -67,6 +67,20 @@ describe('one set of reading flags on every table command', () => {
     expect(coef(JSON.parse(parts.out))[2]).toBeCloseTo(3, 10);
   });
 
+  it('--complex-pairs shows its real default, auto (the rule used when it is not given), not none', () => {
+    const program = buildProgram(memoryIO());
+    for (const name of TABLE_COMMANDS) {
+      const o = program.commands.find((c) => c.name() === name)!.options.find((x) => x.long === '--complex-pairs')!;
+      expect(o.defaultValueDescription, name).toBe('auto');
+    }
+  });
+
+  it('a column given two kinds is refused, naming the flag, not silently overwritten', async () => {
+    const r = await cli('inspect', 'pair.csv', '--kind', 'y=integer', '--kind', 'y=real', '--no-progress');
+    expect(r.code).toBe(2);
+    expect(r.err).toBe("surmise: --kind y=real: column 'y' already has a kind (integer); give each column one --kind [cli.badKind]\n");
+  });
+
   it('a bad --complex-pairs or --format is refused on one line naming the flag, before any work', async () => {
     const pairs = await cli('bound', 'pair.csv', '--lhs', 'y', '--rhs', 'cza_re', '--complex-pairs', 'auto', '--complex-pairs', 'none');
     expect(pairs.code).toBe(2);
