@@ -26,7 +26,8 @@ export function readRunResults(runDir: string): RunResults {
     return { ...rest, formatVersion: 2, searches: search ? [{ name: defaultSearchName(0), ...(search as SearchResult) }] : [] } as RunResults;
   }
   if (r.formatVersion !== 2) {
-    throw new SurmiseError('run.badResults', `${file}: written by a newer surmise (results format ${String(r.formatVersion)}; this one reads 1 and 2)`);
+    const newer = typeof r.formatVersion === 'number' && Number.isInteger(r.formatVersion) && r.formatVersion > 2;
+    throw new SurmiseError('run.badResults', `${file}: ${newer ? 'written by a newer surmise' : 'not a results format surmise wrote'} (results format ${JSON.stringify(r.formatVersion)}; this one reads 1 and 2)`);
   }
   if (!Array.isArray(r.searches)) throw new SurmiseError('run.badResults', `${file}: 'searches' is not a list`);
   return r as RunResults;

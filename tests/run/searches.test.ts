@@ -150,7 +150,10 @@ describe('two search blocks in one run', () => {
     expect(compareRuns(read, rerun).searches.map((s) => [s.name, s.in])).toEqual([['search 1', 'both']]);
     // a newer format than this reader knows is refused, not misread
     writeFileSync(join(dir, 'old-run', 'results.json'), JSON.stringify({ ...old, formatVersion: 3 }));
-    expect(() => readRunResults(join(dir, 'old-run'))).toThrow(/results format 3; this one reads 1 and 2/);
+    expect(() => readRunResults(join(dir, 'old-run'))).toThrow(/written by a newer surmise \(results format 3; this one reads 1 and 2/);
+    // and a version no surmise wrote is not called newer
+    writeFileSync(join(dir, 'old-run', 'results.json'), JSON.stringify({ ...old, formatVersion: '2' }));
+    expect(() => readRunResults(join(dir, 'old-run'))).toThrow(/not a results format surmise wrote \(results format "2"; this one reads 1 and 2\)/);
   }, 300_000);
 });
 
