@@ -2,7 +2,7 @@
  * Benchmark: hyperbolic invariants (status, volume, cusp shape).
  *  A. one diagram at a time, up to 50 crossings (target: under 1 s each): the twist family
  *     σ1^(2k+1) σ2 σ1⁻¹ σ2, twist knots as plat PD codes (4..50 crossings) and random 4-strand
- *     knot braids of 30 and 50 letters;
+ *     knot braids of 30 and 50 letters; PD codes of 5-strand 45-letter knot braids with 0–5 kinks;
  *  B. 1,000 random 20-crossing knots (4-strand braids of length 20) through `invariantsMany`
  *     with 2 worker threads and with 1 (target: under 60 s on 2 cores).
  * Run: npm run bench -- hyperbolic   (node --import tsx bench/hyperbolic.ts [--quick])
@@ -14,6 +14,8 @@ import { hyperbolicInvariants } from '../src/knots/hyperbolic/index.ts';
 import { invariantsMany } from '../src/knots/many.ts';
 import type { DiagramSource } from '../src/knots/parse.ts';
 import { twistKnotPD } from '../src/knots/plat.ts';
+import { braidClosurePD } from '../src/knots/braid.ts';
+import { addKink, relabelPD } from '../src/knots/generate.ts';
 import type { Crossing } from '../src/knots/pd.ts';
 
 const quick = process.argv.includes('--quick');
@@ -31,7 +33,17 @@ const groups: Array<[string, Braid[]]> = [
   ['random 4-strand knot braids, 30 crossings', Array.from({ length: quick ? 5 : 20 }, () => randomKnotBraid(rngA, 4, 30))],
   ['random 4-strand knot braids, 50 crossings', Array.from({ length: quick ? 5 : 20 }, () => randomKnotBraid(rngA, 4, 50))],
 ];
-const plats: Array<[string, Crossing[][]]> = [['twist knots as plat PD codes, 4..50 crossings', Array.from({ length: 47 }, (_, k) => twistKnotPD(k + 2))]];
+// PD codes as `knots generate pd --strands 5 --length 45 --kinks 0..5` draws them: closed random knot braids with kinks, relabelled
+const rngP = new Rng(deriveSeed(1, 'bench', 'hyperbolic', 'pd'));
+const kinked = Array.from({ length: quick ? 5 : 20 }, (_, k) => {
+  let pd = braidClosurePD(randomKnotBraid(rngP, 5, 45)).pd;
+  for (let j = 0; j < k % 6; j++) pd = addKink(pd, pd[j]![j % 4]!, j);
+  return relabelPD(pd, rngP);
+});
+const plats: Array<[string, Crossing[][]]> = [
+  ['twist knots as plat PD codes, 4..50 crossings', Array.from({ length: 47 }, (_, k) => twistKnotPD(k + 2))],
+  ['PD codes of 5-strand 45-letter knot braids with 0..5 kinks, 46..50 crossings', kinked],
+];
 for (const [label, diagrams] of [...groups, ...plats] as Array<[string, Array<Braid | Crossing[]>]>) {
   const times: number[] = [];
   const status = new Map<string, number>();

@@ -15,7 +15,7 @@
  * component, reported with Im > 0; natural slope Re(λ/μ). For links, the first component's cusp.
  */
 import type { Diagram } from '../diagram.ts';
-import { analysePD } from '../pd.ts';
+import { analysePD, type Crossing } from '../pd.ts';
 import { braidClosurePD, type Braid } from '../braid.ts';
 import { blochWigner } from './dilog.ts';
 import { removeKinks } from './kinks.ts';
@@ -70,12 +70,14 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   if (d.freeLoops > 0 || d.info.nPieces > 1)
     return { geometry: 'not hyperbolic', reason: 'split link: the diagram falls into separate pieces (an essential sphere)' };
   // braid words: free reduction and Markov destabilisation (same closure, fewer crossings);
-  // PD and DT codes: the braid from Vogel's algorithm, used only to recognise torus and composite knots
+  // PD and DT codes: the braid from Vogel's algorithm on the diagram without its kinks (a kink is
+  // a Seifert circle of its own, which Vogel's moves would have to thread into the braid)
   let small: Braid | undefined;
   if (d.braid) small = simplifyBraid(d.braid);
   else if (d.info.nCrossings <= VOGEL_LIMIT) {
     try {
-      small = simplifyBraid(pdToBraid(d.info.crossings));
+      const unkinked = removeKinks(d.info.crossings);
+      if (unkinked.freeLoops === 0 && unkinked.pd.length > 0) small = simplifyBraid(pdToBraid(unkinked.pd));
     } catch {
       small = undefined;
     }
@@ -89,7 +91,25 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   const deeper = small && recogniseClosure(small, d.info.nComponents);
   if (deeper && deeper.status === 'not hyperbolic') return { geometry: 'not hyperbolic', reason: deeper.reason };
   if (deeper) small = deeper.braid;
-  const crossings = d.braid ? braidClosurePD(small!).pd : d.info.crossings;
+  if (d.braid) return solveOn(braidClosurePD(small!).pd, d, small, opts);
+  // PD and DT codes: the closed braid reached above when it has no more crossings than the
+  // diagram without kinks (an isotopy: same volume and cusp), the diagram itself if that fails
+  if (small && small.word.length > 0) {
+    const closure = braidClosurePD(small).pd;
+    if (closure.length <= removeKinks(d.info.crossings).pd.length) {
+      // the effort cap is shared: half for the braid, half for the diagram if that fails
+      const viaBraid = solveOn(closure, d, small, { ...opts, maxWork: opts.maxWork / 2 });
+      if (viaBraid.geometry === 'not hyperbolic' || viaBraid.cuspShape !== undefined) return viaBraid;
+      const direct = solveOn(d.info.crossings, d, small, { ...opts, maxWork: opts.maxWork / 2 });
+      if (viaBraid.geometry === 'hyperbolic' && (direct.geometry === 'unresolved' || direct.cuspShape === undefined)) return viaBraid;
+      return direct;
+    }
+  }
+  return solveOn(d.info.crossings, d, small, opts);
+}
+
+/** The diagram `crossings` (of the knot or link of `d`) solved: kinks and connected sums removed, then Thurston's equations. */
+function solveOn(crossings: Crossing[], d: Diagram, small: Braid | undefined, opts: SearchOptions): HyperbolicInvariants {
   if (crossings.length === 0) return { geometry: 'not hyperbolic', reason: 'the braid word reduces to the empty word: an unknot or unlink' };
   const k = removeKinks(crossings);
   if (k.freeLoops > 0 && d.info.nComponents > 1) return { geometry: 'not hyperbolic', reason: 'split link: a component is an unknotted loop apart from the rest' };

@@ -5,7 +5,7 @@ import { hyperbolicInvariants } from '../../../src/knots/hyperbolic/invariants.t
 import { SEARCH_DEFAULTS } from '../../../src/knots/hyperbolic/search.ts';
 import { braidClosurePD, burauAlexanderExact } from '../../../src/knots/braid.ts';
 import { trimPoly } from '../../../src/knots/poly.ts';
-import { addKink, mirrorPD, relabelPD, torusBraid } from '../../../src/knots/generate.ts';
+import { addKink, mirrorPD, randomKnotBraid, relabelPD, torusBraid } from '../../../src/knots/generate.ts';
 import type { Crossing } from '../../../src/knots/pd.ts';
 import { twistKnotPD } from '../../../src/knots/plat.ts';
 import { Rng } from '../../../src/util/rng.ts';
@@ -247,5 +247,23 @@ describe('hyperbolic invariants of small knots', () => {
       expect(Math.abs(Math.abs(h.naturalSlope!) - Math.abs(ref.naturalSlope!))).toBeLessThan(1e-9);
       expect(Math.abs(h.cuspShape![1] - ref.cuspShape![1])).toBeLessThan(1e-9);
     }
+  });
+  it('PD codes of 45-letter 5-strand braids with kinks (as `knots generate pd` draws them) are solved through their Vogel braid: the volume and cusp shape of the braid itself (isotopy invariance)', () => {
+    const rng = new Rng(20261202);
+    let checked = 0;
+    for (let k = 0; k < 12 && checked < 4; k++) {
+      const b = randomKnotBraid(rng, 5, 45);
+      const byBraid = hyperbolicInvariants(parseDiagram(`${b.strands}: ${b.word.join(' ')}`));
+      if (byBraid.geometry !== 'hyperbolic' || byBraid.cuspShape === undefined) continue;
+      let pd = braidClosurePD(b).pd;
+      for (let j = 0; j < 4; j++) pd = addKink(pd, pd[j]![j % 4]!, j);
+      const byPD = hyp(relabelPD(pd, new Rng(k)));
+      expect(byPD.geometry).toBe('hyperbolic');
+      expect(byPD.volume).toBeCloseTo(byBraid.volume!, 9);
+      expect(byPD.cuspShape![0]).toBeCloseTo(byBraid.cuspShape[0], 8);
+      expect(byPD.cuspShape![1]).toBeCloseTo(byBraid.cuspShape[1], 8);
+      checked++;
+    }
+    expect(checked).toBe(4);
   });
 });
