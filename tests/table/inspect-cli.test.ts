@@ -97,6 +97,10 @@ describe('surmise inspect', () => {
     expect(dup.code).toBe(2);
     // the one derive service's wording (withDerived), as on rank, fit, search and bound
     expect(dup.err).toBe("surmise: census.csv: derived column 'amp' would replace the table's column of the same name; choose another name [table.duplicateColumn]\n");
+    // a name given to two derived columns is not called the table's
+    const twice = await run(['inspect', 'census.csv', '--derive', 'x=2', '--derive', 'x=3']);
+    expect(twice.code).toBe(2);
+    expect(twice.err).toBe("surmise: census.csv: derived column 'x' is given twice; choose another name for one of them [table.duplicateColumn]\n");
     const unk = await run(['inspect', 'census.csv', '--derive', 'x=volume*2']);
     expect(unk.code).toBe(2);
     // the expression layer adds a caret line under the expression (its own format); no stack trace

@@ -95,9 +95,12 @@ export function withDerived(table: Table, derive: readonly DeriveSpec[] = []): T
   const columns = [...table.columns];
   for (const d of derive) {
     if (columns.some((c) => c.name === d.name)) {
+      const ofTable = table.columns.some((c) => c.name === d.name);
       throw new SurmiseError(
         'table.duplicateColumn',
-        `${table.source}: derived column '${d.name}' would replace the table's column of the same name; choose another name`,
+        ofTable
+          ? `${table.source}: derived column '${d.name}' would replace the table's column of the same name; choose another name`
+          : `${table.source}: derived column '${d.name}' is given twice; choose another name for one of them`,
         { option: 'derive', column: d.name },
       );
     }
