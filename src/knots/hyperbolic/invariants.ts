@@ -99,9 +99,10 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
     const closure = braidClosurePD(small).pd;
     if (closure.length <= removeKinks(d.info.crossings).pd.length) {
       // the effort cap is shared: half for the braid, half for the diagram if that fails
-      const viaBraid = solveOn(closure, d, small, { ...opts, maxWork: opts.maxWork / 2 });
+      const cap = `maxWork ${opts.maxWork.toExponential(0)} solver operations, half on the closure of the diagram's braid, half on the diagram`;
+      const viaBraid = solveOn(closure, d, small, { ...opts, maxWork: opts.maxWork / 2 }, cap);
       if (viaBraid.geometry === 'not hyperbolic' || viaBraid.cuspShape !== undefined) return viaBraid;
-      const direct = solveOn(d.info.crossings, d, small, { ...opts, maxWork: opts.maxWork / 2 });
+      const direct = solveOn(d.info.crossings, d, small, { ...opts, maxWork: opts.maxWork / 2 }, cap);
       if (viaBraid.geometry === 'hyperbolic' && (direct.geometry === 'unresolved' || direct.cuspShape === undefined)) return viaBraid;
       return direct;
     }
@@ -110,7 +111,7 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
 }
 
 /** The diagram `crossings` (of the knot or link of `d`) solved: kinks and connected sums removed, then Thurston's equations. */
-function solveOn(crossings: Crossing[], d: Diagram, small: Braid | undefined, opts: SearchOptions): HyperbolicInvariants {
+function solveOn(crossings: Crossing[], d: Diagram, small: Braid | undefined, opts: SearchOptions, cap = `maxWork ${opts.maxWork.toExponential(0)} solver operations`): HyperbolicInvariants {
   if (crossings.length === 0) return { geometry: 'not hyperbolic', reason: 'the braid word reduces to the empty word: an unknot or unlink' };
   const k = removeKinks(crossings);
   if (k.freeLoops > 0 && d.info.nComponents > 1) return { geometry: 'not hyperbolic', reason: 'split link: a component is an unknotted loop apart from the rest' };
@@ -152,7 +153,7 @@ function solveOn(crossings: Crossing[], d: Diagram, small: Braid | undefined, op
     return {
       geometry: 'unresolved',
       reason:
-        (sol.capped ? `no geometric solution found within the effort cap (maxWork ${opts.maxWork.toExponential(0)} solver operations)` : 'no geometric solution found') +
+        (sol.capped ? `no geometric solution found within the effort cap (${cap})` : 'no geometric solution found') +
         `; possibly not hyperbolic (${sol.triangulations} triangulations, ${sol.solves} solves` +
         (sol.negativeSolutions ? `, ${sol.negativeSolutions} solutions with negatively oriented tetrahedra not carried to a geometric one)` : ')'),
     };

@@ -236,6 +236,10 @@ describe('hyperbolic invariants of small knots', () => {
     expect(h.volume).toBeUndefined();
     // the default cap leaves it alone
     expect(hyp(braid('5_2')).geometry).toBe('hyperbolic');
+    // a PD code solved through its braid's closure, then itself: the reason gives the whole cap and how it was shared
+    const p = hyperbolicInvariants(parseDiagram(JSON.stringify(fx.knots['5_2']!.pdFromBraid)), { ...SEARCH_DEFAULTS, maxWork: 2 });
+    expect(p.geometry).toBe('unresolved');
+    expect(p.reason).toMatch(/effort cap \(maxWork 2e\+0 solver operations, half on the closure of the diagram's braid, half on the diagram\)/);
   });
   it('6_2 from 4-braids where no crossing keeps its meridian tetrahedra after the 2–0 moves on bigons: the solution is carried back to the triangulation from the diagram, cusp shape of the PD code up to mirror (to 1e-9)', () => {
     const ref = hyp(pd('6_2'));
