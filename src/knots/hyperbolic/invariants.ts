@@ -31,6 +31,7 @@ import { combinatorics } from './triangulation.ts';
 import { cuspBases } from './cusp.ts';
 import { gluingEquations } from './equations.ts';
 import { maximalCusp, type MaximalCusp } from './maxcusp.ts';
+import { meridianClasp } from './clasp.ts';
 
 export const GEOMETRY_STATUSES = ['hyperbolic', 'not hyperbolic', 'unresolved'] as const;
 export type Geometry = (typeof GEOMETRY_STATUSES)[number];
@@ -136,6 +137,12 @@ function solveOn(crossings: Crossing[], d: Diagram, small: Braid | undefined, op
     if (!over || !under)
       return { geometry: 'not hyperbolic', reason: `split link: component ${comp + 1} passes ${over ? 'over' : 'under'} everything it meets, so it lifts off the rest` };
   }
+  const clasp = meridianClasp(info);
+  if (clasp)
+    return {
+      geometry: 'not hyperbolic',
+      reason: `component ${clasp.clasp + 1} is a meridian of component ${clasp.around + 1} (it clasps one edge, so it bounds a disk meeting the link once): a connected sum with the Hopf link`,
+    };
   const sol = findGeometricSolution(info, info.nComponents, opts);
   if (!('tri' in sol) && small && small.word.length > 0) {
     // no geometric solution: a deeper closed-braid search (words may grow by a cancelling pair)
