@@ -26,6 +26,8 @@ function deltaPower(n: number, m: number): number[] {
 export function recognisePeriodicBraid(b: Braid, cap = 20000): { p: number; q: number } | undefined {
   const n = b.strands;
   if (n < 2) return undefined;
+  // a letter outside σ1..σ_{n−1} is not a braid on n strands: claim nothing
+  if (b.word.some((g) => g === 0 || Math.abs(g) >= n)) return undefined;
   const e = b.word.reduce((s, g) => s + Math.sign(g), 0);
   if (e % (n - 1) !== 0) return undefined;
   const q = e / (n - 1);

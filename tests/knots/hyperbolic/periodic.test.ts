@@ -27,6 +27,10 @@ describe('torus links from braids conjugate to (σ1…σ_{n−1})^q (González-M
     // T(p, q) = T(q, p): (σ1σ2σ3σ4)^4 on 5 strands
     expect(recognisePeriodicBraid(torusBraid(5, 4))).toEqual({ p: 5, q: 4 });
   });
+  it('a letter outside σ1..σ_{n−1} is not a braid on n strands: nothing is claimed (σ1σ2σ3 is T(4, 1) only on 4 strands)', () => {
+    expect(recognisePeriodicBraid({ strands: 3, word: [1, 2, 3] })).toBeUndefined();
+    expect(recognisePeriodicBraid({ strands: 4, word: [1, 2, 3] })).toEqual({ p: 4, q: 1 });
+  });
   it('|q| = 1: conjugates of σ1σ2σ3 (a closed braid of the unknot) give T(4, ±1)', () => {
     expect(recognisePeriodicBraid({ strands: 4, word: conjugate([1, 2, 3], [2, -1, 3, 3]) })).toEqual({ p: 4, q: 1 });
     expect(recognisePeriodicBraid({ strands: 4, word: conjugate([-3, -2, -1], [1, 2]) })).toEqual({ p: 4, q: -1 });
@@ -34,7 +38,8 @@ describe('torus links from braids conjugate to (σ1…σ_{n−1})^q (González-M
   it('never claims a braid of a hyperbolic knot, nor a near-torus word (one letter changed, a twist added)', () => {
     for (const k of ['4_1', '5_2', '6_1', '6_2', '6_3', '7_2', '7_3', '7_4', '7_5', '7_6', '7_7']) {
       const b = fx.knots[k]!.braid;
-      expect(recognisePeriodicBraid({ strands: Math.max(...b) + 1, word: b }), k).toBeUndefined();
+      // strands from the largest |generator| (negative letters are inverses of the same generators)
+      expect(recognisePeriodicBraid({ strands: Math.max(...b.map(Math.abs)) + 1, word: b }), k).toBeUndefined();
     }
     // T(3,4)'s word with one letter inverted: exponent sum not a multiple of 2 → not conjugate to δ^q
     const w = torusBraid(3, 4).word;
