@@ -21,6 +21,7 @@
  * destabilisation.
  */
 import type { Braid } from '../braid.ts';
+import { cyclicReduce } from './reduce.ts';
 
 export interface ClosedBraidOptions {
   /** Words expanded in all (each has up to about twice its length of neighbours). */
@@ -84,21 +85,6 @@ function sumAt(w: readonly number[], i: number): boolean {
   }
   if (prev !== first) changes++;
   return changes <= 2;
-}
-
-function cyclicReduce(word: readonly number[]): number[] {
-  const out: number[] = [];
-  for (const g of word) {
-    if (out.length && out[out.length - 1] === -g) out.pop();
-    else out.push(g);
-  }
-  let a = 0;
-  let z = out.length - 1;
-  while (z > a && out[a] === -out[z]!) {
-    a++;
-    z--;
-  }
-  return out.slice(a, z + 1);
 }
 
 /** Start of the least rotation of a cyclic sequence (two-pointer method, linear time). */

@@ -74,11 +74,11 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   // PD and DT codes: the braid from Vogel's algorithm on the diagram without its kinks (a kink is
   // a Seifert circle of its own, which Vogel's moves would have to thread into the braid)
   let small: Braid | undefined;
+  const unkinked = d.braid ? undefined : removeKinks(d.info.crossings);
   if (d.braid) small = simplifyBraid(d.braid);
   else if (d.info.nCrossings <= VOGEL_LIMIT) {
     try {
-      const unkinked = removeKinks(d.info.crossings);
-      if (unkinked.freeLoops === 0 && unkinked.pd.length > 0) small = simplifyBraid(pdToBraid(unkinked.pd));
+      if (unkinked!.freeLoops === 0 && unkinked!.pd.length > 0) small = simplifyBraid(pdToBraid(unkinked!.pd));
     } catch {
       small = undefined;
     }
@@ -97,7 +97,7 @@ export function hyperbolicInvariants(d: Diagram, opts: SearchOptions = SEARCH_DE
   // diagram without kinks (an isotopy: same volume and cusp), the diagram itself if that fails
   if (small && small.word.length > 0) {
     const closure = braidClosurePD(small).pd;
-    if (closure.length <= removeKinks(d.info.crossings).pd.length) {
+    if (closure.length <= unkinked!.pd.length) {
       // the effort cap is shared: half for the braid, half for the diagram if that fails
       const cap = `maxWork ${opts.maxWork.toExponential(0)} solver operations, half on the closure of the diagram's braid, half on the diagram`;
       const viaBraid = solveOn(closure, d, small, { ...opts, maxWork: opts.maxWork / 2 }, cap);

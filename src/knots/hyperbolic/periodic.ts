@@ -11,6 +11,7 @@
  */
 import { powerEquals } from '../artin.ts';
 import type { Braid } from '../braid.ts';
+import { gcd } from '../../util/gcd.ts';
 
 /** δ^m as a word (m < 0: the inverse letters in reverse order). */
 function deltaPower(n: number, m: number): number[] {
@@ -50,9 +51,4 @@ export function recognisePeriodicBraid(b: Braid, cap = 20000): { p: number; q: n
     if (c !== len) return undefined;
   }
   return powerEquals(b, n, deltaPower(n, n * q), cap) ? { p: n, q } : undefined;
-}
-
-function gcd(a: number, b: number): number {
-  while (b) [a, b] = [b, a % b];
-  return a;
 }

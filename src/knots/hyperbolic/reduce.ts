@@ -14,18 +14,25 @@
 import { burauAlexanderExact, type Braid } from '../braid.ts';
 import { trimPoly } from '../poly.ts';
 
-/** Free cyclic reduction of a braid word (σ_i σ_i⁻¹ → nothing, also across the closing point). */
-export function reduceBraid(b: Braid): Braid {
+/** Free cyclic reduction of a word: σ_i σ_i⁻¹ → nothing, also across the closing point (a stack pass, then both ends). */
+export function cyclicReduce(word: readonly number[]): number[] {
   const out: number[] = [];
-  for (const g of b.word) {
+  for (const g of word) {
     if (out.length && out[out.length - 1] === -g) out.pop();
     else out.push(g);
   }
-  while (out.length >= 2 && out[0] === -out[out.length - 1]!) {
-    out.shift();
-    out.pop();
+  let a = 0;
+  let z = out.length - 1;
+  while (z > a && out[a] === -out[z]!) {
+    a++;
+    z--;
   }
-  return { strands: b.strands, word: out };
+  return out.slice(a, z + 1);
+}
+
+/** Free cyclic reduction of a braid word (σ_i σ_i⁻¹ → nothing, also across the closing point). */
+export function reduceBraid(b: Braid): Braid {
+  return { strands: b.strands, word: cyclicReduce(b.word) };
 }
 
 /** Free reduction and Markov destabilisation until neither applies. */
